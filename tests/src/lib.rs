@@ -1,0 +1,1 @@
+//! Cross-crate verification suite; the checks live in `tests/tests/`.
