@@ -1,0 +1,234 @@
+//! Every kind of part in one enum, with one way to ask for the surface state.
+
+use serde::{Deserialize, Serialize};
+
+use crate::beam::{BEAM_COMPONENTS, Beam};
+use crate::error::{MechanicsError, Result};
+use crate::given_state::{GIVEN_STATE_COMPONENTS, GivenState};
+use crate::load::{LoadComponent, LoadVector};
+use crate::material::Material;
+use crate::plate_with_hole::{PLATE_COMPONENTS, PlateWithHole};
+use crate::shaft::{SHAFT_COMPONENTS, Shaft};
+use crate::surface::{FaceExtent, SurfacePoint};
+use crate::surface_state::SurfaceState;
+use crate::thick_cylinder::{THICK_CYLINDER_COMPONENTS, ThickCylinder};
+use crate::thin_cylinder::{THIN_CYLINDER_COMPONENTS, ThinCylinder};
+use crate::thin_sphere::{THIN_SPHERE_COMPONENTS, ThinSphere};
+
+/// A part whose surface strains Gaugewright can compute.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub enum Member {
+    /// Prismatic beam or bar.
+    Beam(Beam),
+    /// Round shaft.
+    Shaft(Shaft),
+    /// Thin-walled cylindrical vessel.
+    ThinCylinder(ThinCylinder),
+    /// Thin-walled sphere.
+    ThinSphere(ThinSphere),
+    /// Thick-walled cylinder.
+    ThickCylinder(ThickCylinder),
+    /// Plate with a circular hole.
+    PlateWithHole(PlateWithHole),
+    /// A user-given uniform state.
+    GivenState(GivenState),
+}
+
+impl Member {
+    /// Plain name of the member kind.
+    pub fn kind_name(&self) -> &'static str {
+        match self {
+            Member::Beam(_) => "beam",
+            Member::Shaft(_) => "round shaft",
+            Member::ThinCylinder(_) => "thin-walled cylinder",
+            Member::ThinSphere(_) => "thin-walled sphere",
+            Member::ThickCylinder(_) => "thick-walled cylinder",
+            Member::PlateWithHole(_) => "plate with a hole",
+            Member::GivenState(_) => "given surface state",
+        }
+    }
+
+    /// The load components this member responds to.
+    pub fn components(&self) -> &'static [LoadComponent] {
+        match self {
+            Member::Beam(_) => BEAM_COMPONENTS,
+            Member::Shaft(_) => SHAFT_COMPONENTS,
+            Member::ThinCylinder(_) => THIN_CYLINDER_COMPONENTS,
+            Member::ThinSphere(_) => THIN_SPHERE_COMPONENTS,
+            Member::ThickCylinder(_) => THICK_CYLINDER_COMPONENTS,
+            Member::PlateWithHole(_) => PLATE_COMPONENTS,
+            Member::GivenState(_) => GIVEN_STATE_COMPONENTS,
+        }
+    }
+
+    /// The part's material.
+    pub fn material(&self) -> &Material {
+        match self {
+            Member::Beam(m) => &m.material,
+            Member::Shaft(m) => &m.material,
+            Member::ThinCylinder(m) => &m.material,
+            Member::ThinSphere(m) => &m.material,
+            Member::ThickCylinder(m) => &m.material,
+            Member::PlateWithHole(m) => &m.material,
+            Member::GivenState(m) => &m.material,
+        }
+    }
+
+    /// Mutable access to the material.
+    pub fn material_mut(&mut self) -> &mut Material {
+        match self {
+            Member::Beam(m) => &mut m.material,
+            Member::Shaft(m) => &mut m.material,
+            Member::ThinCylinder(m) => &mut m.material,
+            Member::ThinSphere(m) => &mut m.material,
+            Member::ThickCylinder(m) => &mut m.material,
+            Member::PlateWithHole(m) => &mut m.material,
+            Member::GivenState(m) => &mut m.material,
+        }
+    }
+
+    /// Checks every dimension and property; the message names the value and the way out.
+    pub fn validate(&self) -> Result<()> {
+        match self {
+            Member::Beam(m) => m.validate(),
+            Member::Shaft(m) => m.validate(),
+            Member::ThinCylinder(m) => m.validate(),
+            Member::ThinSphere(m) => m.validate(),
+            Member::ThickCylinder(m) => m.validate(),
+            Member::PlateWithHole(m) => m.validate(),
+            Member::GivenState(m) => m.validate(),
+        }
+    }
+
+    /// Notes on where the model is near the edge of its validity (the model still runs).
+    pub fn warnings(&self) -> Vec<String> {
+        match self {
+            Member::PlateWithHole(m) => m.warnings(),
+            _ => Vec::new(),
+        }
+    }
+
+    /// The faces a gauge can be placed on.
+    pub fn faces(&self) -> Vec<FaceExtent> {
+        match self {
+            Member::Beam(m) => m.faces(),
+            Member::Shaft(m) => m.faces(),
+            Member::ThinCylinder(m) => m.faces(),
+            Member::ThinSphere(m) => m.faces(),
+            Member::ThickCylinder(m) => m.faces(),
+            Member::PlateWithHole(m) => m.faces(),
+            Member::GivenState(m) => m.faces(),
+        }
+    }
+
+    /// The point brought onto the part (s wrapped round), or an error saying why it is off.
+    pub fn locate(&self, point: &SurfacePoint) -> Result<SurfacePoint> {
+        let faces = self.faces();
+        let Some(extent) = faces.iter().find(|f| f.face == point.face) else {
+            let names: Vec<&str> = faces.iter().map(|f| f.face.name()).collect();
+            return Err(MechanicsError::PointOffPart {
+                what: "the point",
+                detail: format!(
+                    "a {} has no {}; use one of: {}",
+                    self.kind_name(),
+                    point.face.name(),
+                    names.join(", ")
+                ),
+            });
+        };
+        extent
+            .locate(point)
+            .map_err(|detail| MechanicsError::PointOffPart {
+                what: "the point",
+                detail,
+            })
+    }
+
+    /// Surface state at a point under a load vector. Linear in `loads`.
+    pub fn state(&self, point: &SurfacePoint, loads: &LoadVector) -> Result<SurfaceState> {
+        if let Some((c, value)) = loads.first_non_finite() {
+            return Err(MechanicsError::NotFinite {
+                name: c.name(),
+                value,
+            });
+        }
+        let p = self.locate(point)?;
+        Ok(self.state_unchecked(&p, loads))
+    }
+
+    /// Surface state at a point already located with [`Member::locate`], loads already checked.
+    /// Used by the map and the grid quadrature, which check once for many points.
+    pub fn state_unchecked(&self, p: &SurfacePoint, loads: &LoadVector) -> SurfaceState {
+        let state = match self {
+            Member::Beam(m) => m.state_at(p, loads),
+            Member::Shaft(m) => m.state_at(p, loads),
+            Member::ThinCylinder(m) => m.state_at(p, loads),
+            Member::ThinSphere(m) => m.state_at(p, loads),
+            Member::ThickCylinder(m) => m.state_at(p, loads),
+            Member::PlateWithHole(m) => m.state_at(p, loads),
+            Member::GivenState(m) => m.state_at(p, loads),
+        };
+        debug_assert!(state.is_some(), "located point must be on a face of the member");
+        state.unwrap_or_default()
+    }
+
+    /// Surface state per unit of one load component (zero for a component the member ignores).
+    pub fn state_per_unit(&self, point: &SurfacePoint, component: LoadComponent) -> Result<SurfaceState> {
+        self.state(point, &LoadVector::unit(component))
+    }
+
+    /// The surface state per unit of every component this member carries.
+    pub fn sensitivities(
+        &self,
+        point: &SurfacePoint,
+    ) -> Result<Vec<(LoadComponent, SurfaceState)>> {
+        self.components()
+            .iter()
+            .map(|&c| Ok((c, self.state_per_unit(point, c)?)))
+            .collect()
+    }
+
+    /// Largest von Mises stress on the gaugeable surface under `loads`, sampled on a
+    /// `n × n` grid of every face (plus the hole edge for a plate), Pa, and where it occurs.
+    pub fn peak_von_mises(&self, loads: &LoadVector, n: usize) -> Result<(f64, SurfacePoint)> {
+        if let Some((c, value)) = loads.first_non_finite() {
+            return Err(MechanicsError::NotFinite {
+                name: c.name(),
+                value,
+            });
+        }
+        let n = n.max(2);
+        let material = self.material();
+        let mut best: Option<(f64, SurfacePoint)> = None;
+        let mut consider = |p: SurfacePoint| {
+            let vm = self.state_unchecked(&p, loads).von_mises_pa(material);
+            if best.is_none_or(|(b, _)| vm > b) {
+                best = Some((vm, p));
+            }
+        };
+        for f in self.faces() {
+            let (x0, x1) = f.x_range_m;
+            let (s0, s1) = f.s_range_m;
+            for i in 0..n {
+                let x = x0 + (x1 - x0) * i as f64 / (n - 1) as f64;
+                for j in 0..n {
+                    let s = s0 + (s1 - s0) * j as f64 / (n - 1) as f64;
+                    let p = SurfacePoint::new(f.face, x, s);
+                    if let Ok(p) = f.locate(&p) {
+                        consider(p);
+                    }
+                }
+            }
+            if let Some(a) = f.hole_radius_m {
+                for k in 0..4 * n {
+                    let t = std::f64::consts::TAU * k as f64 / (4 * n) as f64;
+                    consider(SurfacePoint::new(f.face, a * t.cos(), a * t.sin()));
+                }
+            }
+        }
+        best.ok_or(MechanicsError::PointOffPart {
+            what: "every sample point",
+            detail: "the part has no gaugeable surface".to_owned(),
+        })
+    }
+}
