@@ -1,10 +1,51 @@
-fn main() -> eframe::Result {
-    let options = eframe::NativeOptions::default();
-    eframe::run_native("Gaugewright", options, Box::new(|_cc| Ok(Box::new(App))))
+//! The `gaugewright` binary: the desktop app.
+
+mod app;
+mod screenshot;
+
+use std::path::PathBuf;
+
+use clap::Parser;
+
+/// Plan strain-gauge installations: where gauges go, how bridges are wired, what they will read.
+#[derive(Debug, Parser)]
+#[command(name = "gaugewright", version)]
+struct Cli {
+    /// Render a few frames, save the window as a PNG at PATH and exit (for documentation and
+    /// smoke tests).
+    #[arg(long, value_name = "PATH")]
+    screenshot: Option<PathBuf>,
 }
-struct App;
-impl eframe::App for App {
-    fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
-        ui.heading("Gaugewright");
+
+fn main() -> std::process::ExitCode {
+    let cli = Cli::parse();
+    let options = eframe::NativeOptions {
+        viewport: egui::ViewportBuilder::default()
+            .with_title("Gaugewright")
+            .with_inner_size([1280.0, 800.0])
+            .with_min_inner_size([800.0, 500.0]),
+        ..Default::default()
+    };
+    let screenshot = cli.screenshot.map(screenshot::ScreenshotRequest::new);
+    let outcome = screenshot.as_ref().map(|r| r.outcome());
+    let result = eframe::run_native(
+        "Gaugewright",
+        options,
+        Box::new(move |_cc| Ok(Box::new(app::GaugewrightApp::new(screenshot)))),
+    );
+    if let Err(e) = result {
+        eprintln!("error: could not open the Gaugewright window: {e}");
+        return std::process::ExitCode::from(1);
+    }
+    match outcome.map(|o| o.take()) {
+        Some(Some(Err(message))) => {
+            eprintln!("error: {message}");
+            std::process::ExitCode::from(1)
+        }
+        Some(None) => {
+            eprintln!("error: the window closed before the screenshot was taken");
+            std::process::ExitCode::from(1)
+        }
+        _ => std::process::ExitCode::SUCCESS,
     }
 }

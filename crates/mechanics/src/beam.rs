@@ -7,7 +7,7 @@ use crate::error::{MechanicsError, Result, finite, positive_dimension};
 use crate::load::{LoadComponent, LoadVector};
 use crate::material::Material;
 use crate::section::{Section, checked};
-use crate::section_resultants::{Resultants, face_half_extent_m, section_faces, surface_state};
+use crate::section_resultants::{Resultants, face_half_extent_m, section_faces, unit_strains};
 use crate::surface::{FaceExtent, SurfacePoint};
 use crate::surface_state::SurfaceState;
 
@@ -143,14 +143,12 @@ impl Beam {
 
     /// Surface state at a located point (see [`crate::Member::state`]).
     pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
-        let r = self.resultants(point.x_m, loads);
-        surface_state(
-            &self.section,
-            &self.material,
-            &r,
-            loads[LoadComponent::TemperatureChange],
-            point.face,
-            point.s_m,
-        )
+        let unit = unit_strains(&self.section, &self.material, point.face, point.s_m)?;
+        Some(unit.state(&self.resultants(point.x_m, loads), self.thermal_strain(loads)))
+    }
+
+    /// Free thermal strain α·ΔT under `loads`.
+    pub(crate) fn thermal_strain(&self, loads: &LoadVector) -> f64 {
+        self.material.cte_per_c * loads[LoadComponent::TemperatureChange]
     }
 }

@@ -127,33 +127,37 @@ impl PlateWithHole {
     }
 
     /// Cartesian stresses (σx, σy, τxy), Pa, at plan point (x, y) for remote stresses.
+    ///
+    /// The superposition of [`kirsch_uniaxial`] for σx (at 0°), σy (at 90°) and the shear τ
+    /// (tension τ at 45° with compression τ at 135°), written out so that no trigonometric
+    /// function is needed: with c = cos 2θ, s = sin 2θ, D = (σx − σy) c + 2τ s and
+    /// F = (σx − σy) s − 2τ c,
+    /// σr = P(1 − q) + D/2 (1 − 4q + 3q²), σθ = P(1 + q) − D/2 (1 + 3q²),
+    /// τrθ = −F/2 (1 + 2q − 3q²), with P = (σx + σy)/2 and q = a²/r².
     pub fn stresses_at(&self, x_m: f64, y_m: f64, loads: &LoadVector) -> (f64, f64, f64) {
-        use std::f64::consts::{FRAC_PI_2, FRAC_PI_4};
         let a = self.hole_diameter_m / 2.0;
-        let r = x_m.hypot(y_m).max(a);
-        let theta = y_m.atan2(x_m);
+        let r2 = (x_m * x_m + y_m * y_m).max(a * a);
+        let r = r2.sqrt();
+        let (cos, sin) = if x_m == 0.0 && y_m == 0.0 {
+            (1.0, 0.0)
+        } else {
+            (x_m / r, y_m / r)
+        };
+        let (c2, s2) = (cos * cos - sin * sin, 2.0 * sin * cos);
+        let sx = loads[LoadComponent::RemoteStressX];
+        let sy = loads[LoadComponent::RemoteStressY];
         let tau = loads[LoadComponent::RemoteShearXY];
-        // Pure shear τ is tension τ at 45° plus compression τ at 135°.
-        let parts = [
-            (loads[LoadComponent::RemoteStressX], 0.0),
-            (loads[LoadComponent::RemoteStressY], FRAC_PI_2),
-            (tau, FRAC_PI_4),
-            (-tau, 3.0 * FRAC_PI_4),
-        ];
-        let (mut sr, mut st, mut trt) = (0.0, 0.0, 0.0);
-        for (s, dir) in parts {
-            if s != 0.0 {
-                let (a1, b1, c1) = kirsch_uniaxial(s, dir, a, r, theta);
-                sr += a1;
-                st += b1;
-                trt += c1;
-            }
-        }
-        let (sin, cos) = theta.sin_cos();
-        let sx = sr * cos * cos + st * sin * sin - 2.0 * trt * sin * cos;
-        let sy = sr * sin * sin + st * cos * cos + 2.0 * trt * sin * cos;
-        let txy = (sr - st) * sin * cos + trt * (cos * cos - sin * sin);
-        (sx, sy, txy)
+        let q = a * a / r2;
+        let mean = (sx + sy) / 2.0;
+        let d = (sx - sy) * c2 + 2.0 * tau * s2;
+        let f = (sx - sy) * s2 - 2.0 * tau * c2;
+        let sr = mean * (1.0 - q) + d / 2.0 * (1.0 - 4.0 * q + 3.0 * q * q);
+        let st = mean * (1.0 + q) - d / 2.0 * (1.0 + 3.0 * q * q);
+        let trt = -f / 2.0 * (1.0 + 2.0 * q - 3.0 * q * q);
+        let sigma_x = sr * cos * cos + st * sin * sin - 2.0 * trt * sin * cos;
+        let sigma_y = sr * sin * sin + st * cos * cos + 2.0 * trt * sin * cos;
+        let tau_xy = (sr - st) * sin * cos + trt * (cos * cos - sin * sin);
+        (sigma_x, sigma_y, tau_xy)
     }
 
     pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
@@ -163,5 +167,37 @@ impl PlateWithHole {
         let (sx, sy, txy) = self.stresses_at(point.x_m, point.s_m, loads);
         let thermal = self.material.cte_per_c * loads[LoadComponent::TemperatureChange];
         Some(SurfaceState::from_stress(sx, sy, txy, &self.material).with_free_thermal(thermal))
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use approx::assert_relative_eq;
+    use std::f64::consts::{FRAC_PI_2, FRAC_PI_4};
+
+    #[test]
+    fn combined_field_equals_superposed_uniaxial_solutions() {
+        let m = Material::new("m", 200e9, 0.3, 12e-6, 300e6).unwrap();
+        let plate = PlateWithHole::new(0.02, 0.3, 0.3, 0.005, m).unwrap();
+        let loads = LoadVector::from_pairs(&[
+            (LoadComponent::RemoteStressX, 70e6),
+            (LoadComponent::RemoteStressY, -30e6),
+            (LoadComponent::RemoteShearXY, 20e6),
+        ]);
+        for (x, y) in [(0.011, 0.0), (0.0, 0.012), (-0.013, 0.02), (0.03, -0.015)] {
+            let (r, t) = (f64::hypot(x, y), f64::atan2(y, x));
+            let mut polar = (0.0, 0.0, 0.0);
+            for (s, dir) in [(70e6, 0.0), (-30e6, FRAC_PI_2), (20e6, FRAC_PI_4), (-20e6, 3.0 * FRAC_PI_4)] {
+                let (a, b, c) = kirsch_uniaxial(s, dir, 0.01, r, t);
+                polar = (polar.0 + a, polar.1 + b, polar.2 + c);
+            }
+            let (sr, st, trt) = polar;
+            let (sin, cos) = t.sin_cos();
+            let (sx, sy, txy) = plate.stresses_at(x, y, &loads);
+            assert_relative_eq!(sx, sr * cos * cos + st * sin * sin - 2.0 * trt * sin * cos, epsilon = 1.0);
+            assert_relative_eq!(sy, sr * sin * sin + st * cos * cos + 2.0 * trt * sin * cos, epsilon = 1.0);
+            assert_relative_eq!(txy, (sr - st) * sin * cos + trt * (cos * cos - sin * sin), epsilon = 1.0);
+        }
     }
 }

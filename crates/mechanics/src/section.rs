@@ -40,6 +40,27 @@ pub enum Section {
 /// An axis-aligned rectangle of a section, `[y0, y1, z0, z1]`, metres.
 type Part = [f64; 4];
 
+/// Up to four rectangles, without allocating (sections are evaluated per map pixel).
+struct Parts {
+    items: [Part; 4],
+    len: usize,
+}
+
+impl Parts {
+    fn new(list: &[Part]) -> Self {
+        let mut items = [[0.0; 4]; 4];
+        items[..list.len()].copy_from_slice(list);
+        Self {
+            items,
+            len: list.len(),
+        }
+    }
+
+    fn iter(&self) -> std::slice::Iter<'_, Part> {
+        self.items[..self.len].iter()
+    }
+}
+
 impl Section {
     /// Checks every dimension: positive, finite, and inner parts smaller than outer ones.
     pub fn validate(&self) -> Result<()> {
@@ -161,32 +182,32 @@ impl Section {
     }
 
     /// The rectangles that make up a polygonal section (empty for round sections).
-    fn parts(&self) -> Vec<Part> {
+    fn parts(&self) -> Parts {
         match *self {
             Section::Rectangle { width_m, height_m } => {
-                vec![[-width_m / 2.0, width_m / 2.0, -height_m / 2.0, height_m / 2.0]]
+                Parts::new(&[[-width_m / 2.0, width_m / 2.0, -height_m / 2.0, height_m / 2.0]])
             }
             Section::RectangularTube {
                 width_m: b,
                 height_m: h,
                 wall_m: t,
-            } => vec![
+            } => Parts::new(&[
                 [-b / 2.0, b / 2.0, h / 2.0 - t, h / 2.0],
                 [-b / 2.0, b / 2.0, -h / 2.0, -h / 2.0 + t],
                 [-b / 2.0, -b / 2.0 + t, -h / 2.0 + t, h / 2.0 - t],
                 [b / 2.0 - t, b / 2.0, -h / 2.0 + t, h / 2.0 - t],
-            ],
+            ]),
             Section::IBeam {
                 flange_width_m: bf,
                 depth_m: d,
                 flange_thickness_m: tf,
                 web_thickness_m: tw,
-            } => vec![
+            } => Parts::new(&[
                 [-bf / 2.0, bf / 2.0, d / 2.0 - tf, d / 2.0],
                 [-bf / 2.0, bf / 2.0, -d / 2.0, -d / 2.0 + tf],
                 [-tw / 2.0, tw / 2.0, -d / 2.0 + tf, d / 2.0 - tf],
-            ],
-            Section::SolidRound { .. } | Section::RoundTube { .. } => Vec::new(),
+            ]),
+            Section::SolidRound { .. } | Section::RoundTube { .. } => Parts::new(&[]),
         }
     }
 

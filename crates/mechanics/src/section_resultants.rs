@@ -107,73 +107,93 @@ pub(crate) fn section_faces(section: &Section) -> &'static [Face] {
     }
 }
 
-/// Surface state at `(face, s)` of a section carrying `resultants`, plus a temperature change.
-/// Returns `None` if the face does not belong to the section.
+/// Surface strain at one surface point per unit of each resultant, in the order
+/// axial, shear y, shear z, torque, moment y, moment z. The state under any resultants is their
+/// weighted sum, which lets the colour map compute these once per row.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct UnitStrains([SurfaceStrain; 6]);
+
+impl UnitStrains {
+    /// The surface state under `resultants` plus a free thermal strain.
+    pub(crate) fn state(&self, r: &Resultants, thermal_strain: f64) -> SurfaceState {
+        let k = [
+            r.axial_n,
+            r.shear_y_n,
+            r.shear_z_n,
+            r.torque_n_m,
+            r.moment_y_n_m,
+            r.moment_z_n_m,
+        ];
+        let mut strain = SurfaceStrain::default();
+        for (unit, k) in self.0.iter().zip(k) {
+            strain.normal_x += unit.normal_x * k;
+            strain.normal_y += unit.normal_y * k;
+            strain.shear_xy += unit.shear_xy * k;
+        }
+        SurfaceState::from_strain(strain).with_free_thermal(thermal_strain)
+    }
+}
+
+/// Strains per unit resultant at `(face, s)`, or `None` if the face is not on the section.
 ///
-/// σx = N/A + My z/Iy − Mz y/Iz; τ from shear by τ = V Q / (I b) along the surface direction;
-/// torque on round sections τ = T r / J. Transverse strain −ν σx / E.
-pub(crate) fn surface_state(
+/// σx = N/A + My z/Iy − Mz y/Iz (Navier); transverse strain −ν σx / E; shear along the
+/// surface from τ = V Q / (I b) (Jourawski) and, on round sections, τ = T r / J.
+pub(crate) fn unit_strains(
     section: &Section,
     material: &Material,
-    resultants: &Resultants,
-    temperature_change_c: f64,
     face: Face,
     s_m: f64,
-) -> Option<SurfaceState> {
+) -> Option<UnitStrains> {
     let p = section_point(section, face, s_m)?;
     let e = material.youngs_modulus_pa;
     let nu = material.poisson_ratio;
     let g = material.shear_modulus_pa();
     let iy = section.second_moment_y_m4();
     let iz = section.second_moment_z_m4();
-    let sigma = resultants.axial_n / section.area_m2() + resultants.moment_y_n_m * p.z / iy
-        - resultants.moment_z_n_m * p.y / iz;
+    let normal = |sigma: f64| SurfaceStrain::new(sigma / e, -nu * sigma / e, 0.0);
+    let shear = |tau: f64| SurfaceStrain::new(0.0, 0.0, tau / g);
 
-    // Jourawski mean shear stresses at this level, along +z (from Vz) and along +y (from Vy).
-    let tau_z = if resultants.shear_z_n != 0.0 {
-        let width = section.width_at_m(p.z);
-        if width > 0.0 {
-            resultants.shear_z_n * section.first_moment_above_m3(p.z) / (iy * width)
-        } else {
-            0.0
-        }
+    // Jourawski mean shear stress per newton at this level: along +z from Vz, along +y from Vy.
+    let width = section.width_at_m(p.z);
+    let tau_z = if width > 0.0 {
+        section.first_moment_above_m3(p.z) / (iy * width)
     } else {
         0.0
     };
-    let tau_y = if resultants.shear_y_n != 0.0 {
-        let thickness = section.thickness_at_m(p.y);
-        if thickness > 0.0 {
-            resultants.shear_y_n * section.first_moment_beyond_m3(p.y) / (iz * thickness)
-        } else {
-            0.0
-        }
+    let thickness = section.thickness_at_m(p.y);
+    let tau_y = if thickness > 0.0 {
+        section.first_moment_beyond_m3(p.y) / (iz * thickness)
     } else {
         0.0
     };
     let (dy, dz) = p.dir;
-    let mut tau_s = 0.0;
-    if section.is_round() {
+    let (shear_y, shear_z, torque) = if let Some((r, _)) = section.radii_m() {
         // On a free round boundary the shear stress is tangent to it; its vertical (horizontal)
         // component is the Jourawski mean, so the tangential value is that over the tangent's
         // component. Near the top (sides) the component and Q vanish together.
-        if dz.abs() > 1e-9 {
-            tau_s += tau_z / dz;
-        }
-        if dy.abs() > 1e-9 {
-            tau_s += tau_y / dy;
-        }
-        if let Some((r, _)) = section.radii_m() {
-            // Torque on +x face acts along x̂ × r̂, opposite to the local y direction.
-            tau_s -= resultants.torque_n_m * r / section.torsion_constant_m4();
-        }
+        let along = |tau: f64, component: f64| {
+            if component.abs() > 1e-9 {
+                tau / component
+            } else {
+                0.0
+            }
+        };
+        // Torque on the +x face acts along x̂ × r̂, opposite to the local y direction.
+        (
+            along(tau_y, dy),
+            along(tau_z, dz),
+            -r / section.torsion_constant_m4(),
+        )
     } else {
-        // Flat faces: vertical shear shows on side faces, horizontal shear on top/bottom.
-        tau_s += tau_z * dz + tau_y * dy;
-    }
-    let thermal = material.cte_per_c * temperature_change_c;
-    Some(SurfaceState {
-        strain: SurfaceStrain::new(sigma / e + thermal, -nu * sigma / e + thermal, tau_s / g),
-        thermal_strain: thermal,
-        normal_stress_pa: 0.0,
-    })
+        // Flat faces: vertical shear shows on side faces, horizontal shear on top and bottom.
+        (tau_y * dy, tau_z * dz, 0.0)
+    };
+    Some(UnitStrains([
+        normal(1.0 / section.area_m2()),
+        shear(shear_y),
+        shear(shear_z),
+        shear(torque),
+        normal(p.z / iy),
+        normal(-p.y / iz),
+    ]))
 }

@@ -6,7 +6,7 @@ use crate::error::{MechanicsError, Result, positive_dimension};
 use crate::load::{LoadComponent, LoadVector};
 use crate::material::Material;
 use crate::section::{Section, checked};
-use crate::section_resultants::{Resultants, surface_state};
+use crate::section_resultants::{Resultants, unit_strains};
 use crate::surface::{Face, FaceExtent, SurfacePoint};
 use crate::surface_state::SurfaceState;
 
@@ -95,20 +95,23 @@ impl Shaft {
     }
 
     pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
-        let r = Resultants {
+        let unit = unit_strains(&self.section(), &self.material, point.face, point.s_m)?;
+        Some(unit.state(&self.resultants(loads), self.thermal_strain(loads)))
+    }
+
+    /// Resultants (constant along the shaft).
+    pub(crate) fn resultants(&self, loads: &LoadVector) -> Resultants {
+        Resultants {
             axial_n: loads[LoadComponent::AxialForce],
             torque_n_m: loads[LoadComponent::Torque],
             moment_y_n_m: loads[LoadComponent::BendingMomentY],
             moment_z_n_m: loads[LoadComponent::BendingMomentZ],
             ..Resultants::default()
-        };
-        surface_state(
-            &self.section(),
-            &self.material,
-            &r,
-            loads[LoadComponent::TemperatureChange],
-            point.face,
-            point.s_m,
-        )
+        }
+    }
+
+    /// Free thermal strain α·ΔT under `loads`.
+    pub(crate) fn thermal_strain(&self, loads: &LoadVector) -> f64 {
+        self.material.cte_per_c * loads[LoadComponent::TemperatureChange]
     }
 }
