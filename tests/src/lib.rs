@@ -1,1 +1,2 @@
-//! Cross-crate verification suite; the checks live in `tests/tests/`.
+//! Cross-crate verification suite: published references and external cross-checks that span
+//! more than one crate live in `tests/tests/`.

@@ -17,8 +17,10 @@ impl GaugewrightApp {
 impl eframe::App for GaugewrightApp {
     fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
         let Self { screenshot } = self;
-        ui.heading("Gaugewright");
-        ui.label("Strain-gauge installation planning.");
+        egui::CentralPanel::default().show(ui, |ui| {
+            ui.heading("Gaugewright");
+            ui.label("Strain-gauge installation planning.");
+        });
         if let Some(request) = screenshot {
             request.on_frame(ui.ctx());
         }

@@ -5,9 +5,11 @@ use gw_mechanics::*;
 use std::hint::black_box;
 
 fn steel() -> Material {
-    library_material("carbon_steel").map(|m| m.material()).unwrap_or_else(|| {
-        Material::new("steel", 207e9, 0.292, 11.7e-6, 350e6).expect("valid material")
-    })
+    library_material("carbon_steel")
+        .map(|m| m.material())
+        .unwrap_or_else(|| {
+            Material::new("steel", 207e9, 0.292, 11.7e-6, 350e6).expect("valid material")
+        })
 }
 
 fn members() -> Vec<(&'static str, Member, Face, LoadVector)> {

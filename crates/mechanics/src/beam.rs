@@ -142,9 +142,16 @@ impl Beam {
     }
 
     /// Surface state at a located point (see [`crate::Member::state`]).
-    pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
+    pub(crate) fn state_at(
+        &self,
+        point: &SurfacePoint,
+        loads: &LoadVector,
+    ) -> Option<SurfaceState> {
         let unit = unit_strains(&self.section, &self.material, point.face, point.s_m)?;
-        Some(unit.state(&self.resultants(point.x_m, loads), self.thermal_strain(loads)))
+        Some(unit.state(
+            &self.resultants(point.x_m, loads),
+            self.thermal_strain(loads),
+        ))
     }
 
     /// Free thermal strain α·ΔT under `loads`.

@@ -57,11 +57,15 @@ pub enum MechanicsError {
     LoadOutsideSpan { position_m: f64, span_m: f64 },
 
     /// Three rosette angles that do not determine a plane strain state.
-    #[error("rosette angles {angles_deg:?}° do not determine the strain state; two grids share a direction")]
+    #[error(
+        "rosette angles {angles_deg:?}° do not determine the strain state; two grids share a direction"
+    )]
     SingularRosette { angles_deg: [f64; 3] },
 
     /// A transverse sensitivity at or beyond ±1, for which no correction exists.
-    #[error("transverse sensitivity {value} must lie strictly between -1 and 1; typical grids are within ±0.05")]
+    #[error(
+        "transverse sensitivity {value} must lie strictly between -1 and 1; typical grids are within ±0.05"
+    )]
     TransverseSensitivityOutOfRange { value: f64 },
 }
 

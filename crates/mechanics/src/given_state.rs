@@ -89,11 +89,17 @@ impl GivenState {
         }]
     }
 
-    pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
+    pub(crate) fn state_at(
+        &self,
+        point: &SurfacePoint,
+        loads: &LoadVector,
+    ) -> Option<SurfaceState> {
         if point.face != Face::Plate {
             return None;
         }
         let thermal = self.material.cte_per_c * loads[LoadComponent::TemperatureChange];
-        Some((self.unit_state() * loads[LoadComponent::GivenStateFactor]).with_free_thermal(thermal))
+        Some(
+            (self.unit_state() * loads[LoadComponent::GivenStateFactor]).with_free_thermal(thermal),
+        )
     }
 }

@@ -94,13 +94,13 @@ impl LoadComponent {
     /// SI unit of the component's value.
     pub fn unit(self) -> &'static str {
         match self {
-            LoadComponent::AxialForce | LoadComponent::VerticalForce | LoadComponent::LateralForce => {
-                "N"
-            }
+            LoadComponent::AxialForce
+            | LoadComponent::VerticalForce
+            | LoadComponent::LateralForce => "N",
             LoadComponent::UniformLoad => "N/m",
-            LoadComponent::BendingMomentY | LoadComponent::BendingMomentZ | LoadComponent::Torque => {
-                "N·m"
-            }
+            LoadComponent::BendingMomentY
+            | LoadComponent::BendingMomentZ
+            | LoadComponent::Torque => "N·m",
             LoadComponent::InternalPressure
             | LoadComponent::ExternalPressure
             | LoadComponent::RemoteStressX

@@ -168,12 +168,19 @@ impl Member {
             Member::PlateWithHole(m) => m.state_at(p, loads),
             Member::GivenState(m) => m.state_at(p, loads),
         };
-        debug_assert!(state.is_some(), "located point must be on a face of the member");
+        debug_assert!(
+            state.is_some(),
+            "located point must be on a face of the member"
+        );
         state.unwrap_or_default()
     }
 
     /// Surface state per unit of one load component (zero for a component the member ignores).
-    pub fn state_per_unit(&self, point: &SurfacePoint, component: LoadComponent) -> Result<SurfaceState> {
+    pub fn state_per_unit(
+        &self,
+        point: &SurfacePoint,
+        component: LoadComponent,
+    ) -> Result<SurfaceState> {
         self.state(point, &LoadVector::unit(component))
     }
 

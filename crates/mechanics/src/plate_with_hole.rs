@@ -160,7 +160,11 @@ impl PlateWithHole {
         (sigma_x, sigma_y, tau_xy)
     }
 
-    pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
+    pub(crate) fn state_at(
+        &self,
+        point: &SurfacePoint,
+        loads: &LoadVector,
+    ) -> Option<SurfaceState> {
         if point.face != Face::Plate {
             return None;
         }
@@ -188,16 +192,33 @@ mod tests {
         for (x, y) in [(0.011, 0.0), (0.0, 0.012), (-0.013, 0.02), (0.03, -0.015)] {
             let (r, t) = (f64::hypot(x, y), f64::atan2(y, x));
             let mut polar = (0.0, 0.0, 0.0);
-            for (s, dir) in [(70e6, 0.0), (-30e6, FRAC_PI_2), (20e6, FRAC_PI_4), (-20e6, 3.0 * FRAC_PI_4)] {
+            for (s, dir) in [
+                (70e6, 0.0),
+                (-30e6, FRAC_PI_2),
+                (20e6, FRAC_PI_4),
+                (-20e6, 3.0 * FRAC_PI_4),
+            ] {
                 let (a, b, c) = kirsch_uniaxial(s, dir, 0.01, r, t);
                 polar = (polar.0 + a, polar.1 + b, polar.2 + c);
             }
             let (sr, st, trt) = polar;
             let (sin, cos) = t.sin_cos();
             let (sx, sy, txy) = plate.stresses_at(x, y, &loads);
-            assert_relative_eq!(sx, sr * cos * cos + st * sin * sin - 2.0 * trt * sin * cos, epsilon = 1.0);
-            assert_relative_eq!(sy, sr * sin * sin + st * cos * cos + 2.0 * trt * sin * cos, epsilon = 1.0);
-            assert_relative_eq!(txy, (sr - st) * sin * cos + trt * (cos * cos - sin * sin), epsilon = 1.0);
+            assert_relative_eq!(
+                sx,
+                sr * cos * cos + st * sin * sin - 2.0 * trt * sin * cos,
+                epsilon = 1.0
+            );
+            assert_relative_eq!(
+                sy,
+                sr * sin * sin + st * cos * cos + 2.0 * trt * sin * cos,
+                epsilon = 1.0
+            );
+            assert_relative_eq!(
+                txy,
+                (sr - st) * sin * cos + trt * (cos * cos - sin * sin),
+                epsilon = 1.0
+            );
         }
     }
 }

@@ -40,7 +40,11 @@ impl RosetteKind {
 
 /// What each element of a rosette reads (ideal grids) when the rosette's 0° element points at
 /// `orientation_rad` from local x.
-pub fn rosette_readings(kind: RosetteKind, strain: &SurfaceStrain, orientation_rad: f64) -> Vec<f64> {
+pub fn rosette_readings(
+    kind: RosetteKind,
+    strain: &SurfaceStrain,
+    orientation_rad: f64,
+) -> Vec<f64> {
     kind.element_angles_deg()
         .iter()
         .map(|a| strain.along(orientation_rad + a.to_radians()))
@@ -111,10 +115,9 @@ pub fn analyse_rosette(
     material: &Material,
 ) -> Result<RosetteResult> {
     let angles = kind.element_angles_deg();
-    let (Ok(angles3), Ok(readings3)) = (
-        <[f64; 3]>::try_from(angles),
-        <[f64; 3]>::try_from(readings),
-    ) else {
+    let (Ok(angles3), Ok(readings3)) =
+        (<[f64; 3]>::try_from(angles), <[f64; 3]>::try_from(readings))
+    else {
         return Err(MechanicsError::SingularRosette {
             angles_deg: [angles[0], angles.get(1).copied().unwrap_or(0.0), 0.0],
         });

@@ -158,7 +158,9 @@ impl Section {
     /// Overall width along y, metres.
     pub fn width_m(&self) -> f64 {
         match *self {
-            Section::Rectangle { width_m, .. } | Section::RectangularTube { width_m, .. } => width_m,
+            Section::Rectangle { width_m, .. } | Section::RectangularTube { width_m, .. } => {
+                width_m
+            }
             Section::SolidRound { diameter_m } => diameter_m,
             Section::RoundTube {
                 outer_diameter_m, ..
@@ -184,9 +186,12 @@ impl Section {
     /// The rectangles that make up a polygonal section (empty for round sections).
     fn parts(&self) -> Parts {
         match *self {
-            Section::Rectangle { width_m, height_m } => {
-                Parts::new(&[[-width_m / 2.0, width_m / 2.0, -height_m / 2.0, height_m / 2.0]])
-            }
+            Section::Rectangle { width_m, height_m } => Parts::new(&[[
+                -width_m / 2.0,
+                width_m / 2.0,
+                -height_m / 2.0,
+                height_m / 2.0,
+            ]]),
             Section::RectangularTube {
                 width_m: b,
                 height_m: h,
@@ -280,7 +285,8 @@ impl Section {
             Section::Rectangle { width_m, height_m } => {
                 let a = width_m.max(height_m) / 2.0;
                 let b = width_m.min(height_m) / 2.0;
-                a * b.powi(3) * (16.0 / 3.0 - 3.36 * (b / a) * (1.0 - b.powi(4) / (12.0 * a.powi(4))))
+                a * b.powi(3)
+                    * (16.0 / 3.0 - 3.36 * (b / a) * (1.0 - b.powi(4) / (12.0 * a.powi(4))))
             }
             Section::RectangularTube {
                 width_m,

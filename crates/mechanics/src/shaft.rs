@@ -94,7 +94,11 @@ impl Shaft {
         }]
     }
 
-    pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
+    pub(crate) fn state_at(
+        &self,
+        point: &SurfacePoint,
+        loads: &LoadVector,
+    ) -> Option<SurfaceState> {
         let unit = unit_strains(&self.section(), &self.material, point.face, point.s_m)?;
         Some(unit.state(&self.resultants(loads), self.thermal_strain(loads)))
     }

@@ -110,7 +110,11 @@ impl ThickCylinder {
         }]
     }
 
-    pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
+    pub(crate) fn state_at(
+        &self,
+        point: &SurfacePoint,
+        loads: &LoadVector,
+    ) -> Option<SurfaceState> {
         if point.face != Face::Round {
             return None;
         }

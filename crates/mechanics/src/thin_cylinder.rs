@@ -118,7 +118,11 @@ impl ThinCylinder {
         }]
     }
 
-    pub(crate) fn state_at(&self, point: &SurfacePoint, loads: &LoadVector) -> Option<SurfaceState> {
+    pub(crate) fn state_at(
+        &self,
+        point: &SurfacePoint,
+        loads: &LoadVector,
+    ) -> Option<SurfaceState> {
         if point.face != Face::Round {
             return None;
         }

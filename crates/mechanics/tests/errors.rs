@@ -33,22 +33,36 @@ fn nan_dimension_is_rejected() {
     }
     .validate()
     .unwrap_err();
-    assert!(matches!(e, MechanicsError::NotFinite { name: "section width", .. }));
+    assert!(matches!(
+        e,
+        MechanicsError::NotFinite {
+            name: "section width",
+            ..
+        }
+    ));
 }
 
 #[test]
 fn infinite_load_is_rejected_not_propagated() {
     let m = Member::Shaft(Shaft::new(0.04, 0.0, 0.3, steel()).unwrap());
     let l = LoadVector::from_pairs(&[(LoadComponent::Torque, f64::INFINITY)]);
-    let e = m.state(&SurfacePoint::new(Face::Round, 0.1, 0.0), &l).unwrap_err();
-    assert!(e.to_string().starts_with("torque is not a finite number"), "{e}");
+    let e = m
+        .state(&SurfacePoint::new(Face::Round, 0.1, 0.0), &l)
+        .unwrap_err();
+    assert!(
+        e.to_string().starts_with("torque is not a finite number"),
+        "{e}"
+    );
 }
 
 #[test]
 fn point_inside_the_hole_is_off_the_part() {
     let m = Member::PlateWithHole(PlateWithHole::new(0.02, 0.2, 0.2, 0.005, steel()).unwrap());
     let e = m
-        .state(&SurfacePoint::new(Face::Plate, 0.002, 0.001), &LoadVector::ZERO)
+        .state(
+            &SurfacePoint::new(Face::Plate, 0.002, 0.001),
+            &LoadVector::ZERO,
+        )
         .unwrap_err();
     assert!(e.to_string().contains("inside the hole"), "{e}");
 }
@@ -93,8 +107,13 @@ fn grid_overlapping_the_hole_says_how_to_fix_it() {
         length_m: 0.003,
         width_m: 0.002,
     };
-    let e = grid_average_strain(&m, &grid, &LoadVector::ZERO, QuadratureOrder::default()).unwrap_err();
-    assert!(e.to_string().contains("move the gauge or choose a shorter grid"), "{e}");
+    let e =
+        grid_average_strain(&m, &grid, &LoadVector::ZERO, QuadratureOrder::default()).unwrap_err();
+    assert!(
+        e.to_string()
+            .contains("move the gauge or choose a shorter grid"),
+        "{e}"
+    );
 }
 
 #[test]

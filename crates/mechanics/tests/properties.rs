@@ -9,7 +9,8 @@ fn steel() -> Material {
 }
 
 fn strain() -> impl Strategy<Value = SurfaceStrain> {
-    (-2e-3..2e-3f64, -2e-3..2e-3f64, -2e-3..2e-3f64).prop_map(|(a, b, c)| SurfaceStrain::new(a, b, c))
+    (-2e-3..2e-3f64, -2e-3..2e-3f64, -2e-3..2e-3f64)
+        .prop_map(|(a, b, c)| SurfaceStrain::new(a, b, c))
 }
 
 fn beam_member(support: BeamSupport, load_position_m: f64) -> Member {

@@ -48,18 +48,38 @@ fn rectangle_area_and_second_moments() {
     // Gere & Goodno, Mechanics of Materials, 7th ed., Appendix E, case 1: I = b h³ / 12.
     let s = rect(0.03, 0.05);
     assert_relative_eq!(s.area_m2(), 0.03 * 0.05, max_relative = 1e-12);
-    assert_relative_eq!(s.second_moment_y_m4(), 0.03 * 0.05f64.powi(3) / 12.0, max_relative = 1e-12);
-    assert_relative_eq!(s.second_moment_z_m4(), 0.05 * 0.03f64.powi(3) / 12.0, max_relative = 1e-12);
+    assert_relative_eq!(
+        s.second_moment_y_m4(),
+        0.03 * 0.05f64.powi(3) / 12.0,
+        max_relative = 1e-12
+    );
+    assert_relative_eq!(
+        s.second_moment_z_m4(),
+        0.05 * 0.03f64.powi(3) / 12.0,
+        max_relative = 1e-12
+    );
     // Section modulus b h² / 6 (Gere & Goodno §5.5, eq. 5-17).
-    assert_relative_eq!(s.section_modulus_y_m3(), 0.03 * 0.05f64.powi(2) / 6.0, max_relative = 1e-12);
+    assert_relative_eq!(
+        s.section_modulus_y_m3(),
+        0.03 * 0.05f64.powi(2) / 6.0,
+        max_relative = 1e-12
+    );
 }
 
 #[test]
 fn circle_and_tube_second_and_polar_moments() {
     // Gere & Goodno 7th ed., Appendix E, case 9: I = π d⁴ / 64; §3.3, eq. (3-10): Ip = π d⁴ / 32.
     let solid = Section::SolidRound { diameter_m: 0.04 };
-    assert_relative_eq!(solid.second_moment_y_m4(), PI * 0.04f64.powi(4) / 64.0, max_relative = 1e-12);
-    assert_relative_eq!(solid.torsion_constant_m4(), PI * 0.04f64.powi(4) / 32.0, max_relative = 1e-12);
+    assert_relative_eq!(
+        solid.second_moment_y_m4(),
+        PI * 0.04f64.powi(4) / 64.0,
+        max_relative = 1e-12
+    );
+    assert_relative_eq!(
+        solid.torsion_constant_m4(),
+        PI * 0.04f64.powi(4) / 32.0,
+        max_relative = 1e-12
+    );
     // Gere & Goodno §3.4, eq. (3-17): tube Ip = π (d2⁴ − d1⁴) / 32.
     let tube = Section::RoundTube {
         outer_diameter_m: 0.06,
@@ -119,7 +139,11 @@ fn thin_square_tube_torsion_constant_by_bredt() {
         wall_m: 0.002,
     };
     let am = 0.098 * 0.098;
-    assert_relative_eq!(s.torsion_constant_m4(), 4.0 * am * am * 0.002 / (4.0 * 0.098), max_relative = 1e-12);
+    assert_relative_eq!(
+        s.torsion_constant_m4(),
+        4.0 * am * am * 0.002 / (4.0 * 0.098),
+        max_relative = 1e-12
+    );
 }
 
 // ---------------------------------------------------------------- transverse shear
@@ -129,19 +153,44 @@ fn rectangle_neutral_axis_shear_is_three_halves_v_over_a() {
     // Gere & Goodno 7th ed., §5.8, eq. (5-40): τmax = 3V / (2A). Cantilever: |V| = P everywhere.
     let (b, h, p) = (0.02, 0.06, 5000.0);
     let m = beam(rect(b, h), 0.5, BeamSupport::Cantilever, 0.5);
-    let st = state(&m, Face::Front, 0.25, 0.0, &loads(&[(LoadComponent::VerticalForce, p)]));
-    assert_relative_eq!(st.strain.shear_xy.abs(), 1.5 * p / (b * h) / g(), max_relative = 1e-12);
+    let st = state(
+        &m,
+        Face::Front,
+        0.25,
+        0.0,
+        &loads(&[(LoadComponent::VerticalForce, p)]),
+    );
+    assert_relative_eq!(
+        st.strain.shear_xy.abs(),
+        1.5 * p / (b * h) / g(),
+        max_relative = 1e-12
+    );
 }
 
 #[test]
 fn solid_round_neutral_axis_shear_is_four_thirds_v_over_a() {
     // Gere & Goodno 7th ed., §5.9, eq. (5-43): τmax = 4V / (3A) at the neutral axis.
     let (d, p) = (0.03, 2000.0);
-    let m = beam(Section::SolidRound { diameter_m: d }, 0.4, BeamSupport::Cantilever, 0.4);
+    let m = beam(
+        Section::SolidRound { diameter_m: d },
+        0.4,
+        BeamSupport::Cantilever,
+        0.4,
+    );
     let r = d / 2.0;
-    let st = state(&m, Face::Round, 0.2, FRAC_PI_2 * r, &loads(&[(LoadComponent::VerticalForce, p)]));
+    let st = state(
+        &m,
+        Face::Round,
+        0.2,
+        FRAC_PI_2 * r,
+        &loads(&[(LoadComponent::VerticalForce, p)]),
+    );
     let area = PI * r * r;
-    assert_relative_eq!(st.strain.shear_xy.abs(), 4.0 * p / (3.0 * area) / g(), max_relative = 1e-9);
+    assert_relative_eq!(
+        st.strain.shear_xy.abs(),
+        4.0 * p / (3.0 * area) / g(),
+        max_relative = 1e-9
+    );
 }
 
 #[test]
@@ -153,7 +202,13 @@ fn thick_tube_neutral_axis_shear() {
         inner_diameter_m: 2.0 * r1,
     };
     let m = beam(s, 0.4, BeamSupport::Cantilever, 0.4);
-    let st = state(&m, Face::Round, 0.1, FRAC_PI_2 * r2, &loads(&[(LoadComponent::VerticalForce, p)]));
+    let st = state(
+        &m,
+        Face::Round,
+        0.1,
+        FRAC_PI_2 * r2,
+        &loads(&[(LoadComponent::VerticalForce, p)]),
+    );
     let area = PI * (r2 * r2 - r1 * r1);
     let tau = 4.0 * p / (3.0 * area) * (r2 * r2 + r2 * r1 + r1 * r1) / (r2 * r2 + r1 * r1);
     assert_relative_eq!(st.strain.shear_xy.abs(), tau / g(), max_relative = 1e-9);
@@ -171,7 +226,13 @@ fn i_section_web_shear_at_neutral_axis() {
         web_thickness_m: t,
     };
     let m = beam(s, 1.0, BeamSupport::Cantilever, 1.0);
-    let st = state(&m, Face::Front, 0.5, 0.0, &loads(&[(LoadComponent::VerticalForce, v)]));
+    let st = state(
+        &m,
+        Face::Front,
+        0.5,
+        0.0,
+        &loads(&[(LoadComponent::VerticalForce, v)]),
+    );
     let h1 = h - 2.0 * tf;
     let tau = v / (8.0 * s.second_moment_y_m4() * t) * (b * (h * h - h1 * h1) + t * h1 * h1);
     assert_relative_eq!(st.strain.shear_xy.abs(), tau / g(), max_relative = 1e-9);
@@ -183,10 +244,24 @@ fn shear_web_pair_reads_plus_and_minus_half_gamma() {
     // with Gere & Goodno eq. (5-40) for γ. A ±45° pair on the neutral axis of a side face.
     let (b, h, p) = (0.02, 0.06, 5000.0);
     let m = beam(rect(b, h), 0.5, BeamSupport::Cantilever, 0.5);
-    let st = state(&m, Face::Front, 0.25, 0.0, &loads(&[(LoadComponent::VerticalForce, p)]));
+    let st = state(
+        &m,
+        Face::Front,
+        0.25,
+        0.0,
+        &loads(&[(LoadComponent::VerticalForce, p)]),
+    );
     let gamma = 1.5 * p / (b * h) / g();
-    assert_relative_eq!(st.strain.along(FRAC_PI_4).abs(), gamma / 2.0, max_relative = 1e-9);
-    assert_relative_eq!(st.strain.along(FRAC_PI_4), -st.strain.along(-FRAC_PI_4), max_relative = 1e-9);
+    assert_relative_eq!(
+        st.strain.along(FRAC_PI_4).abs(),
+        gamma / 2.0,
+        max_relative = 1e-9
+    );
+    assert_relative_eq!(
+        st.strain.along(FRAC_PI_4),
+        -st.strain.along(-FRAC_PI_4),
+        max_relative = 1e-9
+    );
 }
 
 // ---------------------------------------------------------------- beams
@@ -197,7 +272,13 @@ fn cantilever_end_load_root_bending_strain() {
     // σ = M c / I (Gere & Goodno §5.5, eq. 5-13); ε = σ/E at the top face (tension).
     let (b, h, l, p) = (0.025, 0.05, 0.8, 1500.0);
     let m = beam(rect(b, h), l, BeamSupport::Cantilever, l);
-    let st = state(&m, Face::Top, 0.0, 0.0, &loads(&[(LoadComponent::VerticalForce, p)]));
+    let st = state(
+        &m,
+        Face::Top,
+        0.0,
+        0.0,
+        &loads(&[(LoadComponent::VerticalForce, p)]),
+    );
     let sigma = 6.0 * p * l / (b * h * h);
     assert_relative_eq!(st.strain.normal_x, sigma / E, max_relative = 1e-12);
     // Transverse strain −ν εx (Gere & Goodno §1.7).
@@ -210,7 +291,13 @@ fn cantilever_strain_falls_linearly_to_the_free_end() {
     let (b, h, l, p) = (0.025, 0.05, 0.8, 1500.0);
     let m = beam(rect(b, h), l, BeamSupport::Cantilever, l);
     let x = 0.3;
-    let st = state(&m, Face::Bottom, x, 0.0, &loads(&[(LoadComponent::VerticalForce, p)]));
+    let st = state(
+        &m,
+        Face::Bottom,
+        x,
+        0.0,
+        &loads(&[(LoadComponent::VerticalForce, p)]),
+    );
     let sigma = p * (l - x) * (h / 2.0) / (b * h.powi(3) / 12.0);
     assert_relative_eq!(st.strain.normal_x, -sigma / E, max_relative = 1e-12);
 }
@@ -220,7 +307,13 @@ fn cantilever_uniform_load_root_moment() {
     // Roark 7th ed., Table 8.1 case 2a: root moment w l² / 2.
     let (b, h, l, w) = (0.02, 0.04, 0.6, 800.0);
     let m = beam(rect(b, h), l, BeamSupport::Cantilever, l);
-    let st = state(&m, Face::Top, 0.0, 0.0, &loads(&[(LoadComponent::UniformLoad, w)]));
+    let st = state(
+        &m,
+        Face::Top,
+        0.0,
+        0.0,
+        &loads(&[(LoadComponent::UniformLoad, w)]),
+    );
     let sigma = (w * l * l / 2.0) / (b * h * h / 6.0);
     assert_relative_eq!(st.strain.normal_x, sigma / E, max_relative = 1e-12);
 }
@@ -230,7 +323,13 @@ fn simply_supported_midspan_point_load() {
     // Roark 7th ed., Table 8.1 case 1e: Mmax = W l / 4 under a central load; bottom in tension.
     let (b, h, l, p) = (0.03, 0.06, 1.2, 4000.0);
     let m = beam(rect(b, h), l, BeamSupport::SimplySupported, l / 2.0);
-    let st = state(&m, Face::Bottom, l / 2.0, 0.0, &loads(&[(LoadComponent::VerticalForce, p)]));
+    let st = state(
+        &m,
+        Face::Bottom,
+        l / 2.0,
+        0.0,
+        &loads(&[(LoadComponent::VerticalForce, p)]),
+    );
     let sigma = (p * l / 4.0) / (b * h * h / 6.0);
     assert_relative_eq!(st.strain.normal_x, sigma / E, max_relative = 1e-12);
 }
@@ -240,12 +339,27 @@ fn simply_supported_off_centre_point_load() {
     // Gere & Goodno 7th ed., Appendix H, table H-2 case 5: M under the load = P a b / L.
     let (b, h, l, a, p) = (0.03, 0.06, 1.2, 0.4, 4000.0);
     let m = beam(rect(b, h), l, BeamSupport::SimplySupported, a);
-    let st = state(&m, Face::Bottom, a, 0.0, &loads(&[(LoadComponent::VerticalForce, p)]));
+    let st = state(
+        &m,
+        Face::Bottom,
+        a,
+        0.0,
+        &loads(&[(LoadComponent::VerticalForce, p)]),
+    );
     let sigma = (p * a * (l - a) / l) / (b * h * h / 6.0);
     assert_relative_eq!(st.strain.normal_x, sigma / E, max_relative = 1e-12);
     // Reaction at the left support R = P b / L is the shear left of the load (statics).
-    let r = m.state(&SurfacePoint::new(Face::Front, 0.1, 0.0), &loads(&[(LoadComponent::VerticalForce, p)])).unwrap();
-    assert_relative_eq!(r.strain.shear_xy.abs(), 1.5 * (p * (l - a) / l) / (b * h) / g(), max_relative = 1e-12);
+    let r = m
+        .state(
+            &SurfacePoint::new(Face::Front, 0.1, 0.0),
+            &loads(&[(LoadComponent::VerticalForce, p)]),
+        )
+        .unwrap();
+    assert_relative_eq!(
+        r.strain.shear_xy.abs(),
+        1.5 * (p * (l - a) / l) / (b * h) / g(),
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -253,7 +367,13 @@ fn simply_supported_uniform_load_midspan_moment() {
     // Roark 7th ed., Table 8.1 case 2e: Mmax = w l² / 8.
     let (b, h, l, w) = (0.03, 0.06, 1.5, 2000.0);
     let m = beam(rect(b, h), l, BeamSupport::SimplySupported, 0.0);
-    let st = state(&m, Face::Bottom, l / 2.0, 0.0, &loads(&[(LoadComponent::UniformLoad, w)]));
+    let st = state(
+        &m,
+        Face::Bottom,
+        l / 2.0,
+        0.0,
+        &loads(&[(LoadComponent::UniformLoad, w)]),
+    );
     let sigma = (w * l * l / 8.0) / (b * h * h / 6.0);
     assert_relative_eq!(st.strain.normal_x, sigma / E, max_relative = 1e-12);
 }
@@ -263,9 +383,19 @@ fn axial_force_strain_and_poisson_strain() {
     // Gere & Goodno 7th ed., §1.5 (σ = P/A), §1.7 (ε' = −ν ε).
     let (b, h, n) = (0.02, 0.04, 50e3);
     let m = beam(rect(b, h), 0.3, BeamSupport::Cantilever, 0.3);
-    let st = state(&m, Face::Front, 0.15, 0.01, &loads(&[(LoadComponent::AxialForce, n)]));
+    let st = state(
+        &m,
+        Face::Front,
+        0.15,
+        0.01,
+        &loads(&[(LoadComponent::AxialForce, n)]),
+    );
     assert_relative_eq!(st.strain.normal_x, n / (b * h * E), max_relative = 1e-12);
-    assert_relative_eq!(st.strain.normal_y, -NU * n / (b * h * E), max_relative = 1e-12);
+    assert_relative_eq!(
+        st.strain.normal_y,
+        -NU * n / (b * h * E),
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -274,7 +404,13 @@ fn lateral_force_bends_in_the_horizontal_plane() {
     // σ = M (b/2) / Iz; a +y push stretches the −y (front) side at the root.
     let (b, h, l, p) = (0.02, 0.05, 0.5, 300.0);
     let m = beam(rect(b, h), l, BeamSupport::Cantilever, l);
-    let st = state(&m, Face::Front, 0.0, 0.0, &loads(&[(LoadComponent::LateralForce, p)]));
+    let st = state(
+        &m,
+        Face::Front,
+        0.0,
+        0.0,
+        &loads(&[(LoadComponent::LateralForce, p)]),
+    );
     let sigma = p * l * (b / 2.0) / (h * b.powi(3) / 12.0);
     assert_relative_eq!(st.strain.normal_x, sigma / E, max_relative = 1e-12);
 }
@@ -289,7 +425,10 @@ fn combined_axial_and_bending_superpose() {
         Face::Top,
         0.2,
         0.0,
-        &loads(&[(LoadComponent::VerticalForce, p), (LoadComponent::AxialForce, n)]),
+        &loads(&[
+            (LoadComponent::VerticalForce, p),
+            (LoadComponent::AxialForce, n),
+        ]),
     );
     let sigma = n / (b * h) + p * (l - 0.2) / (b * h * h / 6.0);
     assert_relative_eq!(st.strain.normal_x, sigma / E, max_relative = 1e-12);
@@ -303,10 +442,20 @@ fn solid_shaft_torsion_shear_and_45_degree_reading() {
     // shear, §1.6); a ±45° grid reads ±γ/2 (strain transformation, §7.7).
     let (d, t) = (0.04, 500.0);
     let m = Member::Shaft(Shaft::new(d, 0.0, 0.3, steel()).unwrap());
-    let st = state(&m, Face::Round, 0.1, 0.0, &loads(&[(LoadComponent::Torque, t)]));
+    let st = state(
+        &m,
+        Face::Round,
+        0.1,
+        0.0,
+        &loads(&[(LoadComponent::Torque, t)]),
+    );
     let gamma = 16.0 * t / (PI * d.powi(3)) / g();
     assert_relative_eq!(st.strain.shear_xy.abs(), gamma, max_relative = 1e-12);
-    assert_relative_eq!(st.strain.along(FRAC_PI_4).abs(), gamma / 2.0, max_relative = 1e-12);
+    assert_relative_eq!(
+        st.strain.along(FRAC_PI_4).abs(),
+        gamma / 2.0,
+        max_relative = 1e-12
+    );
     assert_relative_eq!(st.strain.normal_x, 0.0);
 }
 
@@ -315,9 +464,19 @@ fn hollow_shaft_torsion() {
     // Gere & Goodno 7th ed., §3.4, eq. (3-16): τ = T r / Ip with Ip of the tube.
     let (d2, d1, t) = (0.05, 0.038, 800.0);
     let m = Member::Shaft(Shaft::new(d2, d1, 0.3, steel()).unwrap());
-    let st = state(&m, Face::Round, 0.1, 0.02, &loads(&[(LoadComponent::Torque, t)]));
+    let st = state(
+        &m,
+        Face::Round,
+        0.1,
+        0.02,
+        &loads(&[(LoadComponent::Torque, t)]),
+    );
     let ip = PI * (d2.powi(4) - d1.powi(4)) / 32.0;
-    assert_relative_eq!(st.strain.shear_xy.abs(), t * d2 / 2.0 / ip / g(), max_relative = 1e-12);
+    assert_relative_eq!(
+        st.strain.shear_xy.abs(),
+        t * d2 / 2.0 / ip / g(),
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -325,10 +484,26 @@ fn shaft_bending_stress_at_top_line() {
     // Gere & Goodno 7th ed., §5.5, eq. (5-18b): σ = 32 M / (π d³) for a solid circle.
     let (d, mom) = (0.04, 300.0);
     let m = Member::Shaft(Shaft::new(d, 0.0, 0.3, steel()).unwrap());
-    let st = state(&m, Face::Round, 0.1, 0.0, &loads(&[(LoadComponent::BendingMomentY, mom)]));
-    assert_relative_eq!(st.strain.normal_x, 32.0 * mom / (PI * d.powi(3)) / E, max_relative = 1e-12);
+    let st = state(
+        &m,
+        Face::Round,
+        0.1,
+        0.0,
+        &loads(&[(LoadComponent::BendingMomentY, mom)]),
+    );
+    assert_relative_eq!(
+        st.strain.normal_x,
+        32.0 * mom / (PI * d.powi(3)) / E,
+        max_relative = 1e-12
+    );
     // A quarter turn round, on the neutral axis, bending gives nothing.
-    let side = state(&m, Face::Round, 0.1, FRAC_PI_2 * d / 2.0, &loads(&[(LoadComponent::BendingMomentY, mom)]));
+    let side = state(
+        &m,
+        Face::Round,
+        0.1,
+        FRAC_PI_2 * d / 2.0,
+        &loads(&[(LoadComponent::BendingMomentY, mom)]),
+    );
     assert!(side.strain.normal_x.abs() < 1e-18);
 }
 
@@ -342,12 +517,19 @@ fn shaft_bending_and_torsion_principal_stress() {
         Face::Round,
         0.1,
         0.0,
-        &loads(&[(LoadComponent::BendingMomentY, mom), (LoadComponent::Torque, t)]),
+        &loads(&[
+            (LoadComponent::BendingMomentY, mom),
+            (LoadComponent::Torque, t),
+        ]),
     );
     let sx = 32.0 * mom / (PI * d.powi(3));
     let tau = 16.0 * t / (PI * d.powi(3));
     let s1 = sx / 2.0 + ((sx / 2.0).powi(2) + tau * tau).sqrt();
-    assert_relative_eq!(st.stress(&steel()).principal().max, s1, max_relative = 1e-10);
+    assert_relative_eq!(
+        st.stress(&steel()).principal().max,
+        s1,
+        max_relative = 1e-10
+    );
 }
 
 // ---------------------------------------------------------------- pressure vessels
@@ -363,7 +545,13 @@ fn thin_cylinder_hoop_and_axial_strain_closed_ends() {
     let p = 2e6;
     let r = (0.4 - 0.008) / 2.0;
     let (s1, s2) = (p * r / 0.008, p * r / 0.016);
-    let st = state(&thin_cyl(VesselEnds::Closed), Face::Round, 0.5, 0.0, &loads(&[(LoadComponent::InternalPressure, p)]));
+    let st = state(
+        &thin_cyl(VesselEnds::Closed),
+        Face::Round,
+        0.5,
+        0.0,
+        &loads(&[(LoadComponent::InternalPressure, p)]),
+    );
     assert_relative_eq!(st.strain.normal_y, (s1 - NU * s2) / E, max_relative = 1e-12);
     assert_relative_eq!(st.strain.normal_x, (s2 - NU * s1) / E, max_relative = 1e-12);
 }
@@ -373,8 +561,18 @@ fn thin_cylinder_open_ends_has_only_poisson_axial_strain() {
     // Gere & Goodno 7th ed., §8.3 with σ2 = 0 for open ends; εaxial = −ν σ1 / E.
     let p = 2e6;
     let r = (0.4 - 0.008) / 2.0;
-    let st = state(&thin_cyl(VesselEnds::Open), Face::Round, 0.5, 0.3, &loads(&[(LoadComponent::InternalPressure, p)]));
-    assert_relative_eq!(st.strain.normal_x, -NU * p * r / 0.008 / E, max_relative = 1e-12);
+    let st = state(
+        &thin_cyl(VesselEnds::Open),
+        Face::Round,
+        0.5,
+        0.3,
+        &loads(&[(LoadComponent::InternalPressure, p)]),
+    );
+    assert_relative_eq!(
+        st.strain.normal_x,
+        -NU * p * r / 0.008 / E,
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -382,10 +580,24 @@ fn thin_sphere_membrane_strain() {
     // Gere & Goodno 7th ed., §8.2, eqs. (8-1), (8-4): σ = p r / (2t), ε = σ (1 − ν) / E.
     let p = 1.5e6;
     let m = Member::ThinSphere(ThinSphere::new(1.0, 0.01, steel()).unwrap());
-    let st = state(&m, Face::Round, 0.1, 0.2, &loads(&[(LoadComponent::InternalPressure, p)]));
+    let st = state(
+        &m,
+        Face::Round,
+        0.1,
+        0.2,
+        &loads(&[(LoadComponent::InternalPressure, p)]),
+    );
     let sigma = p * 0.495 / 0.02;
-    assert_relative_eq!(st.strain.normal_x, sigma * (1.0 - NU) / E, max_relative = 1e-12);
-    assert_relative_eq!(st.strain.normal_y, sigma * (1.0 - NU) / E, max_relative = 1e-12);
+    assert_relative_eq!(
+        st.strain.normal_x,
+        sigma * (1.0 - NU) / E,
+        max_relative = 1e-12
+    );
+    assert_relative_eq!(
+        st.strain.normal_y,
+        sigma * (1.0 - NU) / E,
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -393,7 +605,10 @@ fn thin_wall_model_refuses_a_thick_wall_and_names_the_other_model() {
     // Limit r/t ≥ 10: common practice (see THIN_WALL_MIN_RATIO).
     let e = ThinCylinder::new(0.1, 0.01, 0.3, VesselEnds::Closed, steel()).unwrap_err();
     assert!(matches!(e, MechanicsError::ThinWallOutsideValidity { .. }));
-    assert!(e.to_string().contains("thick-walled cylinder model (Lamé)"), "{e}");
+    assert!(
+        e.to_string().contains("thick-walled cylinder model (Lamé)"),
+        "{e}"
+    );
 }
 
 #[test]
@@ -403,24 +618,52 @@ fn lame_hoop_stress_at_bore_and_outer_surface() {
     let (ro, ri, p) = (0.05, 0.03, 100e6);
     let v = ThickCylinder::new(2.0 * ro, 2.0 * ri, 0.2, VesselEnds::Closed, steel()).unwrap();
     let at_bore = v.stresses_at(ri, p, 0.0);
-    assert_relative_eq!(at_bore.hoop_pa, p * (ro * ro + ri * ri) / (ro * ro - ri * ri), max_relative = 1e-12);
+    assert_relative_eq!(
+        at_bore.hoop_pa,
+        p * (ro * ro + ri * ri) / (ro * ro - ri * ri),
+        max_relative = 1e-12
+    );
     assert_relative_eq!(at_bore.radial_pa, -p, max_relative = 1e-12);
     let at_outer = v.stresses_at(ro, p, 0.0);
-    assert_relative_eq!(at_outer.hoop_pa, 2.0 * p * ri * ri / (ro * ro - ri * ri), max_relative = 1e-12);
+    assert_relative_eq!(
+        at_outer.hoop_pa,
+        2.0 * p * ri * ri / (ro * ro - ri * ri),
+        max_relative = 1e-12
+    );
     // Closed ends: σl = p ri² / (ro² − ri²) (Shigley eq. 3-52).
-    assert_relative_eq!(at_outer.axial_pa, p * ri * ri / (ro * ro - ri * ri), max_relative = 1e-12);
+    assert_relative_eq!(
+        at_outer.axial_pa,
+        p * ri * ri / (ro * ro - ri * ri),
+        max_relative = 1e-12
+    );
 }
 
 #[test]
 fn lame_outer_surface_strain_under_internal_pressure() {
     // Shigley 10th ed. eqs. (3-50), (3-52) at r = ro, and Hooke's law for the free surface.
     let (ro, ri, p) = (0.05, 0.03, 100e6);
-    let m = Member::ThickCylinder(ThickCylinder::new(2.0 * ro, 2.0 * ri, 0.2, VesselEnds::Closed, steel()).unwrap());
-    let st = state(&m, Face::Round, 0.1, 0.0, &loads(&[(LoadComponent::InternalPressure, p)]));
+    let m = Member::ThickCylinder(
+        ThickCylinder::new(2.0 * ro, 2.0 * ri, 0.2, VesselEnds::Closed, steel()).unwrap(),
+    );
+    let st = state(
+        &m,
+        Face::Round,
+        0.1,
+        0.0,
+        &loads(&[(LoadComponent::InternalPressure, p)]),
+    );
     let hoop = 2.0 * p * ri * ri / (ro * ro - ri * ri);
     let axial = p * ri * ri / (ro * ro - ri * ri);
-    assert_relative_eq!(st.strain.normal_y, (hoop - NU * axial) / E, max_relative = 1e-12);
-    assert_relative_eq!(st.strain.normal_x, (axial - NU * hoop) / E, max_relative = 1e-12);
+    assert_relative_eq!(
+        st.strain.normal_y,
+        (hoop - NU * axial) / E,
+        max_relative = 1e-12
+    );
+    assert_relative_eq!(
+        st.strain.normal_x,
+        (axial - NU * hoop) / E,
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -430,7 +673,11 @@ fn lame_external_pressure_hoop_at_outer_surface() {
     let (ro, ri, po) = (0.05, 0.03, 30e6);
     let v = ThickCylinder::new(2.0 * ro, 2.0 * ri, 0.2, VesselEnds::Open, steel()).unwrap();
     let s = v.stresses_at(ro, 0.0, po);
-    assert_relative_eq!(s.hoop_pa, -po * (ro * ro + ri * ri) / (ro * ro - ri * ri), max_relative = 1e-12);
+    assert_relative_eq!(
+        s.hoop_pa,
+        -po * (ro * ro + ri * ri) / (ro * ro - ri * ri),
+        max_relative = 1e-12
+    );
     assert_relative_eq!(s.radial_pa, -po, max_relative = 1e-12);
 }
 
@@ -481,7 +728,10 @@ fn kirsch_decay_at_one_radius_from_the_edge() {
 fn kirsch_equal_biaxial_gives_twice_the_stress_everywhere_on_the_edge() {
     // Timoshenko & Goodier 3rd ed., §35: superposing S along x and y gives σθ = 2S at r = a.
     let p = plate();
-    let l = loads(&[(LoadComponent::RemoteStressX, 50e6), (LoadComponent::RemoteStressY, 50e6)]);
+    let l = loads(&[
+        (LoadComponent::RemoteStressX, 50e6),
+        (LoadComponent::RemoteStressY, 50e6),
+    ]);
     for k in 0..8 {
         let t = k as f64 * PI / 8.0;
         let (sx, sy, txy) = p.stresses_at(0.01 * t.cos(), 0.01 * t.sin(), &l);
@@ -506,7 +756,10 @@ fn kirsch_far_field_returns_the_remote_stress() {
     // Timoshenko & Goodier 3rd ed., §35: the disturbance decays as (a/r)²; at r = 50 a it is
     // below 0.1 % of S.
     let p = plate();
-    let l = loads(&[(LoadComponent::RemoteStressX, 80e6), (LoadComponent::RemoteStressY, -20e6)]);
+    let l = loads(&[
+        (LoadComponent::RemoteStressX, 80e6),
+        (LoadComponent::RemoteStressY, -20e6),
+    ]);
     let (sx, sy, txy) = p.stresses_at(0.35, 0.35, &l);
     assert_relative_eq!(sx, 80e6, max_relative = 1e-3);
     assert_relative_eq!(sy, -20e6, max_relative = 5e-3);
@@ -521,7 +774,11 @@ fn strain_transformation_special_directions() {
     let s = SurfaceStrain::new(400e-6, -120e-6, 300e-6);
     assert_relative_eq!(s.along(0.0), 400e-6, max_relative = 1e-12);
     assert_relative_eq!(s.along(FRAC_PI_2), -120e-6, max_relative = 1e-12);
-    assert_relative_eq!(s.along(FRAC_PI_4), (400e-6 - 120e-6 + 300e-6) / 2.0, max_relative = 1e-12);
+    assert_relative_eq!(
+        s.along(FRAC_PI_4),
+        (400e-6 - 120e-6 + 300e-6) / 2.0,
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -533,7 +790,11 @@ fn principal_strains_and_angle() {
     let r = ((340e-6 - 110e-6) / 2.0f64).hypot(90e-6);
     assert_relative_eq!(p.max, 225e-6 + r, max_relative = 1e-12);
     assert_relative_eq!(p.min, 225e-6 - r, max_relative = 1e-12);
-    assert_relative_eq!(p.angle_rad, 0.5 * (180e-6f64 / 230e-6).atan(), max_relative = 1e-12);
+    assert_relative_eq!(
+        p.angle_rad,
+        0.5 * (180e-6f64 / 230e-6).atan(),
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -549,7 +810,11 @@ fn von_mises_of_uniaxial_and_pure_shear() {
         shear_xy_pa: 50e6,
         ..SurfaceStress::default()
     };
-    assert_relative_eq!(shear.von_mises_pa(), 3f64.sqrt() * 50e6, max_relative = 1e-12);
+    assert_relative_eq!(
+        shear.von_mises_pa(),
+        3f64.sqrt() * 50e6,
+        max_relative = 1e-12
+    );
 }
 
 // ---------------------------------------------------------------- rosettes
@@ -561,8 +826,16 @@ fn rectangular_rosette_closed_form() {
     let (e0, e45, e90) = (650e-6, 300e-6, -150e-6);
     let r = analyse_rosette(RosetteKind::Rectangular, &[e0, e45, e90], &steel()).unwrap();
     let rad = ((e0 - e45).powi(2) + (e45 - e90).powi(2)).sqrt() / 2f64.sqrt();
-    assert_relative_eq!(r.principal_strain.max, (e0 + e90) / 2.0 + rad, max_relative = 1e-12);
-    assert_relative_eq!(r.principal_strain.min, (e0 + e90) / 2.0 - rad, max_relative = 1e-12);
+    assert_relative_eq!(
+        r.principal_strain.max,
+        (e0 + e90) / 2.0 + rad,
+        max_relative = 1e-12
+    );
+    assert_relative_eq!(
+        r.principal_strain.min,
+        (e0 + e90) / 2.0 - rad,
+        max_relative = 1e-12
+    );
     assert_relative_eq!(
         r.principal_strain.angle_rad,
         0.5 * ((2.0 * e45 - e0 - e90) / (e0 - e90)).atan(),
@@ -577,17 +850,38 @@ fn delta_rosette_closed_form() {
     let (a, b, c) = (500e-6, -80e-6, 220e-6);
     let r = analyse_rosette(RosetteKind::Delta, &[a, b, c], &steel()).unwrap();
     let rad = 2f64.sqrt() / 3.0 * ((a - b).powi(2) + (b - c).powi(2) + (c - a).powi(2)).sqrt();
-    assert_relative_eq!(r.principal_strain.max, (a + b + c) / 3.0 + rad, max_relative = 1e-12);
-    assert_relative_eq!(r.principal_strain.min, (a + b + c) / 3.0 - rad, max_relative = 1e-12);
+    assert_relative_eq!(
+        r.principal_strain.max,
+        (a + b + c) / 3.0 + rad,
+        max_relative = 1e-12
+    );
+    assert_relative_eq!(
+        r.principal_strain.min,
+        (a + b + c) / 3.0 - rad,
+        max_relative = 1e-12
+    );
 }
 
 #[test]
 fn rosette_principal_stresses_from_principal_strains() {
     // Dally & Riley 3rd ed., §9.6: σ1 = E/(1−ν²)(ε1 + ν ε2), σ2 = E/(1−ν²)(ε2 + ν ε1).
-    let r = analyse_rosette(RosetteKind::Rectangular, &[650e-6, 300e-6, -150e-6], &steel()).unwrap();
+    let r = analyse_rosette(
+        RosetteKind::Rectangular,
+        &[650e-6, 300e-6, -150e-6],
+        &steel(),
+    )
+    .unwrap();
     let (e1, e2) = (r.principal_strain.max, r.principal_strain.min);
-    assert_relative_eq!(r.principal_stress_pa.0, E / (1.0 - NU * NU) * (e1 + NU * e2), max_relative = 1e-12);
-    assert_relative_eq!(r.principal_stress_pa.1, E / (1.0 - NU * NU) * (e2 + NU * e1), max_relative = 1e-12);
+    assert_relative_eq!(
+        r.principal_stress_pa.0,
+        E / (1.0 - NU * NU) * (e1 + NU * e2),
+        max_relative = 1e-12
+    );
+    assert_relative_eq!(
+        r.principal_stress_pa.1,
+        E / (1.0 - NU * NU) * (e2 + NU * e1),
+        max_relative = 1e-12
+    );
 }
 
 // ---------------------------------------------------------------- transverse sensitivity
@@ -597,7 +891,11 @@ fn transverse_sensitivity_error_in_equal_biaxial_field() {
     // Dally & Riley 3rd ed., §6.5: percent error = Kt (εt/εa + ν0) / (1 − ν0 Kt) × 100.
     // Kt = 0.05, εt = εa: 0.05 × 1.285 / (1 − 0.01425) = 6.518 %.
     let e = indicated_strain(1000e-6, 1000e-6, 0.05, CALIBRATION_POISSON_RATIO).unwrap();
-    assert_relative_eq!((e - 1000e-6) / 1000e-6, 0.05 * 1.285 / (1.0 - 0.285 * 0.05), max_relative = 1e-12);
+    assert_relative_eq!(
+        (e - 1000e-6) / 1000e-6,
+        0.05 * 1.285 / (1.0 - 0.285 * 0.05),
+        max_relative = 1e-12
+    );
 }
 
 #[test]
@@ -620,7 +918,13 @@ fn rectangular_rosette_transverse_correction() {
     let kt = 0.03;
     let angles = [0.0, FRAC_PI_4, FRAC_PI_2];
     let indicated = angles.map(|t| {
-        indicated_strain(truth.along(t), truth.along(t + FRAC_PI_2), kt, CALIBRATION_POISSON_RATIO).unwrap()
+        indicated_strain(
+            truth.along(t),
+            truth.along(t + FRAC_PI_2),
+            kt,
+            CALIBRATION_POISSON_RATIO,
+        )
+        .unwrap()
     });
     let corrected = correct_rosette(angles, indicated, kt, CALIBRATION_POISSON_RATIO).unwrap();
     for (c, t) in corrected.iter().zip(angles) {
@@ -648,7 +952,16 @@ fn grid_average_near_the_hole_matches_the_integral_of_the_kirsch_field() {
         width_m: d,
     };
     let l = loads(&[(LoadComponent::RemoteStressX, s)]);
-    let read = grid_average_strain(&m, &grid, &l, QuadratureOrder { along: 2, across: 12 }).unwrap();
+    let read = grid_average_strain(
+        &m,
+        &grid,
+        &l,
+        QuadratureOrder {
+            along: 2,
+            across: 12,
+        },
+    )
+    .unwrap();
     let i2 = a * a / d * (1.0 / a - 1.0 / (a + d));
     let i4 = a.powi(4) / d * (1.0 / a.powi(3) - 1.0 / (a + d).powi(3));
     let hoop = s / 2.0 * (2.0 + i2 + i4);
@@ -675,7 +988,13 @@ fn gauss_legendre_three_point_nodes() {
 fn free_thermal_expansion_gives_strain_but_no_stress() {
     // Gere & Goodno 7th ed., §2.5, eq. (2-16): εT = α ΔT; an unrestrained part is unstressed.
     let m = beam(rect(0.02, 0.04), 0.3, BeamSupport::Cantilever, 0.3);
-    let st = state(&m, Face::Top, 0.1, 0.0, &loads(&[(LoadComponent::TemperatureChange, 40.0)]));
+    let st = state(
+        &m,
+        Face::Top,
+        0.1,
+        0.0,
+        &loads(&[(LoadComponent::TemperatureChange, 40.0)]),
+    );
     assert_relative_eq!(st.strain.normal_x, 12e-6 * 40.0, max_relative = 1e-12);
     assert_relative_eq!(st.strain.normal_y, 12e-6 * 40.0, max_relative = 1e-12);
     assert!(st.von_mises_pa(&steel()) < 1e-3);
