@@ -1,0 +1,236 @@
+//! A bridge as the engineer defines it: what sits in each arm, wiring, leads, excitation,
+//! instrument settings and signal chain.
+
+use gw_mechanics::LoadComponent;
+use serde::{Deserialize, Serialize};
+
+use crate::circuit::{Excitation, LeadWiring, ShuntLocation};
+use crate::error::{BridgeError, check_non_negative, check_positive};
+use crate::gauge::{GridRef, PlacedGauge};
+
+/// A fixed resistor that completes the bridge (at the instrument).
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct CompletionResistor {
+    /// Nominal resistance, Ω.
+    pub ohm: f64,
+    /// Tolerance, ± fraction (0.0005 = ±0.05 %).
+    pub tolerance: f64,
+    /// Temperature coefficient, 1/°C.
+    pub tcr_per_c: f64,
+}
+
+/// What occupies one arm.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub enum ArmElement {
+    /// An active grid on the part.
+    Grid(GridRef),
+    /// A dummy grid identical to the referenced grid, on an unstrained piece of the part's
+    /// material at the part's temperature.
+    Dummy(GridRef),
+    /// A completion resistor at the instrument.
+    Completion(CompletionResistor),
+}
+
+impl ArmElement {
+    /// True for grids and dummies (they sit at the gauge site).
+    pub fn at_gauge(&self) -> bool {
+        !matches!(self, ArmElement::Completion(_))
+    }
+
+    /// The referenced grid of a grid or dummy.
+    pub fn grid(&self) -> Option<GridRef> {
+        match *self {
+            ArmElement::Grid(g) | ArmElement::Dummy(g) => Some(g),
+            ArmElement::Completion(_) => None,
+        }
+    }
+}
+
+/// Lead wires from the gauge site to the instrument (all leads alike).
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct LeadWire {
+    /// Length of one lead, m.
+    pub length_m: f64,
+    /// Resistance per metre at the reference temperature, Ω/m.
+    pub ohm_per_m: f64,
+    /// Temperature coefficient of resistance, 1/°C (copper about 0.0039, from memory).
+    pub tcr_per_c: f64,
+}
+
+/// Copper's temperature coefficient of resistance near 20 °C, 1/°C (from memory).
+pub const COPPER_TCR_PER_C: f64 = 0.0039;
+
+/// How the instrument converts the output to a displayed strain.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct InstrumentSetting {
+    /// Gauge factor set on the instrument.
+    pub gauge_factor: f64,
+    /// Bridge factor: how many times the target strain the bridge's Σ±ε is
+    /// (1 for one active arm, 2 for two bending grids, 4 for four, 2(1+ν) for axial with
+    /// Poisson grids). Displayed strain = 4 (Vo/Vex) / (GF · bridge factor).
+    pub bridge_factor: f64,
+}
+
+/// The acquisition channel behind the bridge.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct SignalChain {
+    /// Amplifier voltage gain.
+    pub gain: f64,
+    /// ADC input range, ± V at the ADC (after gain).
+    pub input_range_v: f64,
+    /// ADC resolution, bits.
+    pub adc_bits: u32,
+    /// Amplifier input voltage noise density, V/√Hz.
+    pub amplifier_noise_v_per_rt_hz: f64,
+    /// Measurement bandwidth, Hz.
+    pub bandwidth_hz: f64,
+    /// Excitation accuracy, ± fraction.
+    pub excitation_accuracy: f64,
+    /// Gain accuracy, ± fraction.
+    pub gain_accuracy: f64,
+}
+
+/// Whether the completion resistors follow the part's temperature. Default: fixed.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+pub enum InstrumentTemperature {
+    /// The instrument stays at the reference temperature.
+    #[default]
+    Fixed,
+    /// The instrument (and its completion resistors) sees the same change as the part.
+    FollowsPart,
+}
+
+/// A planned shunt calibration.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct ShuntPlan {
+    /// Arm index 0..4 the resistor goes across.
+    pub arm: usize,
+    /// Magnitude of the strain the shunt should simulate in that arm, m/m.
+    pub target_strain: f64,
+    /// Where it is connected.
+    pub location: ShuntLocation,
+}
+
+/// A Wheatstone bridge.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Bridge {
+    /// Name shown everywhere, e.g. "Bending at root".
+    pub name: String,
+    /// Arms 1..4.
+    pub arms: [ArmElement; 4],
+    /// Lead wiring.
+    pub wiring: LeadWiring,
+    /// Lead wires.
+    pub lead: LeadWire,
+    /// Excitation.
+    pub excitation: Excitation,
+    /// Amplifier differential input resistance, Ω (`None`: ideal).
+    pub amplifier_input_ohm: Option<f64>,
+    /// Instrument conversion.
+    pub instrument: InstrumentSetting,
+    /// Acquisition channel.
+    pub signal: SignalChain,
+    /// The load component this bridge is meant to measure.
+    pub wanted: LoadComponent,
+    /// Instrument temperature.
+    pub instrument_temperature: InstrumentTemperature,
+    /// Shunt calibration, if planned.
+    pub shunt: Option<ShuntPlan>,
+}
+
+impl Bridge {
+    /// Checks the bridge against the placed gauges.
+    pub fn validate(&self, gauges: &[PlacedGauge]) -> Result<(), BridgeError> {
+        let what = |s: &str| format!("bridge \"{}\": {s}", self.name);
+        if !self.arms.iter().any(|a| matches!(a, ArmElement::Grid(_))) {
+            return Err(BridgeError::Invalid {
+                what: what("arms"),
+                why: "no arm holds an active grid; put a grid in at least one arm".into(),
+            });
+        }
+        let mut seen = Vec::new();
+        for (k, arm) in self.arms.iter().enumerate() {
+            match arm {
+                ArmElement::Grid(g) | ArmElement::Dummy(g) => {
+                    let Some(gauge) = gauges.get(g.gauge) else {
+                        return Err(BridgeError::Invalid {
+                            what: what(&format!("arm {}", k + 1)),
+                            why: format!(
+                                "refers to gauge number {} which does not exist",
+                                g.gauge + 1
+                            ),
+                        });
+                    };
+                    if g.element >= gauge.element_count() {
+                        return Err(BridgeError::Invalid {
+                            what: what(&format!("arm {}", k + 1)),
+                            why: format!(
+                                "gauge {} has {} grid(s); grid {} does not exist",
+                                gauge.id,
+                                gauge.element_count(),
+                                g.element + 1
+                            ),
+                        });
+                    }
+                    if matches!(arm, ArmElement::Grid(_)) {
+                        if seen.contains(g) {
+                            return Err(BridgeError::Invalid {
+                                what: what(&format!("arm {}", k + 1)),
+                                why: format!(
+                                    "grid {} of gauge {} is already in another arm; one grid can sit in one arm only",
+                                    g.element + 1,
+                                    gauge.id
+                                ),
+                            });
+                        }
+                        seen.push(*g);
+                    }
+                }
+                ArmElement::Completion(c) => {
+                    check_positive(
+                        &what(&format!("completion resistor in arm {}", k + 1)),
+                        c.ohm,
+                    )?;
+                }
+            }
+        }
+        check_non_negative(&what("lead length"), self.lead.length_m)?;
+        check_non_negative(&what("lead resistance per metre"), self.lead.ohm_per_m)?;
+        check_positive(
+            &what("instrument gauge factor"),
+            self.instrument.gauge_factor,
+        )?;
+        check_positive(&what("bridge factor"), self.instrument.bridge_factor)?;
+        match self.excitation {
+            Excitation::Voltage { volts } => check_positive(&what("excitation voltage"), volts)?,
+            Excitation::Current { amps } => check_positive(&what("excitation current"), amps)?,
+        }
+        check_positive(&what("amplifier gain"), self.signal.gain)?;
+        check_positive(&what("input range"), self.signal.input_range_v)?;
+        if !(1..=32).contains(&self.signal.adc_bits) {
+            return Err(BridgeError::Invalid {
+                what: what("ADC resolution"),
+                why: format!("{} bits is outside 1 to 32", self.signal.adc_bits),
+            });
+        }
+        check_positive(&what("bandwidth"), self.signal.bandwidth_hz)?;
+        if let Some(rin) = self.amplifier_input_ohm {
+            check_positive(&what("amplifier input resistance"), rin)?;
+        }
+        if let Some(s) = self.shunt {
+            if s.arm > 3 {
+                return Err(BridgeError::Invalid {
+                    what: what("shunt arm"),
+                    why: "choose arm 1 to 4".into(),
+                });
+            }
+            check_positive(&what("shunt target strain"), s.target_strain)?;
+        }
+        Ok(())
+    }
+
+    /// Number of gauges' grids at the gauge site (active and dummy).
+    pub fn grid_count(&self) -> usize {
+        self.arms.iter().filter(|a| a.at_gauge()).count()
+    }
+}
