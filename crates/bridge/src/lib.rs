@@ -10,12 +10,21 @@
 //! - Circuits are solved exactly by nodal analysis; small-signal formulas appear only in tests
 //!   and in the fast linear estimates used for searching.
 
+pub mod arrangement;
 pub mod bridge;
+pub mod bridge_uncertainty;
+pub mod chooser;
 pub mod circuit;
 pub mod error;
 pub mod gauge;
+pub mod margins;
 pub mod model;
+pub mod multi_axis;
 pub mod network;
+pub mod shunt;
+pub mod signal_chain;
+pub mod temperature;
+pub mod uncertainty;
 
 pub use bridge::{
     ArmElement, Bridge, CompletionResistor, InstrumentSetting, InstrumentTemperature, LeadWire,

@@ -4,7 +4,8 @@
 
 use gw_mechanics::transverse::CALIBRATION_POISSON_RATIO;
 use gw_mechanics::{
-    LoadComponent, LoadVector, Member, QuadratureOrder, SurfaceStrain, grid_average_state,
+    GridFootprint, LoadComponent, LoadVector, Member, QuadratureOrder, SurfaceStrain,
+    grid_average_state,
 };
 use serde::Serialize;
 
@@ -77,6 +78,36 @@ impl Effects {
     };
 }
 
+/// Small departures from the nominal plan, for uncertainty propagation.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Perturbation {
+    /// Added to each arm's grid strain (along, across), m/m.
+    pub grid_strain_offsets: [(f64, f64); 4],
+    /// Gauge factor multiplier of the grids (common to the lot).
+    pub gauge_factor_scale: f64,
+    /// Added to every grid's transverse sensitivity.
+    pub kt_offset: f64,
+    /// Added to the part temperature of the reading, °C.
+    pub temperature_offset_c: f64,
+    /// Lead resistance multiplier.
+    pub lead_scale: f64,
+    /// Multiplier of each arm's completion resistor.
+    pub completion_scale: [f64; 4],
+}
+
+impl Default for Perturbation {
+    fn default() -> Self {
+        Self {
+            grid_strain_offsets: [(0.0, 0.0); 4],
+            gauge_factor_scale: 1.0,
+            kt_offset: 0.0,
+            temperature_offset_c: 0.0,
+            lead_scale: 1.0,
+            completion_scale: [1.0; 4],
+        }
+    }
+}
+
 /// The error of a displayed reading against the target, split by cause; they sum to the total.
 #[derive(Debug, Clone, Copy, PartialEq, Default, Serialize)]
 pub struct ErrorBreakdown {
@@ -139,6 +170,7 @@ pub struct BridgeModel {
     bridge: Bridge,
     specs: [Option<GaugeSpec>; 4],
     units: [Option<GridUnitStrains>; 4],
+    footprints: [Option<GridFootprint>; 4],
     part_cte_per_c: f64,
     reference_temperature_c: f64,
     zero: BridgeSolution,
@@ -150,6 +182,7 @@ impl BridgeModel {
         bridge.validate(setup.gauges)?;
         let mut specs: [Option<GaugeSpec>; 4] = Default::default();
         let mut units: [Option<GridUnitStrains>; 4] = Default::default();
+        let mut footprints: [Option<GridFootprint>; 4] = Default::default();
         for (k, arm) in bridge.arms.iter().enumerate() {
             let Some(g) = arm.grid() else { continue };
             let gauge = &setup.gauges[g.gauge];
@@ -157,6 +190,7 @@ impl BridgeModel {
             specs[k] = Some(gauge.spec.clone());
             if let ArmElement::Grid(_) = arm {
                 let footprint = gauge.footprint(g.element);
+                footprints[k] = Some(footprint);
                 let angle = footprint.angle_rad;
                 let across = angle + std::f64::consts::FRAC_PI_2;
                 let mut per_component = [[0.0; 4]; LoadComponent::COUNT];
@@ -184,6 +218,7 @@ impl BridgeModel {
             bridge: bridge.clone(),
             specs,
             units,
+            footprints,
             part_cte_per_c: setup.member.material().cte_per_c,
             reference_temperature_c: setup.reference_temperature_c,
             zero: BridgeSolution {
@@ -216,6 +251,11 @@ impl BridgeModel {
         sum / 4.0
     }
 
+    /// Nominal resistance of the element in `arm`, Ω.
+    pub fn nominal_arm_ohm_of(&self, arm: usize) -> f64 {
+        self.nominal_ohm(arm.min(3))
+    }
+
     fn nominal_ohm(&self, arm: usize) -> f64 {
         match (&self.bridge.arms[arm], &self.specs[arm]) {
             (ArmElement::Completion(c), _) => c.ohm,
@@ -235,12 +275,21 @@ impl BridgeModel {
 
     /// ΔR/R of each arm under `loads` with the chosen effects.
     pub fn arm_deltas(&self, loads: &LoadVector, effects: Effects) -> [f64; 4] {
+        self.arm_deltas_perturbed(loads, effects, &Perturbation::default())
+    }
+
+    fn arm_deltas_perturbed(
+        &self,
+        loads: &LoadVector,
+        effects: Effects,
+        p: &Perturbation,
+    ) -> [f64; 4] {
         let mut l = *loads;
         if effects.wanted_only {
             l = LoadVector::ZERO;
             l[self.bridge.wanted] = loads[self.bridge.wanted];
         }
-        let dt = loads[LoadComponent::TemperatureChange];
+        let dt = loads[LoadComponent::TemperatureChange] + p.temperature_offset_c;
         let t = self.reference_temperature_c + dt;
         let gf_set = self.bridge.instrument.gauge_factor;
         let mut out = [0.0; 4];
@@ -249,16 +298,21 @@ impl BridgeModel {
                 (ArmElement::Completion(c), _) => {
                     let follows =
                         self.bridge.instrument_temperature == InstrumentTemperature::FollowsPart;
-                    if effects.temperature && follows {
-                        *o = c.tcr_per_c * dt;
-                    }
+                    let drift = if effects.temperature && follows {
+                        c.tcr_per_c * dt
+                    } else {
+                        0.0
+                    };
+                    *o = p.completion_scale[k] * (1.0 + drift) - 1.0;
                 }
                 (arm, Some(spec)) => {
-                    let kt = spec.transverse_sensitivity;
+                    let kt = spec.transverse_sensitivity + p.kt_offset;
                     let mut strain = 0.0;
                     if let ArmElement::Grid(_) = arm {
                         let [pa, pt, aa, at] = self.grid_strains(k, &l);
                         let (a, tr) = if effects.averaged { (aa, at) } else { (pa, pt) };
+                        let (da, dtr) = p.grid_strain_offsets[k];
+                        let (a, tr) = (a + da, tr + dtr);
                         strain = if effects.transverse {
                             (a + kt * tr) / (1.0 - CALIBRATION_POISSON_RATIO * kt)
                         } else {
@@ -266,7 +320,7 @@ impl BridgeModel {
                         };
                     }
                     let mut gf = if effects.actual_gauge_factor {
-                        spec.gauge_factor
+                        spec.gauge_factor * p.gauge_factor_scale
                     } else {
                         gf_set
                     };
@@ -308,10 +362,20 @@ impl BridgeModel {
 
     /// The circuit with the arms under `loads` (all effects) and an optional shunt.
     pub fn circuit(&self, loads: &LoadVector, shunt: Option<Shunt>) -> BridgeCircuit {
-        let deltas = self.arm_deltas(loads, Effects::ALL);
-        let dt = loads[LoadComponent::TemperatureChange];
+        self.circuit_perturbed(loads, shunt, &Perturbation::default())
+    }
+
+    fn circuit_perturbed(
+        &self,
+        loads: &LoadVector,
+        shunt: Option<Shunt>,
+        p: &Perturbation,
+    ) -> BridgeCircuit {
+        let deltas = self.arm_deltas_perturbed(loads, Effects::ALL, p);
+        let dt = loads[LoadComponent::TemperatureChange] + p.temperature_offset_c;
         let lead = &self.bridge.lead;
-        let lead_ohm = (lead.length_m * lead.ohm_per_m * (1.0 + lead.tcr_per_c * dt)).max(0.0);
+        let lead_ohm =
+            (lead.length_m * lead.ohm_per_m * p.lead_scale * (1.0 + lead.tcr_per_c * dt)).max(0.0);
         let arms = std::array::from_fn(|k| ArmResistor {
             ohm: self.nominal_ohm(k) * (1.0 + deltas[k]),
             at_gauge: self.bridge.arms[k].at_gauge(),
@@ -324,6 +388,29 @@ impl BridgeModel {
             amplifier_input_ohm: self.bridge.amplifier_input_ohm,
             shunt,
         }
+    }
+
+    /// Displayed strain under `loads` with the plan perturbed by `p`, zeroed at no load and the
+    /// reference temperature with the same perturbed components.
+    pub fn perturbed_displayed(
+        &self,
+        loads: &LoadVector,
+        p: &Perturbation,
+    ) -> Result<f64, BridgeError> {
+        let zero_p = Perturbation {
+            grid_strain_offsets: [(0.0, 0.0); 4],
+            temperature_offset_c: 0.0,
+            ..*p
+        };
+        let loaded = self.circuit_perturbed(loads, None, p).solve()?;
+        let zero = self
+            .circuit_perturbed(&LoadVector::ZERO, None, &zero_p)
+            .solve()?;
+        Ok(
+            self.ratio_to_displayed(
+                (loaded.output_v - zero.output_v) / self.nominal_excitation_v(),
+            ),
+        )
     }
 
     fn solve(
@@ -476,6 +563,11 @@ impl BridgeModel {
     /// Gauge spec of the grid or dummy in `arm`.
     pub fn spec(&self, arm: usize) -> Option<&GaugeSpec> {
         self.specs.get(arm).and_then(|s| s.as_ref())
+    }
+
+    /// Footprint of the active grid in `arm`.
+    pub fn footprint(&self, arm: usize) -> Option<GridFootprint> {
+        self.footprints.get(arm).copied().flatten()
     }
 
     /// Part expansion coefficient, 1/°C.

@@ -1,0 +1,64 @@
+//! Property tests of the bridge identities and the chooser's ordering.
+
+use gw_bridge::chooser::score;
+use gw_bridge::circuit::{ArmResistor, BridgeCircuit, Excitation, LeadWiring};
+use proptest::prelude::*;
+
+fn circuit(ohms: [f64; 4], at_gauge: [bool; 4], lead: f64, wiring: LeadWiring) -> BridgeCircuit {
+    BridgeCircuit {
+        arms: std::array::from_fn(|k| ArmResistor {
+            ohm: ohms[k],
+            at_gauge: at_gauge[k],
+        }),
+        wiring,
+        lead_ohm: lead,
+        excitation: Excitation::Voltage { volts: 5.0 },
+        amplifier_input_ohm: None,
+        shunt: None,
+    }
+}
+
+fn wiring() -> impl Strategy<Value = LeadWiring> {
+    prop_oneof![
+        Just(LeadWiring::TwoWire),
+        Just(LeadWiring::ThreeWire),
+        Just(LeadWiring::RemoteSense)
+    ]
+}
+
+proptest! {
+    #[test]
+    fn swapping_the_two_halves_flips_the_output(
+        d in proptest::array::uniform4(-0.01..0.01f64),
+        g in proptest::array::uniform4(any::<bool>()),
+        lead in 0.0..3.0f64,
+        w in wiring(),
+    ) {
+        let ohms = d.map(|x| 350.0 * (1.0 + x));
+        let a = circuit(ohms, g, lead, w).solve().unwrap().output_v;
+        // Halves: arms 1–2 (output +) and arms 4–3 (output −); swap 1↔4 and 2↔3.
+        let swapped = circuit([ohms[3], ohms[2], ohms[1], ohms[0]], [g[3], g[2], g[1], g[0]], lead, w);
+        let b = swapped.solve().unwrap().output_v;
+        prop_assert!((a + b).abs() < 1e-12, "{a} vs {b}");
+    }
+
+    #[test]
+    fn equal_strains_in_adjacent_arms_cancel(d in -0.01..0.01f64, k in 0usize..4) {
+        // Adjacent pairs: (1,2), (2,3), (3,4), (4,1).
+        let mut ohms = [350.0; 4];
+        ohms[k] *= 1.0 + d;
+        ohms[(k + 1) % 4] *= 1.0 + d;
+        let out = circuit(ohms, [true; 4], 0.0, LeadWiring::ThreeWire).solve().unwrap().output_v;
+        prop_assert!(out.abs() < 1e-13, "{out}");
+    }
+
+    #[test]
+    fn more_leakage_never_ranks_higher_all_else_equal(
+        sens in 0.01..10.0f64, leak in 0.0..0.5f64, extra in 1e-9..0.5f64,
+        thermal in 0.0..0.5f64, nl in 0.0..0.01f64, count in 1usize..8,
+    ) {
+        let less = score(sens, leak, leak, thermal, nl, count);
+        let more = score(sens, leak + extra, leak + extra, thermal, nl, count);
+        prop_assert!(more < less);
+    }
+}
