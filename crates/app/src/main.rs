@@ -15,10 +15,57 @@ struct Cli {
     /// smoke tests).
     #[arg(long, value_name = "PATH")]
     screenshot: Option<PathBuf>,
+    /// With no subcommand the desktop app starts.
+    #[command(subcommand)]
+    command: Option<Command>,
+}
+
+#[derive(Debug, clap::Subcommand)]
+enum Command {
+    /// Validate a project and print margins and warnings (exit status 1 if a margin fails,
+    /// 2 if the file is broken).
+    Check {
+        /// Project file (.ron).
+        file: PathBuf,
+    },
+    /// Print every computed figure.
+    Eval {
+        /// Project file (.ron).
+        file: PathBuf,
+        /// Print JSON (the only format so far).
+        #[arg(long)]
+        json: bool,
+        /// Include the Monte Carlo uncertainty propagation (slower).
+        #[arg(long)]
+        monte_carlo: bool,
+    },
+    /// Write the bundled demo project.
+    Demo {
+        /// Where to write it.
+        out: PathBuf,
+    },
+}
+
+fn finish(out: gw_plan::cli::CliOutput) -> std::process::ExitCode {
+    print!("{}", out.stdout);
+    eprint!("{}", out.stderr);
+    std::process::ExitCode::from(out.code.clamp(0, 255) as u8)
 }
 
 fn main() -> std::process::ExitCode {
     let cli = Cli::parse();
+    match cli.command {
+        Some(Command::Check { file }) => return finish(gw_plan::cli::check(&file)),
+        Some(Command::Eval {
+            file,
+            json: _,
+            monte_carlo,
+        }) => {
+            return finish(gw_plan::cli::eval_json(&file, monte_carlo));
+        }
+        Some(Command::Demo { out }) => return finish(gw_plan::cli::write_demo(&out)),
+        None => {}
+    }
     let options = eframe::NativeOptions {
         viewport: egui::ViewportBuilder::default()
             .with_title("Gaugewright")

@@ -142,6 +142,8 @@ pub struct BridgeNodes {
     pub instrument_excitation: (Node, Node),
     /// Number of lead wires.
     pub lead_count: usize,
+    /// Instrument-side end of each lead wire, with its role ("exc+", "sense out+", …).
+    pub conductors: Vec<(String, Node)>,
 }
 
 /// The solved bridge.
@@ -183,6 +185,7 @@ impl BridgeCircuit {
         let mut remote: [Node; 4] = inst;
         let mut sense: [Node; 4] = inst;
         let mut lead_count = 0;
+        let mut conductors = Vec::new();
         // Leads below a micro-ohm are treated as ideal (the nodes merge), which keeps the
         // equations well conditioned.
         let ideal_leads = self.lead_ohm < IDEAL_LEAD_OHM;
@@ -198,6 +201,7 @@ impl BridgeCircuit {
                 self.lead_ohm,
             );
             lead_count += 1;
+            conductors.push((names[c].to_owned(), inst[c]));
             let output_corner = c == OUT_POS || c == OUT_NEG;
             let separate_sense = match self.wiring {
                 LeadWiring::TwoWire => false,
@@ -215,6 +219,7 @@ impl BridgeCircuit {
                     self.lead_ohm,
                 );
                 lead_count += 1;
+                conductors.push((format!("sense {}", names[c]), sense[c]));
             } else if output_corner {
                 sense[c] = inst[c];
             }
@@ -267,6 +272,7 @@ impl BridgeCircuit {
             bridge_excitation: (remote[EXC_POS], remote[EXC_NEG]),
             instrument_excitation: (inst[EXC_POS], inst[EXC_NEG]),
             lead_count,
+            conductors,
         };
         (net, nodes)
     }

@@ -98,6 +98,9 @@ pub struct GaugeSpec {
     pub grid_width_m: f64,
     /// Nominal grid resistance, Ω (120, 350, 1000 or any).
     pub resistance_ohm: f64,
+    /// Resistance tolerance of the lot, ± fraction (default ±0.3 %, common practice).
+    #[serde(default = "default_resistance_tolerance")]
+    pub resistance_tolerance: f64,
     /// Gauge factor at the reference temperature.
     pub gauge_factor: f64,
     /// Gauge-factor tolerance, ± fraction (0.01 = ±1 %).
@@ -116,12 +119,17 @@ pub struct GaugeSpec {
     pub max_power_density_w_m2: f64,
 }
 
+fn default_resistance_tolerance() -> f64 {
+    0.003
+}
+
 impl GaugeSpec {
     /// Checks every value; the message names the field and the way out.
     pub fn validate(&self) -> Result<(), BridgeError> {
         check_positive("grid length", self.grid_length_m)?;
         check_positive("grid width", self.grid_width_m)?;
         check_positive("grid resistance", self.resistance_ohm)?;
+        check_fraction("resistance tolerance", self.resistance_tolerance, 0.0, 0.1)?;
         check_positive("gauge factor", self.gauge_factor)?;
         check_fraction(
             "gauge-factor tolerance",

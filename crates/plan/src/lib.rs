@@ -1,4 +1,25 @@
-//! The Gaugewright project document, whole-plan evaluation, checks and build sheet.
+//! The Gaugewright project document, whole-plan evaluation, checks and command line.
+//!
+//! A [`Project`] holds parts; each part has a mechanics model, load cases, placed gauges and
+//! bridges. [`evaluate`] turns a project into one [`Evaluation`]: the app, the command line and
+//! the build sheet read only that.
 //!
 //! # Conventions
-//! SI units inside, as in `gw-mechanics`; the document is stored as RON.
+//! - SI units inside, as in `gw-mechanics` and `gw-bridge`.
+//! - Files are RON with a `format_version`; [`io`] reads, migrates and validates them, and
+//!   saves atomically with a backup.
+//! - Gauges are referred to by their id in bridges ("G1", grid 2), never by list position.
+
+pub mod arrangements;
+pub mod cautions;
+pub mod cli;
+pub mod demo;
+pub mod document;
+pub mod evaluate;
+pub mod io;
+pub mod validate;
+pub mod wiring;
+
+pub use document::{BridgePlan, LoadCase, Part, PlanArm, Project};
+pub use evaluate::{EvalOptions, Evaluation, evaluate};
+pub use io::{PlanError, load_project, project_from_str, project_to_string, save_project};

@@ -14,6 +14,7 @@ pub fn spec(pattern: GaugePattern) -> GaugeSpec {
         grid_length_m: 3e-3,
         grid_width_m: 2e-3,
         resistance_ohm: 350.0,
+        resistance_tolerance: 0.003,
         gauge_factor: 2.0,
         gauge_factor_tolerance: 0.01,
         transverse_sensitivity: 0.0,

@@ -1,0 +1,641 @@
+//! One function evaluates a whole plan into one result structure. The app, the command line
+//! and the build sheet read only this.
+
+use gw_bridge::bridge_uncertainty::{BridgeUncertainty, bridge_uncertainty};
+use gw_bridge::margins::{Margin, MarginKind, MarginStatus};
+use gw_bridge::multi_axis::{MultiAxis, multi_axis};
+use gw_bridge::shunt::{ShuntCalibration, shunt_calibration};
+use gw_bridge::signal_chain::{ChannelFigures, adc_volts, channel_figures};
+use gw_bridge::temperature::{ThermalPoint, thermal_sweep};
+use gw_bridge::{ArmElement, BridgeModel, Reading, Setup};
+use gw_mechanics::{LoadComponent, LoadVector, QuadratureOrder};
+use serde::Serialize;
+
+use crate::cautions::{Caution, cautions};
+use crate::document::{Part, Project};
+use crate::validate::{bridge_from_plan, expected_magnitudes, validate_part};
+
+/// How much to compute. Default: everything but Monte Carlo.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum UncertaintyDepth {
+    /// No uncertainty budget.
+    Off,
+    /// GUM linear propagation only.
+    Gum,
+    /// GUM and Monte Carlo (slow: thousands of circuit solutions per bridge).
+    GumAndMonteCarlo,
+}
+
+/// Evaluation options.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct EvalOptions {
+    /// Uncertainty depth.
+    pub uncertainty: UncertaintyDepth,
+    /// Monte Carlo trials when enabled (overrides the part's setting if > 0).
+    pub monte_carlo_trials: usize,
+    /// Grid-averaging quadrature.
+    pub quadrature: QuadratureOrder,
+    /// Samples per face side for the part's peak stress.
+    pub peak_samples: usize,
+    /// Points of the temperature sweep.
+    pub temperature_steps: usize,
+}
+
+impl Default for EvalOptions {
+    fn default() -> Self {
+        Self {
+            uncertainty: UncertaintyDepth::Gum,
+            monte_carlo_trials: 0,
+            quadrature: QuadratureOrder::default(),
+            peak_samples: 24,
+            temperature_steps: 12,
+        }
+    }
+}
+
+/// How serious a finding is.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Serialize)]
+pub enum Severity {
+    /// Something could not be computed.
+    Error,
+    /// A margin fails.
+    Fail,
+    /// A margin is close to its limit, or a model is near the edge of its validity.
+    Warn,
+}
+
+/// What a finding is about, so the app can select it.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+pub enum Target {
+    /// A part (index).
+    Part { part: usize },
+    /// A load case of a part.
+    LoadCase { part: usize, case: usize },
+    /// A gauge of a part.
+    Gauge { part: usize, gauge: usize },
+    /// A bridge of a part.
+    Bridge { part: usize, bridge: usize },
+}
+
+/// One validation problem or failed margin.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Finding {
+    /// Severity.
+    pub severity: Severity,
+    /// Plain message with the numbers.
+    pub message: String,
+    /// What it is about.
+    pub target: Target,
+}
+
+/// A point of the output-versus-load plot.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct RampPoint {
+    /// Fraction of the full load case.
+    pub fraction: f64,
+    /// Value of the wanted component at this point (SI).
+    pub wanted_value: f64,
+    /// Displayed strain from the exact circuit, m/m.
+    pub displayed_strain: f64,
+    /// The straight line through zero and the full-load reading, m/m.
+    pub linear_strain: f64,
+}
+
+/// One bridge at one load case.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct BridgeCase {
+    /// Load case name.
+    pub case: String,
+    /// The reading.
+    pub reading: Reading,
+    /// Voltage at the ADC including the zero offset, V.
+    pub adc_v: f64,
+    /// Margins.
+    pub margins: Vec<Margin>,
+    /// Output against load over the ramp.
+    pub ramp: Vec<RampPoint>,
+}
+
+/// Response of a bridge to one unit of one load component.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Sensitivity {
+    /// Component.
+    pub component: LoadComponent,
+    /// Displayed strain per unit (SI unit of the component).
+    pub displayed_per_unit: f64,
+    /// Output per unit, mV/V.
+    pub mv_per_v_per_unit: f64,
+}
+
+/// How much of an unwanted component reaches the reading.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Rejection {
+    /// Unwanted component.
+    pub component: LoadComponent,
+    /// Its expected magnitude (largest over the load cases), SI.
+    pub expected: f64,
+    /// Its output at that magnitude over the wanted output at the wanted magnitude.
+    pub leakage_fraction: f64,
+    /// 20 log10(1 / leakage), dB (capped at 200 dB for exact cancellation).
+    pub rejection_db: f64,
+}
+
+/// Everything computed for one bridge.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct BridgeEvaluation {
+    /// Bridge name.
+    pub name: String,
+    /// Arrangement name.
+    pub arrangement: String,
+    /// Wanted component.
+    pub wanted: LoadComponent,
+    /// Acquisition channel number.
+    pub channel_number: u32,
+    /// Set excitation as a bridge voltage, V.
+    pub excitation_v: f64,
+    /// Per load case.
+    pub cases: Vec<BridgeCase>,
+    /// Per unit of each component the part carries.
+    pub sensitivities: Vec<Sensitivity>,
+    /// Rejection of each unwanted component.
+    pub rejection: Vec<Rejection>,
+    /// Apparent strain against temperature (range of the first load case).
+    pub temperature: Vec<ThermalPoint>,
+    /// Signal-chain figures.
+    pub channel: ChannelFigures,
+    /// Shunt calibration.
+    pub shunt: Option<ShuntCalibration>,
+    /// Uncertainty at the load case with the largest wanted load.
+    pub uncertainty: Option<BridgeUncertainty>,
+    /// Load case the uncertainty refers to.
+    pub uncertainty_case: Option<String>,
+    /// Worst-case zero offset from resistance tolerances, ± mV/V.
+    pub zero_offset_band_mv_per_v: f64,
+    /// Expected resistance between connector pins (with leads), Ω.
+    pub pin_resistances: Vec<(String, f64)>,
+}
+
+/// A load case's part-level figures.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct CaseFigures {
+    /// Load case name.
+    pub case: String,
+    /// Largest von Mises stress on the part, Pa.
+    pub peak_von_mises_pa: f64,
+    /// Yield strength over the peak stress.
+    pub safety_factor_to_yield: f64,
+}
+
+/// Everything computed for one part.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct PartEvaluation {
+    /// Part name.
+    pub name: String,
+    /// Member kind.
+    pub kind: String,
+    /// Per load case.
+    pub cases: Vec<CaseFigures>,
+    /// Bridges that could be evaluated (others appear as findings).
+    pub bridges: Vec<BridgeEvaluation>,
+    /// Index in the part's bridge list of each evaluated bridge.
+    pub bridge_indices: Vec<usize>,
+    /// Multi-bridge analysis when the part has two or more bridges.
+    pub multi_axis: Option<MultiAxis>,
+}
+
+/// The whole plan evaluated.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Evaluation {
+    /// Project name.
+    pub project: String,
+    /// Parts.
+    pub parts: Vec<PartEvaluation>,
+    /// Problems and failed or close margins, most serious first.
+    pub findings: Vec<Finding>,
+    /// Cautions that apply to this plan.
+    pub cautions: Vec<Caution>,
+}
+
+impl Evaluation {
+    /// True when any margin fails or anything could not be computed.
+    pub fn has_failures(&self) -> bool {
+        self.findings
+            .iter()
+            .any(|f| matches!(f.severity, Severity::Fail | Severity::Error))
+    }
+}
+
+/// Evaluates the whole project. Never panics on bad data: what cannot be computed becomes a
+/// finding and the rest is still evaluated.
+pub fn evaluate(project: &Project, options: &EvalOptions) -> Evaluation {
+    let mut findings = Vec::new();
+    let mut parts = Vec::new();
+    for (pi, part) in project.parts.iter().enumerate() {
+        if let Err(e) = validate_part(part) {
+            findings.push(Finding {
+                severity: Severity::Error,
+                message: e.to_string(),
+                target: Target::Part { part: pi },
+            });
+            continue;
+        }
+        parts.push(evaluate_part(project, pi, part, options, &mut findings));
+    }
+    findings.sort_by_key(|f| f.severity);
+    Evaluation {
+        project: project.name.clone(),
+        parts,
+        findings,
+        cautions: cautions(project),
+    }
+}
+
+fn evaluate_part(
+    project: &Project,
+    pi: usize,
+    part: &Part,
+    options: &EvalOptions,
+    findings: &mut Vec<Finding>,
+) -> PartEvaluation {
+    let member = &part.member;
+    let material = member.material();
+    for w in member.warnings() {
+        findings.push(Finding {
+            severity: Severity::Warn,
+            message: format!("part \"{}\": {w}", part.name),
+            target: Target::Part { part: pi },
+        });
+    }
+    let warn = project.warn_utilisation;
+    let mut cases = Vec::new();
+    for (ci, case) in part.load_cases.iter().enumerate() {
+        match member.peak_von_mises(&case.load_vector(), options.peak_samples) {
+            Ok((peak, _)) => {
+                let m = Margin::new(
+                    MarginKind::PeakStressInPart,
+                    peak,
+                    material.yield_strength_pa,
+                    warn,
+                );
+                push_margin(
+                    findings,
+                    &m,
+                    format!("part \"{}\", {}", part.name, case.name),
+                    Target::LoadCase { part: pi, case: ci },
+                );
+                cases.push(CaseFigures {
+                    case: case.name.clone(),
+                    peak_von_mises_pa: peak,
+                    safety_factor_to_yield: m.safety_factor(),
+                });
+            }
+            Err(e) => findings.push(Finding {
+                severity: Severity::Error,
+                message: format!("part \"{}\", {}: {e}", part.name, case.name),
+                target: Target::LoadCase { part: pi, case: ci },
+            }),
+        }
+    }
+    let setup = Setup {
+        member,
+        gauges: &part.gauges,
+        reference_temperature_c: project.reference_temperature_c,
+        quadrature: options.quadrature,
+    };
+    let expected = expected_magnitudes(part);
+    let mut bridges = Vec::new();
+    let mut bridge_indices = Vec::new();
+    let mut models = Vec::new();
+    for (bi, plan) in part.bridges.iter().enumerate() {
+        let target = Target::Bridge {
+            part: pi,
+            bridge: bi,
+        };
+        let result = bridge_from_plan(part, plan)
+            .map_err(|e| e.to_string())
+            .and_then(|b| BridgeModel::new(&setup, &b).map_err(|e| e.to_string()))
+            .and_then(|model| {
+                evaluate_bridge(project, part, &model, &expected, options, pi, bi, findings)
+                    .map(|ev| (ev, model))
+                    .map_err(|e| e.to_string())
+            });
+        match result {
+            Ok((ev, model)) => {
+                bridges.push(ev);
+                bridge_indices.push(bi);
+                models.push(model);
+            }
+            Err(message) => findings.push(Finding {
+                severity: Severity::Error,
+                message: format!(
+                    "part \"{}\", bridge \"{}\": {message}",
+                    part.name, plan.name
+                ),
+                target,
+            }),
+        }
+    }
+    let multi = match multi_axis(&models, member.components()) {
+        Ok(m) => m,
+        Err(e) => {
+            findings.push(Finding {
+                severity: Severity::Warn,
+                message: format!("part \"{}\": {e}", part.name),
+                target: Target::Part { part: pi },
+            });
+            None
+        }
+    };
+    if let Some(m) = &multi
+        && m.condition_number > 100.0
+    {
+        findings.push(Finding {
+            severity: Severity::Warn,
+            message: format!(
+                "part \"{}\": the bridges separate the loads poorly (condition number {:.0}); \
+                 small reading errors become large load errors",
+                part.name, m.condition_number
+            ),
+            target: Target::Part { part: pi },
+        });
+    }
+    PartEvaluation {
+        name: part.name.clone(),
+        kind: member.kind_name().to_owned(),
+        cases,
+        bridges,
+        bridge_indices,
+        multi_axis: multi,
+    }
+}
+
+fn push_margin(findings: &mut Vec<Finding>, m: &Margin, place: String, target: Target) {
+    let severity = match m.status {
+        MarginStatus::Pass => return,
+        MarginStatus::Warn => Severity::Warn,
+        MarginStatus::Fail => Severity::Fail,
+    };
+    findings.push(Finding {
+        severity,
+        message: format!(
+            "{place}: {} at {:.0} % ({} {})",
+            m.kind.name(),
+            m.utilisation * 100.0,
+            m.status.word(),
+            if m.status == MarginStatus::Fail {
+                "— change the plan before testing"
+            } else {
+                "— little margin left"
+            }
+        ),
+        target,
+    });
+}
+
+#[allow(clippy::too_many_arguments)]
+fn evaluate_bridge(
+    project: &Project,
+    part: &Part,
+    model: &BridgeModel,
+    expected: &[(LoadComponent, f64)],
+    options: &EvalOptions,
+    pi: usize,
+    bi: usize,
+    findings: &mut Vec<Finding>,
+) -> Result<BridgeEvaluation, gw_bridge::BridgeError> {
+    let plan = &part.bridges[bi];
+    let b = model.bridge();
+    let member = &part.member;
+    let material = member.material();
+    let warn = project.warn_utilisation;
+    let channel = channel_figures(model)?;
+    let target = Target::Bridge {
+        part: pi,
+        bridge: bi,
+    };
+    let place = |case: &str| format!("part \"{}\", bridge \"{}\", {case}", part.name, plan.name);
+
+    // Grids of this bridge, for strain and stress margins.
+    let grids: Vec<usize> = (0..4)
+        .filter(|&k| matches!(b.arms[k], ArmElement::Grid(_)))
+        .collect();
+    let strain_limit = grids
+        .iter()
+        .filter_map(|&k| model.spec(k).map(|s| s.strain_limit))
+        .fold(f64::INFINITY, f64::min);
+    let fatigue_limit = grids
+        .iter()
+        .filter_map(|&k| model.spec(k).map(|s| s.fatigue_strain_limit))
+        .fold(f64::INFINITY, f64::min);
+    let power_util = (0..4)
+        .filter(|&k| channel.arm_power_limit_w_m2[k] > 0.0)
+        .map(|k| {
+            (
+                channel.arm_power_density_w_m2[k],
+                channel.arm_power_limit_w_m2[k],
+            )
+        })
+        .fold((0.0, f64::INFINITY), |(d, l), (dk, lk)| {
+            if dk / lk > d / l { (dk, lk) } else { (d, l) }
+        });
+
+    let mut cases = Vec::new();
+    for case in &part.load_cases {
+        let loads = case.load_vector();
+        let reading = model.reading(&loads)?;
+        let adc_v = adc_volts(model, &reading);
+        let mut margins = Vec::new();
+        margins.push(Margin::new(
+            MarginKind::GridStrainLimit,
+            reading.max_grid_strain,
+            strain_limit,
+            warn,
+        ));
+        if case.cycled {
+            margins.push(Margin::new(
+                MarginKind::GridFatigue,
+                reading.max_grid_strain,
+                fatigue_limit,
+                warn,
+            ));
+        }
+        let stress_at_gauge = grids
+            .iter()
+            .filter_map(|&k| model.footprint(k))
+            .filter_map(|f| member.state(&f.center, &loads).ok())
+            .map(|s| s.von_mises_pa(material))
+            .fold(0.0, f64::max);
+        margins.push(Margin::new(
+            MarginKind::StressAtGauge,
+            stress_at_gauge,
+            material.yield_strength_pa,
+            warn,
+        ));
+        margins.push(Margin::new(
+            MarginKind::InputRange,
+            adc_v,
+            b.signal.input_range_v,
+            warn,
+        ));
+        // The smallest change the channel resolves: one count or the noise floor, whichever
+        // is larger.
+        let resolvable = channel.resolution_strain.max(channel.noise_strain_rms);
+        margins.push(Margin::new(
+            MarginKind::Resolution,
+            resolvable,
+            part.required_resolution_strain,
+            warn,
+        ));
+        if power_util.1.is_finite() {
+            margins.push(Margin::new(
+                MarginKind::SelfHeating,
+                power_util.0,
+                power_util.1,
+                warn,
+            ));
+        }
+        for m in &margins {
+            push_margin(findings, m, place(&case.name), target);
+        }
+        let steps = case.ramp_steps.max(1);
+        let mut ramp = Vec::with_capacity(steps as usize + 1);
+        for i in 0..=steps {
+            let fraction = i as f64 / steps as f64;
+            let mut l = loads.scaled(fraction);
+            // Temperature is the case's condition, not ramped with the load.
+            l[LoadComponent::TemperatureChange] = loads[LoadComponent::TemperatureChange];
+            let d = model.displayed(&l)?;
+            ramp.push(RampPoint {
+                fraction,
+                wanted_value: loads[b.wanted] * fraction,
+                displayed_strain: d,
+                linear_strain: 0.0,
+            });
+        }
+        let (first, last) = (
+            ramp[0].displayed_strain,
+            ramp[ramp.len() - 1].displayed_strain,
+        );
+        for p in &mut ramp {
+            p.linear_strain = first + (last - first) * p.fraction;
+        }
+        cases.push(BridgeCase {
+            case: case.name.clone(),
+            reading,
+            adc_v,
+            margins,
+            ramp,
+        });
+    }
+
+    let vex = model.nominal_excitation_v();
+    let gf_bf = b.instrument.gauge_factor * b.instrument.bridge_factor;
+    let mut sensitivities = Vec::new();
+    for &c in member.components() {
+        let s = model.sensitivity(c)?;
+        sensitivities.push(Sensitivity {
+            component: c,
+            displayed_per_unit: s,
+            mv_per_v_per_unit: s * gf_bf / 4.0 * 1e3,
+        });
+    }
+    let s_w = sensitivities
+        .iter()
+        .find(|s| s.component == b.wanted)
+        .map(|s| s.displayed_per_unit)
+        .unwrap_or(0.0);
+    let m_w = expected
+        .iter()
+        .find(|(c, _)| *c == b.wanted)
+        .map(|(_, m)| *m)
+        .unwrap_or(0.0);
+    let rejection = sensitivities
+        .iter()
+        .filter(|s| s.component != b.wanted)
+        .filter_map(|s| {
+            let m = expected
+                .iter()
+                .find(|(c, _)| *c == s.component)
+                .map(|(_, m)| *m)?;
+            let full = (s_w * m_w).abs();
+            let leakage_fraction = if full > 0.0 {
+                (s.displayed_per_unit * m).abs() / full
+            } else {
+                f64::INFINITY
+            };
+            Some(Rejection {
+                component: s.component,
+                expected: m,
+                leakage_fraction,
+                rejection_db: if leakage_fraction > 1e-10 {
+                    -20.0 * leakage_fraction.log10()
+                } else {
+                    200.0
+                },
+            })
+        })
+        .collect();
+    let (lo, hi) = part
+        .load_cases
+        .first()
+        .map(|c| c.temperature_range_c)
+        .unwrap_or((-20.0, 40.0));
+    let full_case = part
+        .load_cases
+        .iter()
+        .max_by(|a, b2| a.value(b.wanted).abs().total_cmp(&b2.value(b.wanted).abs()));
+    let full = full_case
+        .map(|c| c.load_vector())
+        .unwrap_or(LoadVector::ZERO);
+    let temperature = thermal_sweep(model, lo, hi, options.temperature_steps, &full)?;
+    let shunt = shunt_calibration(model)?;
+    let uncertainty = match (options.uncertainty, full_case) {
+        (UncertaintyDepth::Off, _) | (_, None) => None,
+        (depth, Some(case)) => {
+            let mut tol = part.tolerances;
+            tol.monte_carlo_trials = match depth {
+                UncertaintyDepth::Gum => 0,
+                _ if options.monte_carlo_trials > 0 => options.monte_carlo_trials,
+                _ => tol.monte_carlo_trials,
+            };
+            let mut l = case.load_vector();
+            l[LoadComponent::TemperatureChange] = case.value(LoadComponent::TemperatureChange);
+            Some(bridge_uncertainty(
+                member,
+                model,
+                &l,
+                &channel,
+                &tol,
+                options.quadrature,
+            )?)
+        }
+    };
+    let uncertainty_case = uncertainty.as_ref().and(full_case.map(|c| c.name.clone()));
+    // Worst-case zero offset: each arm's resistance tolerance moves Vo/Vex by a quarter of it.
+    let zero_offset_band_mv_per_v = (0..4)
+        .map(|k| match b.arms[k] {
+            ArmElement::Completion(c) => c.tolerance,
+            _ => model.spec(k).map(|s| s.resistance_tolerance).unwrap_or(0.0),
+        })
+        .sum::<f64>()
+        / 4.0
+        * 1e3;
+    let pin_resistances = crate::wiring::pin_resistances(model);
+    Ok(BridgeEvaluation {
+        name: plan.name.clone(),
+        arrangement: plan.arrangement.clone(),
+        wanted: b.wanted,
+        channel_number: plan.channel,
+        excitation_v: vex,
+        cases,
+        sensitivities,
+        rejection,
+        temperature,
+        channel,
+        shunt,
+        uncertainty,
+        uncertainty_case,
+        zero_offset_band_mv_per_v,
+        pin_resistances,
+    })
+}

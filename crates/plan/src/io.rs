@@ -1,0 +1,122 @@
+//! Reading and writing project files: RON with a format version, clear messages for broken
+//! files, atomic saves with a backup.
+
+use std::path::{Path, PathBuf};
+
+use serde::Deserialize;
+use thiserror::Error;
+
+use crate::document::{FORMAT_VERSION, Project};
+use crate::validate::validate_project;
+
+/// Why a project could not be read or written.
+#[derive(Debug, Clone, PartialEq, Error)]
+pub enum PlanError {
+    /// The file could not be read or written.
+    #[error("{path}: {message}")]
+    Io { path: String, message: String },
+    /// The text is not a valid project (syntax or wrong type), with its position.
+    #[error("line {line}, column {column}: {message}; correct the file or open its backup (.bak)")]
+    Syntax {
+        line: usize,
+        column: usize,
+        message: String,
+    },
+    /// The file was written by a newer or unknown format.
+    #[error(
+        "format version {found} is not known to this Gaugewright, which reads versions 1 to {supported}; \
+         open it with a newer Gaugewright"
+    )]
+    UnknownVersion { found: u32, supported: u32 },
+    /// A value is out of range.
+    #[error("{path}: {message}")]
+    Invalid { path: String, message: String },
+}
+
+#[derive(Deserialize)]
+struct VersionProbe {
+    format_version: u32,
+}
+
+fn syntax(e: &ron::error::SpannedError) -> PlanError {
+    PlanError::Syntax {
+        line: e.span.start.line,
+        column: e.span.start.col,
+        message: e.code.to_string(),
+    }
+}
+
+/// Upgrades an older document in place. Version 1 is the first; later versions add their
+/// step here.
+fn migrate(text: &str, from: u32) -> Result<String, PlanError> {
+    match from {
+        FORMAT_VERSION => Ok(text.to_owned()),
+        found => Err(PlanError::UnknownVersion {
+            found,
+            supported: FORMAT_VERSION,
+        }),
+    }
+}
+
+/// Parses and validates a project from RON text.
+pub fn project_from_str(text: &str) -> Result<Project, PlanError> {
+    let probe: VersionProbe = ron::from_str(text).map_err(|e| syntax(&e))?;
+    if probe.format_version == 0 || probe.format_version > FORMAT_VERSION {
+        return Err(PlanError::UnknownVersion {
+            found: probe.format_version,
+            supported: FORMAT_VERSION,
+        });
+    }
+    let text = migrate(text, probe.format_version)?;
+    let project: Project = ron::from_str(&text).map_err(|e| syntax(&e))?;
+    validate_project(&project)?;
+    Ok(project)
+}
+
+/// Serialises a project to pretty RON.
+pub fn project_to_string(project: &Project) -> Result<String, PlanError> {
+    let config = ron::ser::PrettyConfig::new()
+        .depth_limit(12)
+        .struct_names(false)
+        .indentor("  ");
+    ron::ser::to_string_pretty(project, config).map_err(|e| PlanError::Io {
+        path: "project".into(),
+        message: format!("could not write the project as text: {e}"),
+    })
+}
+
+/// Reads a project file.
+pub fn load_project(path: &Path) -> Result<Project, PlanError> {
+    let text = std::fs::read_to_string(path).map_err(|e| PlanError::Io {
+        path: path.display().to_string(),
+        message: format!("could not read the file ({e})"),
+    })?;
+    project_from_str(&text)
+}
+
+/// The backup kept beside a saved file.
+pub fn backup_path(path: &Path) -> PathBuf {
+    let mut p = path.as_os_str().to_owned();
+    p.push(".bak");
+    PathBuf::from(p)
+}
+
+/// Saves atomically: writes a temporary file beside the target, keeps the previous version as
+/// `<file>.bak`, then renames the temporary file into place.
+pub fn save_project(project: &Project, path: &Path) -> Result<(), PlanError> {
+    let text = project_to_string(project)?;
+    let io = |message: String| PlanError::Io {
+        path: path.display().to_string(),
+        message,
+    };
+    let mut tmp = path.as_os_str().to_owned();
+    tmp.push(".tmp");
+    let tmp = PathBuf::from(tmp);
+    std::fs::write(&tmp, text).map_err(|e| io(format!("could not write ({e})")))?;
+    if path.exists() {
+        std::fs::copy(path, backup_path(path))
+            .map_err(|e| io(format!("could not keep the backup ({e})")))?;
+    }
+    std::fs::rename(&tmp, path).map_err(|e| io(format!("could not replace the file ({e})")))?;
+    Ok(())
+}

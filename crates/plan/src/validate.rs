@@ -1,0 +1,202 @@
+//! Checks a project's values before anything is computed. Every message names the place
+//! (part, load case, gauge, bridge) and the value.
+
+use gw_bridge::{ArmElement, Bridge, GridRef};
+use gw_mechanics::{LoadComponent, LoadVector};
+
+use crate::document::{BridgePlan, Part, PlanArm, Project};
+use crate::io::PlanError;
+
+fn invalid(path: String, message: impl Into<String>) -> PlanError {
+    PlanError::Invalid {
+        path,
+        message: message.into(),
+    }
+}
+
+/// Checks the whole project.
+pub fn validate_project(project: &Project) -> Result<(), PlanError> {
+    if !project.reference_temperature_c.is_finite() {
+        return Err(invalid(
+            "project".into(),
+            "reference temperature is not a number",
+        ));
+    }
+    if !(project.warn_utilisation > 0.0 && project.warn_utilisation <= 1.0) {
+        return Err(invalid(
+            "project".into(),
+            format!(
+                "warning level {} must lie between 0 and 1 (e.g. 0.8)",
+                project.warn_utilisation
+            ),
+        ));
+    }
+    for part in &project.parts {
+        validate_part(part)?;
+    }
+    Ok(())
+}
+
+/// Checks one part.
+pub fn validate_part(part: &Part) -> Result<(), PlanError> {
+    let here = format!("part \"{}\"", part.name);
+    part.member
+        .validate()
+        .map_err(|e| invalid(here.clone(), e.to_string()))?;
+    if !(part.required_resolution_strain.is_finite() && part.required_resolution_strain > 0.0) {
+        return Err(invalid(
+            here.clone(),
+            format!(
+                "required resolution {} must be a positive strain (e.g. 1e-6 for 1 µε)",
+                part.required_resolution_strain
+            ),
+        ));
+    }
+    let carried = part.member.components();
+    for case in &part.load_cases {
+        let at = format!("{here} › load case \"{}\"", case.name);
+        for (c, v) in &case.loads {
+            if !v.is_finite() {
+                return Err(invalid(at.clone(), format!("{} is not a number", c.name())));
+            }
+            if !carried.contains(c) {
+                let names: Vec<&str> = carried.iter().map(|c| c.name()).collect();
+                return Err(invalid(
+                    at.clone(),
+                    format!(
+                        "a {} carries no {}; use one of: {}",
+                        part.member.kind_name(),
+                        c.name(),
+                        names.join(", ")
+                    ),
+                ));
+            }
+        }
+        let (lo, hi) = case.temperature_range_c;
+        if !(lo.is_finite() && hi.is_finite() && lo <= hi) {
+            return Err(invalid(
+                at,
+                format!("temperature range {lo} to {hi} °C must run from low to high"),
+            ));
+        }
+        if case.ramp_steps == 0 || case.ramp_steps > 1000 {
+            return Err(invalid(
+                format!("{here} › load case \"{}\"", case.name),
+                format!("ramp steps {} must lie between 1 and 1000", case.ramp_steps),
+            ));
+        }
+    }
+    let mut ids: Vec<&str> = Vec::new();
+    for gauge in &part.gauges {
+        let at = format!("{here} › gauge \"{}\"", gauge.id);
+        if gauge.id.trim().is_empty() {
+            return Err(invalid(
+                here.clone(),
+                "a gauge has no identifier; give every gauge a short id such as G1",
+            ));
+        }
+        if ids.contains(&gauge.id.as_str()) {
+            return Err(invalid(
+                at,
+                "this identifier is used twice; give each gauge its own",
+            ));
+        }
+        ids.push(&gauge.id);
+        gauge
+            .spec
+            .validate()
+            .map_err(|e| invalid(at.clone(), e.to_string()))?;
+        part.member
+            .state(&gauge.position, &LoadVector::ZERO)
+            .map_err(|e| invalid(at.clone(), e.to_string()))?;
+        if !gauge.angle_rad.is_finite() {
+            return Err(invalid(at, "angle is not a number"));
+        }
+    }
+    for plan in &part.bridges {
+        let bridge = bridge_from_plan(part, plan)?;
+        bridge
+            .validate(&part.gauges)
+            .map_err(|e| invalid(format!("{here} › bridge \"{}\"", plan.name), e.to_string()))?;
+        if !carried.contains(&plan.wanted) {
+            return Err(invalid(
+                format!("{here} › bridge \"{}\"", plan.name),
+                format!(
+                    "measures {}, which a {} does not carry",
+                    plan.wanted.name(),
+                    part.member.kind_name()
+                ),
+            ));
+        }
+    }
+    Ok(())
+}
+
+/// Resolves gauge ids into indices: the bridge as the measurement core sees it.
+pub fn bridge_from_plan(part: &Part, plan: &BridgePlan) -> Result<Bridge, PlanError> {
+    let here = format!("part \"{}\" › bridge \"{}\"", part.name, plan.name);
+    let resolve = |k: usize, gauge: &str, grid: usize| -> Result<GridRef, PlanError> {
+        let Some(index) = part.gauges.iter().position(|g| g.id == gauge) else {
+            return Err(invalid(
+                here.clone(),
+                format!(
+                    "arm {} refers to gauge \"{gauge}\", which is not on this part",
+                    k + 1
+                ),
+            ));
+        };
+        if grid == 0 || grid > part.gauges[index].element_count() {
+            return Err(invalid(
+                here.clone(),
+                format!(
+                    "arm {} refers to grid {grid} of gauge \"{gauge}\", which has {} grid(s)",
+                    k + 1,
+                    part.gauges[index].element_count()
+                ),
+            ));
+        }
+        Ok(GridRef {
+            gauge: index,
+            element: grid - 1,
+        })
+    };
+    let mut arms = [ArmElement::Completion(gw_bridge::CompletionResistor {
+        ohm: 350.0,
+        tolerance: 0.0,
+        tcr_per_c: 0.0,
+    }); 4];
+    for (k, arm) in plan.arms.iter().enumerate() {
+        arms[k] = match arm {
+            PlanArm::Grid { gauge, grid } => ArmElement::Grid(resolve(k, gauge, *grid)?),
+            PlanArm::Dummy { gauge, grid } => ArmElement::Dummy(resolve(k, gauge, *grid)?),
+            PlanArm::Completion(c) => ArmElement::Completion(*c),
+        };
+    }
+    Ok(Bridge {
+        name: plan.name.clone(),
+        arms,
+        wiring: plan.wiring,
+        lead: plan.lead,
+        excitation: plan.excitation,
+        amplifier_input_ohm: plan.amplifier_input_ohm,
+        instrument: plan.instrument,
+        signal: plan.signal,
+        wanted: plan.wanted,
+        instrument_temperature: plan.instrument_temperature,
+        shunt: plan.shunt,
+    })
+}
+
+/// The largest magnitude of each component over a part's load cases (for rejection ratios).
+pub fn expected_magnitudes(part: &Part) -> Vec<(LoadComponent, f64)> {
+    let mut out: Vec<(LoadComponent, f64)> = Vec::new();
+    for case in &part.load_cases {
+        for (c, v) in &case.loads {
+            match out.iter_mut().find(|(k, _)| k == c) {
+                Some(entry) => entry.1 = entry.1.max(v.abs()),
+                None => out.push((*c, v.abs())),
+            }
+        }
+    }
+    out
+}
