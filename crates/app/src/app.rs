@@ -1,28 +1,553 @@
-//! The application state and its frame.
+//! The application: menus, panels, shortcuts, files and the command loop.
 
+use std::path::PathBuf;
+
+use crate::command::Command;
+use crate::panels::bridges::BridgesPanel;
+use crate::panels::canvas::CanvasPanel;
+use crate::panels::findings::FindingsPanel;
+use crate::panels::help::HelpPanel;
+use crate::panels::plots::PlotsPanel;
+use crate::panels::project::ProjectPanel;
 use crate::screenshot::ScreenshotRequest;
+use crate::settings::{AppPaths, Settings};
+use crate::state::{DocumentState, Notice};
+use crate::units::Units;
+
+/// The central tabs.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Tab {
+    /// The part with its colour map and gauges.
+    Layout,
+    /// Bridges: schematic, arms, arrangements, suggestions.
+    Bridges,
+    /// Plots and tables.
+    Results,
+    /// Method, assumptions and cautions.
+    Help,
+}
+
+/// How files are picked. Default: the desktop's dialog, falling back to a typed path.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum FileDialogs {
+    /// Native dialogs via the desktop portal.
+    #[default]
+    Native,
+    /// Always ask for a typed path (no desktop portal, or tests).
+    TypedPath,
+}
+
+/// What to do after the user confirms discarding unsaved work.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Pending {
+    /// Start a new project.
+    New,
+    /// Open the bundled demo.
+    OpenDemo,
+    /// Open this file.
+    Open(PathBuf),
+    /// Ask for a file to open.
+    PickOpen,
+}
+
+/// A dialog over the app.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Modal {
+    /// Type a path to open.
+    OpenPath(String),
+    /// Type a path to save to.
+    SavePath(String),
+    /// Unsaved changes would be lost.
+    ConfirmDiscard(Pending),
+    /// A recovery file from an earlier session exists.
+    Recover(PathBuf),
+}
+
+/// Autosave interval, seconds.
+const AUTOSAVE_S: f64 = 60.0;
 
 /// The Gaugewright desktop app.
 pub struct GaugewrightApp {
+    /// The document.
+    pub doc: DocumentState,
+    /// Current tab.
+    pub tab: Tab,
+    /// Open dialog, if any.
+    pub modal: Option<Modal>,
+    /// File-dialog behaviour.
+    pub dialogs: FileDialogs,
+    project_panel: ProjectPanel,
+    canvas: CanvasPanel,
+    bridges: BridgesPanel,
+    plots: PlotsPanel,
+    findings: FindingsPanel,
+    help: HelpPanel,
+    settings: Settings,
+    paths: AppPaths,
     screenshot: Option<ScreenshotRequest>,
+    last_title: String,
+    last_autosave_s: f64,
 }
 
 impl GaugewrightApp {
-    /// A new app; `screenshot` saves the window after a few frames and closes it.
-    pub fn new(screenshot: Option<ScreenshotRequest>) -> Self {
-        Self { screenshot }
+    /// Starts on the last project (or the bundled demo on the first run), offering to recover
+    /// unsaved work if a recovery file exists.
+    pub fn new(paths: AppPaths, screenshot: Option<ScreenshotRequest>) -> Self {
+        let settings = Settings::load(paths.settings.as_deref());
+        let mut doc = DocumentState::new(gw_plan::demo::demo_project(), None);
+        let mut modal = None;
+        if settings.has_run
+            && let Some(last) = settings.recent_files.first()
+            && let Ok(p) = gw_plan::load_project(last)
+        {
+            doc = DocumentState::new(p, Some(last.clone()));
+        }
+        doc.units = settings.units;
+        if let Some(r) = paths.recovery.as_ref().filter(|r| r.exists()) {
+            modal = Some(Modal::Recover(r.clone()));
+        }
+        let mut app = Self::with_document(doc, paths, screenshot);
+        app.modal = modal;
+        app.settings = settings;
+        app.settings.has_run = true;
+        app.settings.save(app.paths.settings.as_deref());
+        app
+    }
+
+    /// An app on a given document, remembering nothing (tests and screenshots).
+    pub fn with_document(
+        doc: DocumentState,
+        paths: AppPaths,
+        screenshot: Option<ScreenshotRequest>,
+    ) -> Self {
+        Self {
+            doc,
+            tab: Tab::Layout,
+            modal: None,
+            dialogs: FileDialogs::default(),
+            project_panel: ProjectPanel::default(),
+            canvas: CanvasPanel::default(),
+            bridges: BridgesPanel::default(),
+            plots: PlotsPanel::default(),
+            findings: FindingsPanel,
+            help: HelpPanel,
+            settings: Settings::default(),
+            paths,
+            screenshot,
+            last_title: String::new(),
+            last_autosave_s: 0.0,
+        }
+    }
+
+    fn run_pending(&mut self, pending: Pending) {
+        match pending {
+            Pending::New => {
+                let mut p = gw_plan::demo::demo_project();
+                p.name = "New project".into();
+                p.parts.truncate(1);
+                p.parts[0].gauges.clear();
+                p.parts[0].bridges.truncate(1);
+                p.parts[0].bridges[0].arms = std::array::from_fn(|_| {
+                    gw_plan::PlanArm::Completion(gw_bridge::CompletionResistor {
+                        ohm: 350.0,
+                        tolerance: 0.0005,
+                        tcr_per_c: 5e-6,
+                    })
+                });
+                p.parts[0].bridges[0].arrangement = String::new();
+                p.parts[0].bridges[0].shunt = None;
+                self.doc.apply_all(vec![Command::ReplaceProject {
+                    project: Box::new(p),
+                    path: None,
+                }]);
+            }
+            Pending::OpenDemo => {
+                self.doc.apply_all(vec![Command::ReplaceProject {
+                    project: Box::new(gw_plan::demo::demo_project()),
+                    path: None,
+                }]);
+            }
+            Pending::Open(path) => self.open_path(&path),
+            Pending::PickOpen => self.pick_open(),
+        }
+    }
+
+    /// Runs `pending` now, or asks first when there are unsaved changes.
+    pub fn guarded(&mut self, pending: Pending) {
+        if self.doc.dirty {
+            self.modal = Some(Modal::ConfirmDiscard(pending));
+        } else {
+            self.run_pending(pending);
+        }
+    }
+
+    fn pick_open(&mut self) {
+        if self.dialogs == FileDialogs::Native
+            && let Some(p) = rfd::FileDialog::new()
+                .add_filter("Gaugewright project", &["ron"])
+                .pick_file()
+        {
+            self.open_path(&p);
+            return;
+        }
+        // No dialog appeared (no desktop portal) or it was cancelled: offer a typed path.
+        self.modal = Some(Modal::OpenPath(String::new()));
+    }
+
+    fn pick_save(&mut self) {
+        if self.dialogs == FileDialogs::Native
+            && let Some(p) = rfd::FileDialog::new()
+                .add_filter("Gaugewright project", &["ron"])
+                .set_file_name("project.ron")
+                .save_file()
+        {
+            self.save_path(&p);
+            return;
+        }
+        let current = self
+            .doc
+            .path
+            .as_ref()
+            .map(|p| p.display().to_string())
+            .unwrap_or_default();
+        self.modal = Some(Modal::SavePath(current));
+    }
+
+    /// Opens a file (a failure leaves the open project untouched and says why).
+    pub fn open_path(&mut self, path: &std::path::Path) {
+        self.doc.open(path);
+        if self.doc.path.as_deref() == Some(path) {
+            self.settings.remember(path);
+            self.settings.save(self.paths.settings.as_deref());
+        }
+    }
+
+    /// Saves to a path and remembers it.
+    pub fn save_path(&mut self, path: &std::path::Path) {
+        if self.doc.save_to(path) {
+            self.settings.remember(path);
+            self.settings.save(self.paths.settings.as_deref());
+            if let Some(r) = &self.paths.recovery {
+                let _ = std::fs::remove_file(r);
+            }
+        }
+    }
+
+    /// Save, or Save as when the project has no file yet.
+    pub fn save(&mut self) {
+        match self.doc.path.clone() {
+            Some(p) => self.save_path(&p),
+            None => self.pick_save(),
+        }
+    }
+
+    fn autosave(&mut self, now_s: f64) {
+        if now_s - self.last_autosave_s < AUTOSAVE_S {
+            return;
+        }
+        self.last_autosave_s = now_s;
+        if let (true, Some(r)) = (self.doc.dirty, self.paths.recovery.as_ref()) {
+            if let Some(dir) = r.parent() {
+                let _ = std::fs::create_dir_all(dir);
+            }
+            let _ = gw_plan::save_project(&self.doc.project, r);
+        }
+    }
+
+    fn shortcuts(&mut self, ui: &egui::Ui, out: &mut Vec<Command>) {
+        use egui::{Key, KeyboardShortcut, Modifiers};
+        let typing = ui.ctx().egui_wants_keyboard_input();
+        let (undo, redo, redo_y, new, open, save, delete) = ui.input_mut(|i| {
+            (
+                i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::Z)),
+                i.consume_shortcut(&KeyboardShortcut::new(
+                    Modifiers::COMMAND | Modifiers::SHIFT,
+                    Key::Z,
+                )),
+                i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::Y)),
+                i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::N)),
+                i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::O)),
+                i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::S)),
+                !typing && i.key_pressed(Key::Delete),
+            )
+        });
+        if redo || redo_y {
+            out.push(Command::Redo);
+        } else if undo {
+            out.push(Command::Undo);
+        }
+        if new {
+            self.guarded(Pending::New);
+        }
+        if open {
+            self.guarded(Pending::PickOpen);
+        }
+        if save {
+            self.save();
+        }
+        if delete && let Some(g) = self.doc.selection.gauge {
+            out.push(Command::DeleteGauge {
+                part: self.doc.selection.part,
+                gauge: g,
+            });
+        }
+    }
+
+    fn menu_ui(&mut self, ui: &mut egui::Ui, out: &mut Vec<Command>) {
+        egui::MenuBar::new().ui(ui, |ui| {
+            ui.menu_button("File", |ui| {
+                if ui
+                    .button("New")
+                    .on_hover_text("Start a new project (Ctrl+N)")
+                    .clicked()
+                {
+                    self.guarded(Pending::New);
+                }
+                if ui
+                    .button("Open…")
+                    .on_hover_text("Open a project file (Ctrl+O)")
+                    .clicked()
+                {
+                    self.guarded(Pending::PickOpen);
+                }
+                if ui
+                    .button("Open the demo")
+                    .on_hover_text("Open the bundled demo project")
+                    .clicked()
+                {
+                    self.guarded(Pending::OpenDemo);
+                }
+                ui.menu_button("Recent", |ui| {
+                    let recent = self.settings.recent_files.clone();
+                    if recent.is_empty() {
+                        ui.label("No recent files");
+                    }
+                    for p in recent {
+                        if ui.button(p.display().to_string()).clicked() {
+                            self.guarded(Pending::Open(p));
+                        }
+                    }
+                });
+                ui.separator();
+                if ui
+                    .button("Save")
+                    .on_hover_text("Save (Ctrl+S); the previous version is kept as .bak")
+                    .clicked()
+                {
+                    self.save();
+                }
+                if ui.button("Save as…").clicked() {
+                    self.pick_save();
+                }
+            });
+            ui.menu_button("Edit", |ui| {
+                if ui
+                    .add_enabled(self.doc.can_undo(), egui::Button::new("Undo"))
+                    .on_hover_text("Ctrl+Z")
+                    .clicked()
+                {
+                    out.push(Command::Undo);
+                }
+                if ui
+                    .add_enabled(self.doc.can_redo(), egui::Button::new("Redo"))
+                    .on_hover_text("Ctrl+Shift+Z or Ctrl+Y")
+                    .clicked()
+                {
+                    out.push(Command::Redo);
+                }
+            });
+            ui.menu_button("Units", |ui| {
+                for (u, name) in [
+                    (Units::Si, "SI (mm, N, MPa, °C)"),
+                    (Units::UsCustomary, "US customary (in, lbf, psi, °F)"),
+                ] {
+                    if ui.selectable_label(self.doc.units == u, name).clicked() {
+                        out.push(Command::SetUnits(u));
+                        self.settings.units = u;
+                        self.settings.save(self.paths.settings.as_deref());
+                    }
+                }
+            });
+            ui.separator();
+            for (t, name, help) in [
+                (
+                    Tab::Layout,
+                    "Layout",
+                    "The part, its colour map and the gauges",
+                ),
+                (
+                    Tab::Bridges,
+                    "Bridges",
+                    "Bridge wiring, arrangements and suggestions",
+                ),
+                (
+                    Tab::Results,
+                    "Results",
+                    "Output, temperature, margins, uncertainty, what cancels what",
+                ),
+                (
+                    Tab::Help,
+                    "Help and cautions",
+                    "How Gaugewright computes, and the cautions that apply",
+                ),
+            ] {
+                ui.selectable_value(&mut self.tab, t, name)
+                    .on_hover_text(help);
+            }
+        });
+    }
+
+    fn modal_ui(&mut self, ui: &mut egui::Ui) {
+        let Some(modal) = self.modal.clone() else {
+            return;
+        };
+        let mut close = false;
+        let mut next = None;
+        egui::Window::new("Gaugewright")
+            .collapsible(false)
+            .resizable(false)
+            .anchor(egui::Align2::CENTER_CENTER, [0.0, 0.0])
+            .show(ui.ctx(), |ui| match modal {
+                Modal::OpenPath(mut text) | Modal::SavePath(mut text) => {
+                    let saving = matches!(self.modal, Some(Modal::SavePath(_)));
+                    ui.label(if saving {
+                        "Save the project to this file:"
+                    } else {
+                        "Open this project file:"
+                    });
+                    let label = ui.label(
+                        "File path (type it; the desktop's file dialog is not available here):",
+                    );
+                    let r = ui
+                        .add(
+                            egui::TextEdit::singleline(&mut text)
+                                .desired_width(420.0)
+                                .hint_text("/path/to/project.ron"),
+                        )
+                        .labelled_by(label.id);
+                    self.modal = Some(if saving {
+                        Modal::SavePath(text.clone())
+                    } else {
+                        Modal::OpenPath(text.clone())
+                    });
+                    ui.horizontal(|ui| {
+                        let go = ui.button(if saving { "Save" } else { "Open" }).clicked()
+                            || (r.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter)));
+                        if go && !text.trim().is_empty() {
+                            let path = PathBuf::from(text.trim());
+                            if saving {
+                                self.save_path(&path);
+                            } else {
+                                self.open_path(&path);
+                            }
+                            close = true;
+                        }
+                        if ui.button("Cancel").clicked() {
+                            close = true;
+                        }
+                    });
+                }
+                Modal::ConfirmDiscard(pending) => {
+                    ui.label("The project has unsaved changes. Discard them?");
+                    ui.horizontal(|ui| {
+                        if ui.button("Discard changes").clicked() {
+                            next = Some(pending.clone());
+                            close = true;
+                        }
+                        if ui.button("Keep working").clicked() {
+                            close = true;
+                        }
+                    });
+                }
+                Modal::Recover(path) => {
+                    ui.label("Gaugewright closed with unsaved work last time. Recover it?");
+                    ui.horizontal(|ui| {
+                        if ui.button("Recover").clicked() {
+                            if let Ok(p) = gw_plan::load_project(&path) {
+                                self.doc.apply_all(vec![Command::ReplaceProject {
+                                    project: Box::new(p),
+                                    path: None,
+                                }]);
+                                self.doc.dirty = true;
+                            } else {
+                                self.doc.notice = Some(Notice {
+                                    is_error: true,
+                                    text: "The recovery file could not be read.".into(),
+                                });
+                            }
+                            close = true;
+                        }
+                        if ui.button("Discard it").clicked() {
+                            let _ = std::fs::remove_file(&path);
+                            close = true;
+                        }
+                    });
+                }
+            });
+        if close {
+            self.modal = None;
+        }
+        if let Some(p) = next {
+            self.doc.dirty = false;
+            self.run_pending(p);
+        }
+    }
+
+    /// One frame of the whole app.
+    pub fn frame_ui(&mut self, ui: &mut egui::Ui) {
+        let mut out = Vec::new();
+        self.shortcuts(ui, &mut out);
+        let dropped: Vec<PathBuf> = ui.input(|i| {
+            i.raw
+                .dropped_files
+                .iter()
+                .map(|f| f.path().to_path_buf())
+                .filter(|p| !p.as_os_str().is_empty())
+                .collect()
+        });
+        if let Some(p) = dropped.into_iter().next() {
+            self.guarded(Pending::Open(p));
+        }
+        egui::Panel::top("menu").show(ui, |ui| self.menu_ui(ui, &mut out));
+        egui::Panel::bottom("findings")
+            .resizable(true)
+            .default_size(140.0)
+            .show(ui, |ui| {
+                self.findings.findings_ui(ui, &mut self.doc);
+            });
+        egui::Panel::left("project")
+            .resizable(true)
+            .default_size(340.0)
+            .show(ui, |ui| {
+                self.project_panel.project_ui(ui, &self.doc, &mut out);
+            });
+        egui::CentralPanel::default().show(ui, |ui| match self.tab {
+            Tab::Layout => self.canvas.canvas_ui(ui, &self.doc, &mut out),
+            Tab::Bridges => self.bridges.bridges_ui(ui, &self.doc, &mut out),
+            Tab::Results => self.plots.plots_ui(ui, &self.doc),
+            Tab::Help => self.help.help_ui(ui, &self.doc),
+        });
+        self.modal_ui(ui);
+        if !out.is_empty() {
+            self.doc.apply_all(out);
+            ui.ctx().request_repaint();
+        }
+        let title = self.doc.title();
+        if title != self.last_title {
+            ui.ctx()
+                .send_viewport_cmd(egui::ViewportCommand::Title(title.clone()));
+            self.last_title = title;
+        }
+        let now = ui.input(|i| i.time);
+        self.autosave(now);
+        if let Some(request) = &mut self.screenshot {
+            request.on_frame(ui.ctx());
+        }
     }
 }
 
 impl eframe::App for GaugewrightApp {
     fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
-        let Self { screenshot } = self;
-        egui::CentralPanel::default().show(ui, |ui| {
-            ui.heading("Gaugewright");
-            ui.label("Strain-gauge installation planning.");
-        });
-        if let Some(request) = screenshot {
-            request.on_frame(ui.ctx());
-        }
+        self.frame_ui(ui);
     }
 }

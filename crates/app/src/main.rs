@@ -1,7 +1,6 @@
 //! The `gaugewright` binary: the desktop app.
 
-mod app;
-mod screenshot;
+use gw_app::{GaugewrightApp, screenshot, settings::AppPaths};
 
 use std::path::PathBuf;
 
@@ -78,7 +77,14 @@ fn main() -> std::process::ExitCode {
     let result = eframe::run_native(
         "Gaugewright",
         options,
-        Box::new(move |_cc| Ok(Box::new(app::GaugewrightApp::new(screenshot)))),
+        Box::new(move |_cc| {
+            let paths = if screenshot.is_some() {
+                AppPaths::default()
+            } else {
+                AppPaths::user()
+            };
+            Ok(Box::new(GaugewrightApp::new(paths, screenshot)))
+        }),
     );
     if let Err(e) = result {
         eprintln!("error: could not open the Gaugewright window: {e}");

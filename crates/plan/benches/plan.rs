@@ -1,1 +1,23 @@
-fn main() {}
+//! Evaluating the whole demo plan.
+
+use criterion::{Criterion, criterion_group, criterion_main};
+use gw_plan::demo::demo_project;
+use gw_plan::evaluate::{EvalOptions, UncertaintyDepth, evaluate};
+use std::hint::black_box;
+
+fn bench(c: &mut Criterion) {
+    let project = demo_project();
+    let fast = EvalOptions {
+        uncertainty: UncertaintyDepth::Off,
+        ..EvalOptions::default()
+    };
+    c.bench_function("evaluate_demo/no_uncertainty", |b| {
+        b.iter(|| evaluate(black_box(&project), &fast))
+    });
+    c.bench_function("evaluate_demo/with_gum", |b| {
+        b.iter(|| evaluate(black_box(&project), &EvalOptions::default()))
+    });
+}
+
+criterion_group!(benches, bench);
+criterion_main!(benches);

@@ -189,6 +189,8 @@ pub struct CaseFigures {
 /// Everything computed for one part.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct PartEvaluation {
+    /// Index of the part in the project.
+    pub part_index: usize,
     /// Part name.
     pub name: String,
     /// Member kind.
@@ -360,6 +362,7 @@ fn evaluate_part(
         });
     }
     PartEvaluation {
+        part_index: pi,
         name: part.name.clone(),
         kind: member.kind_name().to_owned(),
         cases,
@@ -638,4 +641,42 @@ fn evaluate_bridge(
         zero_offset_band_mv_per_v,
         pin_resistances,
     })
+}
+
+/// The uncertainty budget of one bridge with Monte Carlo (`trials` trials), at the load case
+/// with the largest wanted load. For the app's on-demand button.
+pub fn monte_carlo_for(
+    project: &Project,
+    part: usize,
+    bridge: usize,
+    trials: usize,
+) -> Result<BridgeUncertainty, String> {
+    let p = project.parts.get(part).ok_or("no such part")?;
+    let plan = p.bridges.get(bridge).ok_or("no such bridge")?;
+    let b = bridge_from_plan(p, plan).map_err(|e| e.to_string())?;
+    let options = EvalOptions::default();
+    let setup = Setup {
+        member: &p.member,
+        gauges: &p.gauges,
+        reference_temperature_c: project.reference_temperature_c,
+        quadrature: options.quadrature,
+    };
+    let model = BridgeModel::new(&setup, &b).map_err(|e| e.to_string())?;
+    let channel = channel_figures(&model).map_err(|e| e.to_string())?;
+    let case = p
+        .load_cases
+        .iter()
+        .max_by(|a, c| a.value(b.wanted).abs().total_cmp(&c.value(b.wanted).abs()))
+        .ok_or("the part has no load case")?;
+    let mut tol = p.tolerances;
+    tol.monte_carlo_trials = trials;
+    bridge_uncertainty(
+        &p.member,
+        &model,
+        &case.load_vector(),
+        &channel,
+        &tol,
+        options.quadrature,
+    )
+    .map_err(|e| e.to_string())
 }

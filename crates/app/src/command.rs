@@ -1,0 +1,109 @@
+//! Every change to the project is a command, applied in one place after the panels draw.
+//! That single entry point gives undo/redo, dirty tracking and tests.
+
+use gw_bridge::LeadWiring;
+use gw_bridge::arrangement::CatalogueEntry;
+use gw_bridge::chooser::RankedArrangement;
+use gw_mechanics::{LoadComponent, Member, SurfacePoint};
+use gw_plan::{PlanArm, Project};
+
+use crate::units::Units;
+
+/// A change to the project or to what the app shows.
+#[derive(Debug, Clone)]
+pub enum Command {
+    /// Set one load component of a load case (SI value).
+    SetLoad {
+        part: usize,
+        case: usize,
+        component: LoadComponent,
+        value: f64,
+    },
+    /// Rename a load case.
+    RenameLoadCase {
+        part: usize,
+        case: usize,
+        name: String,
+    },
+    /// Add a load case (a copy of the selected one).
+    AddLoadCase { part: usize },
+    /// Delete a load case.
+    DeleteLoadCase { part: usize, case: usize },
+    /// Replace a part's mechanics model (already validated).
+    SetMember { part: usize, member: Box<Member> },
+    /// Add a gauge of a pattern at a point.
+    AddGauge {
+        part: usize,
+        pattern: gw_bridge::GaugePattern,
+        position: SurfacePoint,
+        angle_rad: f64,
+    },
+    /// Move a gauge.
+    MoveGauge {
+        part: usize,
+        gauge: usize,
+        position: SurfacePoint,
+    },
+    /// Turn a gauge to an angle.
+    SetGaugeAngle {
+        part: usize,
+        gauge: usize,
+        angle_rad: f64,
+    },
+    /// Delete a gauge (and clear the arms that used it).
+    DeleteGauge { part: usize, gauge: usize },
+    /// Set what goes in one arm.
+    SetArm {
+        part: usize,
+        bridge: usize,
+        arm: usize,
+        element: PlanArm,
+    },
+    /// Set a bridge's lead wiring.
+    SetWiring {
+        part: usize,
+        bridge: usize,
+        wiring: LeadWiring,
+    },
+    /// Add a bridge.
+    AddBridge { part: usize },
+    /// Apply a catalogue arrangement to a bridge (adds its gauges).
+    ApplyCatalogue {
+        part: usize,
+        bridge: usize,
+        entry: Box<CatalogueEntry>,
+    },
+    /// Rewire a bridge to a suggested arrangement.
+    ApplySuggestion {
+        part: usize,
+        bridge: usize,
+        ranked: Box<RankedArrangement>,
+    },
+    /// Replace the whole project (new, open, recover).
+    ReplaceProject {
+        project: Box<Project>,
+        path: Option<std::path::PathBuf>,
+    },
+    /// Undo the last change.
+    Undo,
+    /// Redo the last undone change.
+    Redo,
+    /// Switch display units.
+    SetUnits(Units),
+    /// Change what is selected.
+    Select(crate::state::Selection),
+}
+
+impl Command {
+    /// True for commands that change the project (and so go on the undo stack).
+    pub fn edits_project(&self) -> bool {
+        !matches!(
+            self,
+            Command::Undo
+                | Command::Redo
+                | Command::SetUnits(_)
+                | Command::Select(_)
+                | Command::ReplaceProject { .. }
+        )
+    }
+}

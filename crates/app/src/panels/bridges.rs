@@ -1,0 +1,277 @@
+//! Bridges: the list, a schematic the app draws, arm assignment, the arrangement catalogue and
+//! the automatic chooser.
+
+use egui::{Color32, Pos2, Stroke, pos2, vec2};
+use gw_bridge::arrangement::{CatalogueEntry, catalogue};
+use gw_bridge::chooser::{ChooserRequest, RankedArrangement, choose};
+use gw_bridge::{CompletionResistor, LeadWiring};
+use gw_mechanics::{LoadComponent, QuadratureOrder};
+use gw_plan::validate::expected_magnitudes;
+use gw_plan::{BridgePlan, Part, PlanArm};
+
+use crate::command::Command;
+use crate::panels::project::capitalise;
+use crate::state::{DocumentState, Selection};
+
+/// A suggestion list with the evaluation count, part and bridge it was made for.
+type Suggestions = (u64, usize, usize, Result<Vec<RankedArrangement>, String>);
+
+/// View state: the last suggestion list and the project state it was made for.
+#[derive(Default)]
+pub struct BridgesPanel {
+    suggestions: Option<Suggestions>,
+}
+
+fn arm_text(arm: &PlanArm) -> String {
+    match arm {
+        PlanArm::Grid { gauge, grid } => format!("{gauge} grid {grid}"),
+        PlanArm::Dummy { gauge, grid } => format!("dummy like {gauge}/{grid}"),
+        PlanArm::Completion(c) => format!("{:.0} Ω resistor", c.ohm),
+    }
+}
+
+fn arm_choices(part: &Part) -> Vec<PlanArm> {
+    let mut out = Vec::new();
+    for g in &part.gauges {
+        for k in 0..g.element_count() {
+            out.push(PlanArm::Grid {
+                gauge: g.id.clone(),
+                grid: k + 1,
+            });
+        }
+    }
+    if let Some(g) = part.gauges.first() {
+        out.push(PlanArm::Dummy {
+            gauge: g.id.clone(),
+            grid: 1,
+        });
+    }
+    let ohm = part
+        .gauges
+        .first()
+        .map(|g| g.spec.resistance_ohm)
+        .unwrap_or(350.0);
+    out.push(PlanArm::Completion(CompletionResistor {
+        ohm,
+        tolerance: 0.0005,
+        tcr_per_c: 5e-6,
+    }));
+    out
+}
+
+/// Draws the four arms as a diamond with what sits in each, the corners' roles and the wiring.
+fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
+    let (resp, painter) = ui.allocate_painter(vec2(420.0, 260.0), egui::Sense::hover());
+    let r = resp.rect;
+    let c = r.center();
+    let top = pos2(c.x, r.top() + 30.0);
+    let bottom = pos2(c.x, r.bottom() - 30.0);
+    let left = pos2(r.left() + 70.0, c.y);
+    let right = pos2(r.right() - 70.0, c.y);
+    let text = ui.visuals().text_color();
+    let gauge_site = Color32::from_rgb(200, 120, 40);
+    let instrument = Color32::from_rgb(120, 130, 140);
+    // Arm k joins these corners (see the arm numbering in gw_bridge::circuit).
+    let arms: [(Pos2, Pos2); 4] = [(left, bottom), (top, left), (top, right), (right, bottom)];
+    for (k, (a, b)) in arms.iter().enumerate() {
+        let at_gauge = !matches!(plan.arms[k], PlanArm::Completion(_));
+        let colour = if at_gauge { gauge_site } else { instrument };
+        painter.line_segment([*a, *b], Stroke::new(3.0, colour));
+        let mid = a.lerp(*b, 0.5);
+        let outward = (mid - c).normalized() * 28.0;
+        painter.text(
+            mid + outward,
+            egui::Align2::CENTER_CENTER,
+            format!("arm {}: {}", k + 1, arm_text(&plan.arms[k])),
+            egui::FontId::proportional(12.0),
+            text,
+        );
+    }
+    for (p, label, align) in [
+        (top, "excitation +", egui::Align2::CENTER_BOTTOM),
+        (bottom, "excitation −", egui::Align2::CENTER_TOP),
+        (left, "output +", egui::Align2::RIGHT_CENTER),
+        (right, "output −", egui::Align2::LEFT_CENTER),
+    ] {
+        painter.circle_filled(p, 4.0, text);
+        let offset = match align {
+            egui::Align2::CENTER_BOTTOM => vec2(0.0, -6.0),
+            egui::Align2::CENTER_TOP => vec2(0.0, 6.0),
+            egui::Align2::RIGHT_CENTER => vec2(-8.0, 0.0),
+            _ => vec2(8.0, 0.0),
+        };
+        painter.text(
+            p + offset,
+            align,
+            label,
+            egui::FontId::proportional(12.0),
+            text,
+        );
+    }
+    painter.text(
+        r.left_top(),
+        egui::Align2::LEFT_TOP,
+        format!(
+            "{} wiring, {:.1} m leads",
+            plan.wiring.name(),
+            plan.lead.length_m
+        ),
+        egui::FontId::proportional(12.0),
+        text,
+    );
+    painter.text(
+        r.right_top(),
+        egui::Align2::RIGHT_TOP,
+        "amber: at the gauge   grey: at the instrument",
+        egui::FontId::proportional(11.0),
+        text,
+    );
+}
+
+impl BridgesPanel {
+    /// Draws the panel.
+    pub fn bridges_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
+        let Self { suggestions } = self;
+        let sel = doc.selection;
+        let Some(part) = doc.project.parts.get(sel.part) else {
+            return;
+        };
+        egui::ScrollArea::vertical().show(ui, |ui| {
+            ui.horizontal_wrapped(|ui| {
+                ui.strong("Bridges");
+                for (i, b) in part.bridges.iter().enumerate() {
+                    if ui.selectable_label(sel.bridge == Some(i), &b.name).on_hover_text("Select this bridge").clicked() {
+                        out.push(Command::Select(Selection { bridge: Some(i), ..sel }));
+                    }
+                }
+                if ui.button("Add bridge").on_hover_text("Add a bridge copied from the first one").clicked() {
+                    out.push(Command::AddBridge { part: sel.part });
+                }
+            });
+            let Some((bi, plan)) = sel.bridge.and_then(|b| part.bridges.get(b).map(|p| (b, p))) else {
+                ui.label("This part has no bridge yet.");
+                return;
+            };
+            ui.separator();
+            ui.label(format!(
+                "{} — measures {}; arrangement: {}; channel {}; instrument gauge factor {:.3}, bridge factor {:.3}",
+                plan.name,
+                plan.wanted.name(),
+                if plan.arrangement.is_empty() { "custom" } else { &plan.arrangement },
+                plan.channel,
+                plan.instrument.gauge_factor,
+                plan.instrument.bridge_factor
+            ));
+            schematic_ui(ui, plan);
+            ui.horizontal(|ui| {
+                ui.label("Wiring");
+                for w in [LeadWiring::TwoWire, LeadWiring::ThreeWire, LeadWiring::RemoteSense] {
+                    if ui.selectable_label(plan.wiring == w, w.name()).on_hover_text("How leads connect the gauge site to the instrument").clicked() {
+                        out.push(Command::SetWiring { part: sel.part, bridge: bi, wiring: w });
+                    }
+                }
+            });
+            let choices = arm_choices(part);
+            egui::Grid::new("arms").num_columns(1).show(ui, |ui| {
+                for k in 0..4 {
+                    egui::ComboBox::from_label(format!("Arm {}", k + 1))
+                        .selected_text(arm_text(&plan.arms[k]))
+                        .show_ui(ui, |ui| {
+                            for choice in &choices {
+                                if ui.selectable_label(*choice == plan.arms[k], arm_text(choice)).clicked() {
+                                    out.push(Command::SetArm { part: sel.part, bridge: bi, arm: k, element: choice.clone() });
+                                }
+                            }
+                        })
+                        .response
+                        .on_hover_text("What sits in this arm: a grid, a dummy grid or a completion resistor");
+                    ui.end_row();
+                }
+            });
+            ui.separator();
+            ui.strong("Arrangements for this part");
+            let station = sel
+                .gauge
+                .and_then(|g| part.gauges.get(g))
+                .map(|g| g.position.x_m)
+                .unwrap_or_else(|| part.member.faces().first().map(|f| (f.x_range_m.0 + f.x_range_m.1) / 4.0).unwrap_or(0.0));
+            let spec = part
+                .gauges
+                .first()
+                .map(|g| g.spec.clone())
+                .unwrap_or_else(|| gw_plan::document::default_gauge_spec(gw_bridge::GaugePattern::SingleGrid));
+            let entries: Vec<CatalogueEntry> = catalogue(&part.member, plan.wanted, station, &spec);
+            if entries.is_empty() {
+                ui.label("No standard arrangement measures this load on this part.");
+            }
+            egui::Grid::new("catalogue").num_columns(2).striped(true).show(ui, |ui| {
+                for e in entries {
+                    ui.label(&e.description);
+                    if ui.button(format!("Apply {}", e.name)).on_hover_text(format!("{} — adds its gauges and rewires this bridge", e.description)).clicked() {
+                        out.push(Command::ApplyCatalogue { part: sel.part, bridge: bi, entry: Box::new(e) });
+                    }
+                    ui.end_row();
+                }
+            });
+            ui.separator();
+            ui.horizontal(|ui| {
+                ui.strong("Suggest");
+                if ui
+                    .button("Suggest arrangements")
+                    .on_hover_text("Search every assignment of the placed grids to the four arms and rank them")
+                    .clicked()
+                {
+                    let expected = expected_magnitudes(part);
+                    let magnitude = expected.iter().find(|(c, _)| *c == plan.wanted).map(|(_, m)| *m).unwrap_or(1.0);
+                    let unwanted = expected
+                        .iter()
+                        .filter(|(c, _)| *c != plan.wanted && *c != LoadComponent::TemperatureChange)
+                        .copied()
+                        .collect();
+                    let range = part.load_cases.first().map(|c| c.temperature_range_c).unwrap_or((-20.0, 40.0));
+                    let request = ChooserRequest {
+                        wanted: plan.wanted,
+                        wanted_magnitude: magnitude.max(1e-12),
+                        unwanted,
+                        temperature_range_c: range,
+                        reference_temperature_c: doc.project.reference_temperature_c,
+                        completion: CompletionResistor { ohm: spec.resistance_ohm, tolerance: 0.0005, tcr_per_c: 5e-6 },
+                        keep: 8,
+                    };
+                    let result = choose(&part.member, &part.gauges, &request, QuadratureOrder::default()).map_err(|e| e.to_string());
+                    *suggestions = Some((doc.evaluations, sel.part, bi, result));
+                }
+            });
+            if let Some((n, p, b, result)) = suggestions.as_ref()
+                && *n == doc.evaluations
+                && *p == sel.part
+                && *b == bi
+            {
+                match result {
+                    Err(e) => {
+                        ui.colored_label(super::palette::FAIL, e);
+                    }
+                    Ok(list) if list.is_empty() => {
+                        ui.label("No arrangement of the placed grids responds to this load; place grids first.");
+                    }
+                    Ok(list) => {
+                        egui::Grid::new("suggestions").num_columns(3).striped(true).show(ui, |ui| {
+                            ui.strong("#");
+                            ui.strong("Why");
+                            ui.strong("");
+                            ui.end_row();
+                            for (i, r) in list.iter().enumerate() {
+                                ui.label(format!("{}", i + 1));
+                                ui.label(capitalise(&r.reason));
+                                if ui.button(format!("Apply suggestion {}", i + 1)).on_hover_text("Rewire this bridge to this arrangement").clicked() {
+                                    out.push(Command::ApplySuggestion { part: sel.part, bridge: bi, ranked: Box::new(r.clone()) });
+                                }
+                                ui.end_row();
+                            }
+                        });
+                    }
+                }
+            }
+        });
+    }
+}

@@ -1,0 +1,459 @@
+//! The layout canvas: the selected face drawn to scale (round faces unrolled: axial position
+//! across, arc length up) with a live colour map, a legend, the value under the cursor, and
+//! the gauges drawn to scale. Click selects, drag moves, buttons add and turn gauges.
+
+use egui::{Color32, Pos2, Rect, Sense, Stroke, TextureHandle, Vec2, pos2, vec2};
+use gw_bridge::GaugePattern;
+use gw_mechanics::{Face, SurfacePoint, SurfaceQuantity, surface_map};
+
+use super::palette;
+use crate::command::Command;
+use crate::state::{DocumentState, Selection};
+use crate::units::{Quantity, microstrain};
+
+/// Which quantity the colour map shows.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum MapQuantity {
+    /// Strain along the member axis (local x).
+    StrainAlongAxis,
+    /// Strain across (local y: hoop on round parts).
+    StrainAcross,
+    /// Larger principal strain.
+    MaxPrincipal,
+    /// Von Mises stress.
+    VonMises,
+}
+
+impl MapQuantity {
+    const ALL: [MapQuantity; 4] = [
+        MapQuantity::StrainAlongAxis,
+        MapQuantity::StrainAcross,
+        MapQuantity::MaxPrincipal,
+        MapQuantity::VonMises,
+    ];
+
+    fn name(self) -> &'static str {
+        match self {
+            MapQuantity::StrainAlongAxis => "Strain along the axis",
+            MapQuantity::StrainAcross => "Strain across (hoop on round parts)",
+            MapQuantity::MaxPrincipal => "Larger principal strain",
+            MapQuantity::VonMises => "Von Mises stress",
+        }
+    }
+
+    fn surface(self) -> SurfaceQuantity {
+        match self {
+            MapQuantity::StrainAlongAxis => SurfaceQuantity::StrainAlong(0.0),
+            MapQuantity::StrainAcross => SurfaceQuantity::StrainAlong(std::f64::consts::FRAC_PI_2),
+            MapQuantity::MaxPrincipal => SurfaceQuantity::MaxPrincipalStrain,
+            MapQuantity::VonMises => SurfaceQuantity::VonMisesStress,
+        }
+    }
+}
+
+/// The colour-map texture with what it was made for: evaluation count, face, quantity,
+/// selection, and the value range.
+type MapTexture = (u64, Face, MapQuantity, Selection, TextureHandle, (f64, f64));
+
+/// View state of the canvas.
+pub struct CanvasPanel {
+    face: Option<Face>,
+    quantity: MapQuantity,
+    zoom: f32,
+    pattern: GaugePattern,
+    texture: Option<MapTexture>,
+    drag: Option<(usize, SurfacePoint)>,
+}
+
+impl Default for CanvasPanel {
+    fn default() -> Self {
+        Self {
+            face: None,
+            quantity: MapQuantity::StrainAlongAxis,
+            zoom: 1.0,
+            pattern: GaugePattern::SingleGrid,
+            texture: None,
+            drag: None,
+        }
+    }
+}
+
+const MAP_NX: usize = 192;
+const MAP_NS: usize = 96;
+
+/// Our diverging colour scale: deep blue for compression through a pale neutral to deep
+/// amber for tension.
+fn diverging(t: f64) -> Color32 {
+    let t = t.clamp(-1.0, 1.0) as f32;
+    let neutral = [235.0, 235.0, 228.0];
+    let (end, k) = if t < 0.0 {
+        ([40.0, 90.0, 170.0], -t)
+    } else {
+        ([200.0, 110.0, 30.0], t)
+    };
+    let mix = |i: usize| (neutral[i] + (end[i] - neutral[i]) * k) as u8;
+    Color32::from_rgb(mix(0), mix(1), mix(2))
+}
+
+/// Our sequential scale for stress: pale to deep plum.
+fn sequential(t: f64) -> Color32 {
+    let t = t.clamp(0.0, 1.0) as f32;
+    let a = [240.0, 238.0, 230.0];
+    let b = [110.0, 40.0, 90.0];
+    let mix = |i: usize| (a[i] + (b[i] - a[i]) * t) as u8;
+    Color32::from_rgb(mix(0), mix(1), mix(2))
+}
+
+impl CanvasPanel {
+    /// Draws the canvas.
+    pub fn canvas_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
+        let Self {
+            face,
+            quantity,
+            zoom,
+            pattern,
+            texture,
+            drag,
+        } = self;
+        let sel = doc.selection;
+        let Some(part) = doc.project.parts.get(sel.part) else {
+            return;
+        };
+        let member = &part.member;
+        let faces = member.faces();
+        let current = face
+            .filter(|f| faces.iter().any(|e| e.face == *f))
+            .unwrap_or(faces[0].face);
+        *face = Some(current);
+        let units = doc.units;
+        ui.horizontal_wrapped(|ui| {
+            egui::ComboBox::from_label("Face")
+                .selected_text(current.name())
+                .show_ui(ui, |ui| {
+                    for f in &faces {
+                        ui.selectable_value(face, Some(f.face), f.face.name());
+                    }
+                })
+                .response
+                .on_hover_text("Which face of the part to show; round faces are unrolled");
+            egui::ComboBox::from_label("Map")
+                .selected_text(quantity.name())
+                .show_ui(ui, |ui| {
+                    for q in MapQuantity::ALL {
+                        ui.selectable_value(quantity, q, q.name());
+                    }
+                })
+                .response
+                .on_hover_text("Surface quantity shown as colour, under the selected load case");
+            ui.add(
+                egui::Slider::new(zoom, 0.5..=40.0)
+                    .logarithmic(true)
+                    .text("Zoom"),
+            )
+            .on_hover_text("Zoom the drawing");
+            egui::ComboBox::from_label("Pattern")
+                .selected_text(pattern.name())
+                .show_ui(ui, |ui| {
+                    for p in GaugePattern::ALL {
+                        ui.selectable_value(pattern, p, p.name());
+                    }
+                });
+            if ui
+                .button("Add gauge")
+                .on_hover_text("Place a gauge of the chosen pattern at the middle of this face")
+                .clicked()
+            {
+                let e = faces
+                    .iter()
+                    .find(|e| e.face == current)
+                    .copied()
+                    .unwrap_or(faces[0]);
+                let mut x = (e.x_range_m.0 + e.x_range_m.1) / 2.0;
+                let mut s = (e.s_range_m.0 + e.s_range_m.1) / 2.0;
+                if let Some(a) = e.hole_radius_m {
+                    // Beside the hole rather than in it.
+                    x = 0.0;
+                    s = a + 0.005;
+                }
+                out.push(Command::AddGauge {
+                    part: sel.part,
+                    pattern: *pattern,
+                    position: SurfacePoint::new(current, x, s),
+                    angle_rad: 0.0,
+                });
+            }
+            if let Some(g) = sel.gauge.and_then(|g| part.gauges.get(g).map(|p| (g, p))) {
+                for (label, step) in [("Turn 15° left", 15f64), ("Turn 15° right", -15.0)] {
+                    if ui
+                        .button(label)
+                        .on_hover_text("Turn the selected gauge")
+                        .clicked()
+                    {
+                        out.push(Command::SetGaugeAngle {
+                            part: sel.part,
+                            gauge: g.0,
+                            angle_rad: g.1.angle_rad + step.to_radians(),
+                        });
+                    }
+                }
+            }
+        });
+        let extent = faces
+            .iter()
+            .find(|e| e.face == current)
+            .copied()
+            .unwrap_or(faces[0]);
+        let loads = part
+            .load_cases
+            .get(sel.case)
+            .map(|c| c.load_vector())
+            .unwrap_or_default();
+
+        // Colour map texture, rebuilt only when the project, face, quantity or selection changes.
+        let key_ok = texture.as_ref().is_some_and(|(n, f, q, s, _, _)| {
+            *n == doc.evaluations
+                && *f == current
+                && *q == *quantity
+                && s.part == sel.part
+                && s.case == sel.case
+        });
+        if !key_ok
+            && let Ok(map) =
+                surface_map(member, current, &loads, quantity.surface(), MAP_NX, MAP_NS)
+        {
+            let (lo, hi) = map.range().unwrap_or((0.0, 0.0));
+            let span = lo.abs().max(hi.abs()).max(1e-300);
+            let mut pixels = Vec::with_capacity(MAP_NX * MAP_NS);
+            // Image rows run top to bottom; s increases upward.
+            for j in (0..MAP_NS).rev() {
+                for i in 0..MAP_NX {
+                    pixels.push(match map.values[j * MAP_NX + i] {
+                        None => Color32::from_gray(40),
+                        Some(v) if *quantity == MapQuantity::VonMises => {
+                            sequential(v / hi.max(1e-300))
+                        }
+                        Some(v) => diverging(v / span),
+                    });
+                }
+            }
+            let image = egui::ColorImage::new([MAP_NX, MAP_NS], pixels);
+            let handle = ui
+                .ctx()
+                .load_texture("surface map", image, egui::TextureOptions::LINEAR);
+            *texture = Some((doc.evaluations, current, *quantity, sel, handle, (lo, hi)));
+        }
+
+        let (x0, x1) = extent.x_range_m;
+        let (s0, s1) = extent.s_range_m;
+        let avail = ui.available_size() - vec2(0.0, 40.0);
+        let base = ((avail.x as f64 - 20.0) / (x1 - x0))
+            .min((avail.y as f64 - 20.0) / (s1 - s0))
+            .max(1.0);
+        let scale = base * *zoom as f64; // pixels per metre
+        let size = vec2(((x1 - x0) * scale) as f32, ((s1 - s0) * scale) as f32);
+        egui::ScrollArea::both().show(ui, |ui| {
+            let (resp, painter) =
+                ui.allocate_painter(size + vec2(20.0, 20.0), Sense::click_and_drag());
+            let origin = resp.rect.min + vec2(10.0, 10.0);
+            let to_screen = |x: f64, s: f64| -> Pos2 {
+                pos2(
+                    origin.x + ((x - x0) * scale) as f32,
+                    origin.y + ((s1 - s) * scale) as f32,
+                )
+            };
+            let to_world = |p: Pos2| -> (f64, f64) {
+                (
+                    x0 + (p.x - origin.x) as f64 / scale,
+                    s1 - (p.y - origin.y) as f64 / scale,
+                )
+            };
+            let face_rect = Rect::from_min_size(origin, size);
+            if let Some((_, _, _, _, tex, _)) = texture.as_ref() {
+                painter.image(
+                    tex.id(),
+                    face_rect,
+                    Rect::from_min_max(pos2(0.0, 0.0), pos2(1.0, 1.0)),
+                    Color32::WHITE,
+                );
+            }
+            painter.rect_stroke(
+                face_rect,
+                0.0,
+                Stroke::new(1.0, ui.visuals().text_color()),
+                egui::StrokeKind::Outside,
+            );
+
+            // Gauges on this face, each an accessible handle: click selects, drag moves.
+            for (gi, g) in part.gauges.iter().enumerate() {
+                let pos = match drag {
+                    Some((d, p)) if *d == gi => *p,
+                    _ => g.position,
+                };
+                if pos.face != current {
+                    continue;
+                }
+                let selected = sel.gauge == Some(gi);
+                for e in 0..g.element_count() {
+                    let fp = gw_mechanics::GridFootprint {
+                        center: pos,
+                        ..g.footprint(e)
+                    };
+                    let corners: Vec<Pos2> = fp
+                        .corners()
+                        .iter()
+                        .map(|c| to_screen(c.x_m, c.s_m))
+                        .collect();
+                    let stroke = Stroke::new(
+                        if selected { 2.5 } else { 1.5 },
+                        if selected {
+                            palette::SELECTED
+                        } else {
+                            palette::GAUGE
+                        },
+                    );
+                    painter.add(egui::Shape::closed_line(corners.clone(), stroke));
+                    let (sin, cos) = fp.angle_rad.sin_cos();
+                    let half = fp.length_m * 0.5;
+                    let a = to_screen(pos.x_m - half * cos, pos.s_m - half * sin);
+                    let b = to_screen(pos.x_m + half * cos, pos.s_m + half * sin);
+                    painter.line_segment([a, b], stroke);
+                }
+                let centre = to_screen(pos.x_m, pos.s_m);
+                painter.text(
+                    centre + vec2(8.0, -8.0),
+                    egui::Align2::LEFT_BOTTOM,
+                    &g.id,
+                    egui::FontId::proportional(13.0),
+                    ui.visuals().strong_text_color(),
+                );
+                let reach =
+                    ((g.spec.grid_length_m.max(g.spec.grid_width_m) * scale) as f32 * 0.6).max(8.0);
+                let handle = ui.interact(
+                    Rect::from_center_size(centre, Vec2::splat(2.0 * reach)),
+                    ui.scope_id().with(("gauge", gi)),
+                    Sense::click_and_drag(),
+                );
+                let id = g.id.clone();
+                handle.widget_info(|| {
+                    egui::WidgetInfo::labeled(egui::Role::Button, true, format!("Gauge {id}"))
+                });
+                let handle =
+                    handle.on_hover_text(format!("{} — drag to move, click to select", g.id));
+                if handle.clicked() || handle.drag_started() {
+                    out.push(Command::Select(Selection {
+                        gauge: Some(gi),
+                        ..sel
+                    }));
+                }
+                if handle.drag_started() {
+                    *drag = Some((gi, g.position));
+                }
+                if handle.dragged()
+                    && let (Some((d, p)), Some(pointer)) =
+                        (drag.as_mut(), handle.interact_pointer_pos())
+                    && *d == gi
+                {
+                    let (x, s) = to_world(pointer);
+                    // Snap to 0.5 mm.
+                    let snap = |v: f64| (v / 0.0005).round() * 0.0005;
+                    let candidate = SurfacePoint::new(current, snap(x), snap(s));
+                    if member.locate(&candidate).is_ok() {
+                        *p = candidate;
+                    }
+                }
+                if handle.drag_stopped()
+                    && let Some((d, p)) = drag.take()
+                {
+                    out.push(Command::MoveGauge {
+                        part: sel.part,
+                        gauge: d,
+                        position: p,
+                    });
+                }
+            }
+            if resp.clicked() {
+                out.push(Command::Select(Selection { gauge: None, ..sel }));
+            }
+
+            // Value under the cursor.
+            if let Some(h) = resp.hover_pos() {
+                let (x, s) = to_world(h);
+                if face_rect.contains(h) {
+                    let p = SurfacePoint::new(current, x, s);
+                    if let Ok(st) = member.state(&p, &loads) {
+                        let value = match quantity {
+                            MapQuantity::VonMises => {
+                                units.format_stress(st.von_mises_pa(member.material()))
+                            }
+                            MapQuantity::StrainAlongAxis => microstrain(st.strain.normal_x),
+                            MapQuantity::StrainAcross => microstrain(st.strain.normal_y),
+                            MapQuantity::MaxPrincipal => microstrain(st.strain.principal().max),
+                        };
+                        painter.text(
+                            h + vec2(14.0, 14.0),
+                            egui::Align2::LEFT_TOP,
+                            format!(
+                                "x {}  s {}  {}",
+                                units.format(Quantity::Length, x),
+                                units.format(Quantity::Length, s),
+                                value
+                            ),
+                            egui::FontId::proportional(12.0),
+                            ui.visuals().strong_text_color(),
+                        );
+                    }
+                }
+            }
+        });
+        // Legend.
+        if let Some((_, _, q, _, _, (lo, hi))) = texture.as_ref() {
+            ui.horizontal(|ui| {
+                ui.label("Legend:");
+                let (rect, _) = ui.allocate_exact_size(Vec2::new(200.0, 14.0), Sense::hover());
+                let painter = ui.painter();
+                let n = 40;
+                for k in 0..n {
+                    let t = k as f64 / (n - 1) as f64;
+                    let c = if *q == MapQuantity::VonMises {
+                        sequential(t)
+                    } else {
+                        diverging(2.0 * t - 1.0)
+                    };
+                    let x = rect.left() + rect.width() * k as f32 / n as f32;
+                    painter.rect_filled(
+                        Rect::from_min_size(
+                            pos2(x, rect.top()),
+                            vec2(rect.width() / n as f32 + 1.0, rect.height()),
+                        ),
+                        0.0,
+                        c,
+                    );
+                }
+                let span = lo.abs().max(hi.abs());
+                let text = if *q == MapQuantity::VonMises {
+                    format!("0 … {}", units.format_stress(*hi))
+                } else {
+                    format!(
+                        "{} … {} (range on face {} to {})",
+                        microstrain(-span),
+                        microstrain(span),
+                        microstrain(*lo),
+                        microstrain(*hi)
+                    )
+                };
+                ui.label(text);
+            });
+        }
+        if let Some(g) = sel.gauge.and_then(|g| part.gauges.get(g)) {
+            let (dx, ds) = part.datum_m;
+            ui.label(format!(
+                "{} on the {}: {} along, {} across from the datum, grid at {:.1}°",
+                g.id,
+                g.position.face.name(),
+                units.format(Quantity::Length, g.position.x_m - dx),
+                units.format(Quantity::Length, g.position.s_m - ds),
+                g.angle_rad.to_degrees()
+            ));
+        }
+    }
+}

@@ -1,0 +1,59 @@
+//! The help view: method, assumptions and cautions.
+
+use gw_plan::cautions::cautions;
+
+use crate::state::DocumentState;
+
+/// Method and assumptions, in our words.
+const METHOD: &[(&str, &str)] = &[
+    (
+        "Mechanics",
+        "Each part is a textbook model: Euler–Bernoulli beams with transverse shear by τ = VQ/(Ib), round shafts (τ = Tr/J), thin-walled vessels (membrane stresses, valid for mean radius ≥ 10 × wall), thick cylinders (Lamé), and an infinite plate with a circular hole (Kirsch). Strains are those of the free outer surface.",
+    ),
+    (
+        "Grids",
+        "A grid reads the strain along its direction averaged over its area (numerical quadrature), plus its transverse sensitivity. Near steep gradients the reading is lower than the peak.",
+    ),
+    (
+        "Bridges",
+        "Every bridge is solved as a real circuit with its leads, wiring, excitation, amplifier input and shunt. Readings are after zero balance at no load and the reference temperature; the instrument converts with its set gauge factor and bridge factor.",
+    ),
+    (
+        "Temperature",
+        "Apparent strain comes from the gauge lot's thermal output, the mismatch between the part's expansion and the gauge's match, gauge-factor drift, lead resistance (leads follow the part temperature) and completion-resistor drift.",
+    ),
+    (
+        "Uncertainty",
+        "Linear propagation per JCGM 100:2008 with the inputs listed in the budget, k = 2; Monte Carlo per JCGM 101:2008 on request.",
+    ),
+    (
+        "Margins",
+        "Pass below the warning level (80 % by default), warn up to 100 %, fail above. Limits for grid strain, fatigue and power density come from the gauge data; edit them to your gauge lot.",
+    ),
+];
+
+/// Help view state.
+#[derive(Default)]
+pub struct HelpPanel;
+
+impl HelpPanel {
+    /// Draws the help.
+    pub fn help_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState) {
+        let Self = self;
+        egui::ScrollArea::vertical().show(ui, |ui| {
+            ui.heading("How Gaugewright computes");
+            for (title, text) in METHOD {
+                ui.strong(*title);
+                ui.label(*text);
+                ui.add_space(4.0);
+            }
+            ui.separator();
+            ui.heading("Cautions");
+            for c in cautions(&doc.project) {
+                ui.strong(&c.title);
+                ui.label(&c.text);
+                ui.add_space(4.0);
+            }
+        });
+    }
+}
