@@ -57,6 +57,8 @@ pub enum Modal {
     OpenPath(String),
     /// Type a path to save to.
     SavePath(String),
+    /// Type a path for the build sheet PDF.
+    SheetPath(String),
     /// Unsaved changes would be lost.
     ConfirmDiscard(Pending),
     /// A recovery file from an earlier session exists.
@@ -213,6 +215,43 @@ impl GaugewrightApp {
         self.modal = Some(Modal::SavePath(current));
     }
 
+    fn pick_sheet(&mut self) {
+        if self.dialogs == FileDialogs::Native
+            && let Some(p) = rfd::FileDialog::new()
+                .add_filter("PDF", &["pdf"])
+                .set_file_name("build_sheet.pdf")
+                .save_file()
+        {
+            self.export_sheet(&p);
+            return;
+        }
+        self.modal = Some(Modal::SheetPath(String::new()));
+    }
+
+    /// Writes the build sheet PDF and the channel list CSV beside it.
+    pub fn export_sheet(&mut self, pdf: &std::path::Path) {
+        let ev = gw_plan::evaluate(&self.doc.project, &gw_plan::EvalOptions::default());
+        let result = gw_plan::sheet::build_sheet_pdf(&self.doc.project, &ev)
+            .and_then(|bytes| std::fs::write(pdf, bytes).map_err(|e| e.to_string()))
+            .and_then(|()| {
+                std::fs::write(
+                    pdf.with_extension("csv"),
+                    gw_plan::channel_list::channel_list_csv(&ev),
+                )
+                .map_err(|e| e.to_string())
+            });
+        self.doc.notice = Some(match result {
+            Ok(()) => Notice {
+                is_error: false,
+                text: format!("Wrote {} and the channel list beside it", pdf.display()),
+            },
+            Err(e) => Notice {
+                is_error: true,
+                text: format!("Could not write the build sheet: {e}"),
+            },
+        });
+    }
+
     /// Opens a file (a failure leaves the open project untouched and says why).
     pub fn open_path(&mut self, path: &std::path::Path) {
         self.doc.open(path);
@@ -339,6 +378,14 @@ impl GaugewrightApp {
                 if ui.button("Save as…").clicked() {
                     self.pick_save();
                 }
+                ui.separator();
+                if ui
+                    .button("Export build sheet…")
+                    .on_hover_text("Write the technician's build sheet (PDF) and the channel list (CSV beside it)")
+                    .clicked()
+                {
+                    self.pick_sheet();
+                }
             });
             ui.menu_button("Edit", |ui| {
                 if ui
@@ -408,9 +455,14 @@ impl GaugewrightApp {
             .resizable(false)
             .anchor(egui::Align2::CENTER_CENTER, [0.0, 0.0])
             .show(ui.ctx(), |ui| match modal {
-                Modal::OpenPath(mut text) | Modal::SavePath(mut text) => {
+                Modal::OpenPath(mut text)
+                | Modal::SavePath(mut text)
+                | Modal::SheetPath(mut text) => {
                     let saving = matches!(self.modal, Some(Modal::SavePath(_)));
-                    ui.label(if saving {
+                    let sheet = matches!(self.modal, Some(Modal::SheetPath(_)));
+                    ui.label(if sheet {
+                        "Write the build sheet to this PDF:"
+                    } else if saving {
                         "Save the project to this file:"
                     } else {
                         "Open this project file:"
@@ -425,17 +477,29 @@ impl GaugewrightApp {
                                 .hint_text("/path/to/project.ron"),
                         )
                         .labelled_by(label.id);
-                    self.modal = Some(if saving {
+                    self.modal = Some(if sheet {
+                        Modal::SheetPath(text.clone())
+                    } else if saving {
                         Modal::SavePath(text.clone())
                     } else {
                         Modal::OpenPath(text.clone())
                     });
                     ui.horizontal(|ui| {
-                        let go = ui.button(if saving { "Save" } else { "Open" }).clicked()
+                        let go = ui
+                            .button(if sheet {
+                                "Export"
+                            } else if saving {
+                                "Save"
+                            } else {
+                                "Open"
+                            })
+                            .clicked()
                             || (r.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter)));
                         if go && !text.trim().is_empty() {
                             let path = PathBuf::from(text.trim());
-                            if saving {
+                            if sheet {
+                                self.export_sheet(&path);
+                            } else if saving {
                                 self.save_path(&path);
                             } else {
                                 self.open_path(&path);

@@ -14,6 +14,9 @@ struct Cli {
     /// smoke tests).
     #[arg(long, value_name = "PATH")]
     screenshot: Option<PathBuf>,
+    /// Which view to show first: layout, bridges, results or help.
+    #[arg(long, value_name = "VIEW", default_value = "layout")]
+    view: String,
     /// With no subcommand the desktop app starts.
     #[command(subcommand)]
     command: Option<Command>,
@@ -37,6 +40,17 @@ enum Command {
         /// Include the Monte Carlo uncertainty propagation (slower).
         #[arg(long)]
         monte_carlo: bool,
+    },
+    /// Write the build sheet (PDF) and optionally the acquisition channel list (CSV).
+    Sheet {
+        /// Project file (.ron).
+        file: PathBuf,
+        /// PDF to write.
+        #[arg(short, long)]
+        output: PathBuf,
+        /// CSV channel list to write.
+        #[arg(long)]
+        csv: Option<PathBuf>,
     },
     /// Write the bundled demo project.
     Demo {
@@ -63,6 +77,9 @@ fn main() -> std::process::ExitCode {
             return finish(gw_plan::cli::eval_json(&file, monte_carlo));
         }
         Some(Command::Demo { out }) => return finish(gw_plan::cli::write_demo(&out)),
+        Some(Command::Sheet { file, output, csv }) => {
+            return finish(gw_plan::cli::sheet(&file, &output, csv.as_deref()));
+        }
         None => {}
     }
     let options = eframe::NativeOptions {
@@ -72,6 +89,7 @@ fn main() -> std::process::ExitCode {
             .with_min_inner_size([800.0, 500.0]),
         ..Default::default()
     };
+    let view = cli.view.clone();
     let screenshot = cli.screenshot.map(screenshot::ScreenshotRequest::new);
     let outcome = screenshot.as_ref().map(|r| r.outcome());
     let result = eframe::run_native(
@@ -83,7 +101,14 @@ fn main() -> std::process::ExitCode {
             } else {
                 AppPaths::user()
             };
-            Ok(Box::new(GaugewrightApp::new(paths, screenshot)))
+            let mut app = GaugewrightApp::new(paths, screenshot);
+            app.tab = match view.as_str() {
+                "bridges" => gw_app::app::Tab::Bridges,
+                "results" => gw_app::app::Tab::Results,
+                "help" => gw_app::app::Tab::Help,
+                _ => gw_app::app::Tab::Layout,
+            };
+            Ok(Box::new(app))
         }),
     );
     if let Err(e) = result {

@@ -173,3 +173,53 @@ pub fn write_demo(path: &Path) -> CliOutput {
         Err(e) => broken(path, &e),
     }
 }
+
+/// `gaugewright sheet FILE -o OUT.pdf [--csv OUT.csv]`: the build sheet and channel list.
+pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>) -> CliOutput {
+    let project = match load_project(path) {
+        Ok(p) => p,
+        Err(e) => return broken(path, &e),
+    };
+    let ev = evaluate(&project, &EvalOptions::default());
+    let mut stdout = String::new();
+    match crate::sheet::build_sheet_pdf(&project, &ev) {
+        Ok(bytes) => {
+            if let Err(e) = std::fs::write(pdf, bytes) {
+                return CliOutput {
+                    code: 2,
+                    stdout,
+                    stderr: format!("error: could not write {}: {e}\n", pdf.display()),
+                };
+            }
+            let _ = writeln!(stdout, "wrote the build sheet to {}", pdf.display());
+        }
+        Err(e) => {
+            return CliOutput {
+                code: 2,
+                stdout,
+                stderr: format!("error: {e}\n"),
+            };
+        }
+    }
+    if let Some(csv) = csv {
+        if let Err(e) = std::fs::write(csv, crate::channel_list::channel_list_csv(&ev)) {
+            return CliOutput {
+                code: 2,
+                stdout,
+                stderr: format!("error: could not write {}: {e}\n", csv.display()),
+            };
+        }
+        let _ = writeln!(stdout, "wrote the channel list to {}", csv.display());
+    }
+    if ev.has_failures() {
+        let _ = writeln!(
+            stdout,
+            "AT LEAST ONE MARGIN FAILS — the sheet says so on its first page."
+        );
+    }
+    CliOutput {
+        code: if ev.has_failures() { 1 } else { 0 },
+        stdout,
+        stderr: String::new(),
+    }
+}

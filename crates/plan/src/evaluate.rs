@@ -153,6 +153,12 @@ pub struct BridgeEvaluation {
     pub channel_number: u32,
     /// Set excitation as a bridge voltage, V.
     pub excitation_v: f64,
+    /// Gauge factor set on the instrument.
+    pub gauge_factor_setting: f64,
+    /// Bridge factor set on the instrument.
+    pub bridge_factor: f64,
+    /// Lead wiring, in words.
+    pub wiring: String,
     /// Per load case.
     pub cases: Vec<BridgeCase>,
     /// Per unit of each component the part carries.
@@ -630,6 +636,9 @@ fn evaluate_bridge(
         wanted: b.wanted,
         channel_number: plan.channel,
         excitation_v: vex,
+        gauge_factor_setting: b.instrument.gauge_factor,
+        bridge_factor: b.instrument.bridge_factor,
+        wiring: b.wiring.name().to_owned(),
         cases,
         sensitivities,
         rejection,

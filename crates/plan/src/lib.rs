@@ -12,11 +12,13 @@
 
 pub mod arrangements;
 pub mod cautions;
+pub mod channel_list;
 pub mod cli;
 pub mod demo;
 pub mod document;
 pub mod evaluate;
 pub mod io;
+pub mod sheet;
 pub mod validate;
 pub mod wiring;
 

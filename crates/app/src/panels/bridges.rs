@@ -61,7 +61,7 @@ fn arm_choices(part: &Part) -> Vec<PlanArm> {
 
 /// Draws the four arms as a diamond with what sits in each, the corners' roles and the wiring.
 fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
-    let (resp, painter) = ui.allocate_painter(vec2(420.0, 260.0), egui::Sense::hover());
+    let (resp, painter) = ui.allocate_painter(vec2(460.0, 300.0), egui::Sense::hover());
     let r = resp.rect;
     let c = r.center();
     let top = pos2(c.x, r.top() + 30.0);
@@ -206,10 +206,14 @@ impl BridgesPanel {
             }
             egui::Grid::new("catalogue").num_columns(2).striped(true).show(ui, |ui| {
                 for e in entries {
-                    ui.label(&e.description);
-                    if ui.button(format!("Apply {}", e.name)).on_hover_text(format!("{} — adds its gauges and rewires this bridge", e.description)).clicked() {
-                        out.push(Command::ApplyCatalogue { part: sel.part, bridge: bi, entry: Box::new(e) });
+                    if ui
+                        .button(format!("Apply {}", e.name))
+                        .on_hover_text(format!("{} — adds its gauges and rewires this bridge", e.description))
+                        .clicked()
+                    {
+                        out.push(Command::ApplyCatalogue { part: sel.part, bridge: bi, entry: Box::new(e.clone()) });
                     }
+                    ui.label(&e.description);
                     ui.end_row();
                 }
             });
@@ -255,17 +259,16 @@ impl BridgesPanel {
                         ui.label("No arrangement of the placed grids responds to this load; place grids first.");
                     }
                     Ok(list) => {
-                        egui::Grid::new("suggestions").num_columns(3).striped(true).show(ui, |ui| {
-                            ui.strong("#");
-                            ui.strong("Why");
-                            ui.strong("");
-                            ui.end_row();
+                        egui::Grid::new("suggestions").num_columns(2).striped(true).show(ui, |ui| {
                             for (i, r) in list.iter().enumerate() {
-                                ui.label(format!("{}", i + 1));
-                                ui.label(capitalise(&r.reason));
-                                if ui.button(format!("Apply suggestion {}", i + 1)).on_hover_text("Rewire this bridge to this arrangement").clicked() {
+                                if ui
+                                    .button(format!("Apply suggestion {}", i + 1))
+                                    .on_hover_text("Rewire this bridge to this arrangement")
+                                    .clicked()
+                                {
                                     out.push(Command::ApplySuggestion { part: sel.part, bridge: bi, ranked: Box::new(r.clone()) });
                                 }
+                                ui.label(capitalise(&r.reason));
                                 ui.end_row();
                             }
                         });

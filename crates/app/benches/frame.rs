@@ -1,0 +1,54 @@
+//! CPU time of one frame of the app on the demo, per main view (no GPU: layout, text and
+//! tessellation, as egui_kittest runs them).
+
+use criterion::{Criterion, criterion_group, criterion_main};
+use egui_kittest::Harness;
+use gw_app::app::{GaugewrightApp, Tab};
+use gw_app::settings::AppPaths;
+use gw_app::state::DocumentState;
+
+fn harness(tab: Tab) -> Harness<'static, GaugewrightApp> {
+    let mut app = GaugewrightApp::with_document(
+        DocumentState::new(gw_plan::demo::demo_project(), None),
+        AppPaths::default(),
+        None,
+    );
+    app.tab = tab;
+    let mut h = Harness::builder()
+        .with_size(egui::vec2(1440.0, 900.0))
+        .build_ui_state(|ui, app: &mut GaugewrightApp| app.frame_ui(ui), app);
+    h.run();
+    h
+}
+
+fn bench(c: &mut Criterion) {
+    for (name, tab) in [
+        ("layout", Tab::Layout),
+        ("bridges", Tab::Bridges),
+        ("results", Tab::Results),
+    ] {
+        let mut h = harness(tab);
+        c.bench_function(&format!("frame/{name}"), |b| b.iter(|| h.step()));
+    }
+    // An edit: one load change, re-evaluation of the whole plan, and the next frame.
+    let mut h = harness(Tab::Results);
+    let mut k = 0u32;
+    c.bench_function("frame/results_after_a_load_edit", |b| {
+        b.iter(|| {
+            k += 1;
+            let value = 6000.0 + f64::from(k % 100);
+            h.state_mut()
+                .doc
+                .apply_all(vec![gw_app::command::Command::SetLoad {
+                    part: 0,
+                    case: 0,
+                    component: gw_mechanics::LoadComponent::VerticalForce,
+                    value,
+                }]);
+            h.step();
+        })
+    });
+}
+
+criterion_group!(benches, bench);
+criterion_main!(benches);
