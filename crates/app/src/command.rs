@@ -29,6 +29,16 @@ pub enum Command {
     AddLoadCase { part: usize },
     /// Delete a load case.
     DeleteLoadCase { part: usize, case: usize },
+    /// Set a load case's ramp points, temperature range and whether it is cycled.
+    SetCaseSettings {
+        part: usize,
+        case: usize,
+        ramp_steps: u32,
+        temperature_range_c: (f64, f64),
+        cycled: bool,
+    },
+    /// Put the dimension datum of a part at a surface point.
+    SetDatum { part: usize, x_m: f64, s_m: f64 },
     /// Replace a part's mechanics model (already validated).
     SetMember { part: usize, member: Box<Member> },
     /// Add a gauge of a pattern at a point.

@@ -253,6 +253,36 @@ impl DocumentState {
                 }
                 p.load_cases.remove(case);
             }
+            Command::SetCaseSettings {
+                part,
+                case,
+                ramp_steps,
+                temperature_range_c,
+                cycled,
+            } => {
+                let Some(c) = self.case_mut(part, case) else {
+                    return false;
+                };
+                let (lo, hi) = temperature_range_c;
+                if !(lo.is_finite() && hi.is_finite() && lo <= hi)
+                    || ramp_steps == 0
+                    || ramp_steps > 1000
+                {
+                    return false;
+                }
+                c.ramp_steps = ramp_steps;
+                c.temperature_range_c = temperature_range_c;
+                c.cycled = cycled;
+            }
+            Command::SetDatum { part, x_m, s_m } => {
+                let Some(p) = self.project.parts.get_mut(part) else {
+                    return false;
+                };
+                if !(x_m.is_finite() && s_m.is_finite()) {
+                    return false;
+                }
+                p.datum_m = (x_m, s_m);
+            }
             Command::SetMember { part, member } => {
                 let Some(p) = self.project.parts.get_mut(part) else {
                     return false;

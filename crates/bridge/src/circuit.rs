@@ -143,7 +143,7 @@ pub struct BridgeNodes {
     /// Number of lead wires.
     pub lead_count: usize,
     /// Instrument-side end of each lead wire, with its role ("exc+", "sense out+", …).
-    pub conductors: Vec<(String, Node)>,
+    pub conductors: Vec<(&'static str, Node)>,
 }
 
 /// The solved bridge.
@@ -164,10 +164,27 @@ impl BridgeCircuit {
     pub fn network(&self) -> (Network, BridgeNodes) {
         let mut net = Network::new();
         let names = ["exc+", "exc-", "out+", "out-"];
+        const INSTRUMENT: [&str; 4] = [
+            "exc+ instrument",
+            "exc- instrument",
+            "out+ instrument",
+            "out- instrument",
+        ];
+        const GAUGE: [&str; 4] = ["exc+ gauge", "exc- gauge", "out+ gauge", "out- gauge"];
+        const SENSE: [&str; 4] = ["exc+ sense", "exc- sense", "out+ sense", "out- sense"];
+        const LEAD: [&str; 4] = ["lead exc+", "lead exc-", "lead out+", "lead out-"];
+        const SENSE_LEAD: [&str; 4] = [
+            "sense lead exc+",
+            "sense lead exc-",
+            "sense lead out+",
+            "sense lead out-",
+        ];
+        const SENSE_CONDUCTOR: [&str; 4] = ["sense exc+", "sense exc-", "sense out+", "sense out-"];
+        const ARM: [&str; 4] = ["arm 1", "arm 2", "arm 3", "arm 4"];
         // Instrument drive node of each corner; excitation − is ground.
         let mut inst: [Node; 4] = [0; 4];
         for c in [EXC_POS, OUT_POS, OUT_NEG] {
-            inst[c] = net.node(&format!("{} instrument", names[c]));
+            inst[c] = net.node(INSTRUMENT[c]);
         }
         inst[EXC_NEG] = 0;
         let remote_used = |c: usize| {
@@ -193,15 +210,10 @@ impl BridgeCircuit {
             if !remote_used(c) || ideal_leads {
                 continue;
             }
-            remote[c] = net.node(&format!("{} gauge", names[c]));
-            net.resistor(
-                &format!("lead {}", names[c]),
-                remote[c],
-                inst[c],
-                self.lead_ohm,
-            );
+            remote[c] = net.node(GAUGE[c]);
+            net.resistor(LEAD[c], remote[c], inst[c], self.lead_ohm);
             lead_count += 1;
-            conductors.push((names[c].to_owned(), inst[c]));
+            conductors.push((names[c], inst[c]));
             let output_corner = c == OUT_POS || c == OUT_NEG;
             let separate_sense = match self.wiring {
                 LeadWiring::TwoWire => false,
@@ -211,15 +223,10 @@ impl BridgeCircuit {
                 }
             };
             if separate_sense {
-                sense[c] = net.node(&format!("{} sense", names[c]));
-                net.resistor(
-                    &format!("sense lead {}", names[c]),
-                    remote[c],
-                    sense[c],
-                    self.lead_ohm,
-                );
+                sense[c] = net.node(SENSE[c]);
+                net.resistor(SENSE_LEAD[c], remote[c], sense[c], self.lead_ohm);
                 lead_count += 1;
-                conductors.push((format!("sense {}", names[c]), sense[c]));
+                conductors.push((SENSE_CONDUCTOR[c], sense[c]));
             } else if output_corner {
                 sense[c] = inst[c];
             }
@@ -231,7 +238,7 @@ impl BridgeCircuit {
             } else {
                 (inst[p], inst[q])
             };
-            net.resistor(&format!("arm {}", k + 1), a, b, arm.ohm);
+            net.resistor(ARM[k], a, b, arm.ohm);
             arm_nodes[k] = (a, b);
         }
         if let Some(shunt) = self.shunt {

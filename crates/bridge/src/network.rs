@@ -4,6 +4,8 @@
 //! the voltage between two *other* nodes, as a supply with remote sense does), and independent
 //! current sources.
 
+use std::borrow::Cow;
+
 use nalgebra::{DMatrix, DVector};
 use thiserror::Error;
 
@@ -15,7 +17,7 @@ pub type Node = usize;
 pub enum NetworkError {
     /// A resistance that is zero, negative or not finite.
     #[error("resistor {name} has resistance {ohm} Ω; a resistance must be positive and finite")]
-    BadResistance { name: String, ohm: f64 },
+    BadResistance { name: Cow<'static, str>, ohm: f64 },
     /// The equations have no unique solution (a floating node or a loop of sources).
     #[error("the circuit has no unique solution: {0}")]
     Singular(String),
@@ -25,7 +27,7 @@ pub enum NetworkError {
 #[derive(Debug, Clone, PartialEq)]
 pub struct Resistor {
     /// Name for messages and netlists.
-    pub name: String,
+    pub name: Cow<'static, str>,
     /// First node.
     pub a: Node,
     /// Second node.
@@ -40,7 +42,7 @@ pub struct Resistor {
 #[derive(Debug, Clone, PartialEq)]
 pub struct VoltageSource {
     /// Name.
-    pub name: String,
+    pub name: Cow<'static, str>,
     /// Positive terminal.
     pub pos: Node,
     /// Negative terminal.
@@ -56,7 +58,7 @@ pub struct VoltageSource {
 #[derive(Debug, Clone, PartialEq)]
 pub struct CurrentSource {
     /// Name.
-    pub name: String,
+    pub name: Cow<'static, str>,
     /// Node the current is drawn from.
     pub from: Node,
     /// Node the current is delivered to.
@@ -71,7 +73,7 @@ pub struct Network {
     /// Number of nodes including ground.
     pub node_count: usize,
     /// Node names (index = node), for netlists and messages.
-    pub node_names: Vec<String>,
+    pub node_names: Vec<Cow<'static, str>>,
     /// Resistors.
     pub resistors: Vec<Resistor>,
     /// Voltage sources.
@@ -102,22 +104,22 @@ impl Network {
     pub fn new() -> Self {
         Self {
             node_count: 1,
-            node_names: vec!["0".to_owned()],
+            node_names: vec![Cow::Borrowed("0")],
             ..Self::default()
         }
     }
 
     /// Adds a node and returns it.
-    pub fn node(&mut self, name: &str) -> Node {
-        self.node_names.push(name.to_owned());
+    pub fn node(&mut self, name: impl Into<Cow<'static, str>>) -> Node {
+        self.node_names.push(name.into());
         self.node_count += 1;
         self.node_count - 1
     }
 
     /// Adds a resistor.
-    pub fn resistor(&mut self, name: &str, a: Node, b: Node, ohm: f64) {
+    pub fn resistor(&mut self, name: impl Into<Cow<'static, str>>, a: Node, b: Node, ohm: f64) {
         self.resistors.push(Resistor {
-            name: name.to_owned(),
+            name: name.into(),
             a,
             b,
             ohm,

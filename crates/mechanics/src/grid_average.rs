@@ -132,19 +132,29 @@ pub fn grid_average_state(
     }
     // One check of the centre gives the user the clearest message when the whole grid is off.
     member.locate(&grid.center)?;
+    let faces = member.faces();
+    let Some(extent) = faces.iter().find(|f| f.face == grid.center.face) else {
+        return Err(MechanicsError::PointOffPart {
+            what: "the grid",
+            detail: format!(
+                "a {} has no {}",
+                member.kind_name(),
+                grid.center.face.name()
+            ),
+        });
+    };
     let (ua, wa) = gauss_legendre(order.along);
     let (va, wb) = gauss_legendre(order.across);
     let mut sum = SurfaceState::default();
     for (u, wu) in ua.iter().zip(&wa) {
         for (v, wv) in va.iter().zip(&wb) {
             let p = grid.point(u * grid.length_m / 2.0, v * grid.width_m / 2.0);
-            let located = member.locate(&p).map_err(|e| match e {
-                MechanicsError::PointOffPart { detail, .. } => MechanicsError::PointOffPart {
+            let located = extent
+                .locate(&p)
+                .map_err(|detail| MechanicsError::PointOffPart {
                     what: "part of the grid",
                     detail: format!("{detail}; move the gauge or choose a shorter grid"),
-                },
-                other => other,
-            })?;
+                })?;
             sum = sum + member.state_unchecked(&located, loads) * (wu * wv / 4.0);
         }
     }

@@ -52,7 +52,7 @@ pub use section::Section;
 pub use section_resultants::Resultants;
 pub use shaft::Shaft;
 pub use surface::{Face, FaceExtent, SurfacePoint};
-pub use surface_map::{SurfaceMap, SurfaceQuantity, surface_map};
+pub use surface_map::{Sampling, SurfaceMap, SurfaceQuantity, sample_face, surface_map};
 pub use surface_state::{Principal, SurfaceState, SurfaceStrain, SurfaceStress};
 pub use thick_cylinder::ThickCylinder;
 pub use thin_cylinder::{ThinCylinder, VesselEnds};

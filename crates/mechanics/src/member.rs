@@ -195,41 +195,41 @@ impl Member {
             .collect()
     }
 
-    /// Largest von Mises stress on the gaugeable surface under `loads`, sampled on a
-    /// `n × n` grid of every face (plus the hole edge for a plate), Pa, and where it occurs.
+    /// Largest von Mises stress on the gaugeable surface under `loads`, sampled on an
+    /// `n × n` grid of nodes (edges included) on every face, plus the hole edge of a plate, Pa,
+    /// and where it occurs.
     pub fn peak_von_mises(&self, loads: &LoadVector, n: usize) -> Result<(f64, SurfacePoint)> {
-        if let Some((c, value)) = loads.first_non_finite() {
-            return Err(MechanicsError::NotFinite {
-                name: c.name(),
-                value,
-            });
-        }
+        use crate::surface_map::{Sampling, SurfaceQuantity, sample_face};
         let n = n.max(2);
         let material = self.material();
         let mut best: Option<(f64, SurfacePoint)> = None;
-        let mut consider = |p: SurfacePoint| {
-            let vm = self.state_unchecked(&p, loads).von_mises_pa(material);
+        let mut consider = |vm: f64, p: SurfacePoint| {
             if best.is_none_or(|(b, _)| vm > b) {
                 best = Some((vm, p));
             }
         };
         for f in self.faces() {
-            let (x0, x1) = f.x_range_m;
-            let (s0, s1) = f.s_range_m;
-            for i in 0..n {
-                let x = x0 + (x1 - x0) * i as f64 / (n - 1) as f64;
-                for j in 0..n {
-                    let s = s0 + (s1 - s0) * j as f64 / (n - 1) as f64;
-                    let p = SurfacePoint::new(f.face, x, s);
-                    if let Ok(p) = f.locate(&p) {
-                        consider(p);
+            let map = sample_face(
+                self,
+                f.face,
+                loads,
+                SurfaceQuantity::VonMisesStress,
+                n,
+                n,
+                Sampling::NodesWithEdges,
+            )?;
+            for (j, s) in map.s_m.iter().enumerate() {
+                for (i, x) in map.x_m.iter().enumerate() {
+                    if let Some(vm) = map.values[j * map.x_m.len() + i] {
+                        consider(vm, SurfacePoint::new(f.face, *x, *s));
                     }
                 }
             }
             if let Some(a) = f.hole_radius_m {
                 for k in 0..4 * n {
                     let t = std::f64::consts::TAU * k as f64 / (4 * n) as f64;
-                    consider(SurfacePoint::new(f.face, a * t.cos(), a * t.sin()));
+                    let p = SurfacePoint::new(f.face, a * t.cos(), a * t.sin());
+                    consider(self.state_unchecked(&p, loads).von_mises_pa(material), p);
                 }
             }
         }

@@ -49,6 +49,15 @@ impl SurfaceMap {
     }
 }
 
+/// Where samples sit on a face.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Sampling {
+    /// Centres of `nx × ns` cells (for colour maps).
+    CellCentres,
+    /// `nx × ns` nodes including the edges (for peak values, which often sit on an edge).
+    NodesWithEdges,
+}
+
 /// Samples `quantity` over the whole of `face` on an `nx × ns` grid (cell centres).
 pub fn surface_map(
     member: &Member,
@@ -57,6 +66,19 @@ pub fn surface_map(
     quantity: SurfaceQuantity,
     nx: usize,
     ns: usize,
+) -> Result<SurfaceMap> {
+    sample_face(member, face, loads, quantity, nx, ns, Sampling::CellCentres)
+}
+
+/// Samples `quantity` over `face` with the chosen sampling.
+pub fn sample_face(
+    member: &Member,
+    face: Face,
+    loads: &LoadVector,
+    quantity: SurfaceQuantity,
+    nx: usize,
+    ns: usize,
+    sampling: Sampling,
 ) -> Result<SurfaceMap> {
     if let Some((c, value)) = loads.first_non_finite() {
         return Err(MechanicsError::NotFinite {
@@ -73,9 +95,14 @@ pub fn surface_map(
     };
     let (nx, ns) = (nx.max(1), ns.max(1));
     let centres = |(a, b): (f64, f64), n: usize| -> Vec<f64> {
-        (0..n)
-            .map(|i| a + (b - a) * (i as f64 + 0.5) / n as f64)
-            .collect()
+        match sampling {
+            Sampling::CellCentres => (0..n)
+                .map(|i| a + (b - a) * (i as f64 + 0.5) / n as f64)
+                .collect(),
+            Sampling::NodesWithEdges => (0..n)
+                .map(|i| a + (b - a) * i as f64 / (n.max(2) - 1) as f64)
+                .collect(),
+        }
     };
     let x_m = centres(extent.x_range_m, nx);
     let s_m = centres(extent.s_range_m, ns);

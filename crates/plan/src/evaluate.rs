@@ -48,7 +48,7 @@ impl Default for EvalOptions {
             monte_carlo_trials: 0,
             quadrature: QuadratureOrder::default(),
             peak_samples: 24,
-            temperature_steps: 12,
+            temperature_steps: 8,
         }
     }
 }

@@ -182,6 +182,13 @@ impl CanvasPanel {
                     angle_rad: 0.0,
                 });
             }
+            if let Some(g) = sel.gauge.and_then(|g| part.gauges.get(g)) && ui
+                .button("Datum here")
+                .on_hover_text("Put the dimension datum at the selected gauge's centre; the build sheet measures from it")
+                .clicked()
+            {
+                out.push(Command::SetDatum { part: sel.part, x_m: g.position.x_m, s_m: g.position.s_m });
+            }
             if let Some(g) = sel.gauge.and_then(|g| part.gauges.get(g).map(|p| (g, p))) {
                 for (label, step) in [("Turn 15° left", 15f64), ("Turn 15° right", -15.0)] {
                     if ui

@@ -63,6 +63,68 @@ impl ProjectPanel {
                 units.format_stress(material.yield_strength_pa)
             ))
             .on_hover_text("Typical values; use the certificate values of the real material where they matter.");
+            ui.horizontal(|ui| {
+                egui::ComboBox::from_label("Material")
+                    .selected_text(material.name.clone())
+                    .show_ui(ui, |ui| {
+                        for entry in gw_mechanics::MATERIAL_LIBRARY {
+                            if ui.selectable_label(part.material_key.as_deref() == Some(entry.key), entry.name).on_hover_text(entry.source).clicked() {
+                                let mut m = part.member.clone();
+                                *m.material_mut() = entry.material();
+                                out.push(Command::SetMember { part: sel.part, member: Box::new(m) });
+                            }
+                        }
+                    })
+                    .response
+                    .on_hover_text("Pick a library material; edit the values below for a custom one");
+            });
+            egui::Grid::new("material").num_columns(2).show(ui, |ui| {
+                let m = material.clone();
+                let mut edits: Vec<(usize, f64)> = Vec::new();
+                let label = ui.label("Young's modulus").id;
+                if let Some(v) = value_edit(ui, label, units, Quantity::Pressure, m.youngs_modulus_pa, "Young's modulus E") {
+                    edits.push((0, v));
+                }
+                ui.end_row();
+                let label = ui.label("Poisson's ratio").id;
+                if let Some(v) = value_edit(ui, label, units, Quantity::Plain, m.poisson_ratio, "Poisson's ratio ν (0 to 0.5)") {
+                    edits.push((1, v));
+                }
+                ui.end_row();
+                let label = ui.label("Expansion (ppm/°C)").id;
+                if let Some(v) = value_edit(ui, label, units, Quantity::Plain, m.cte_per_c * 1e6, "Coefficient of thermal expansion, 10⁻⁶ per °C") {
+                    edits.push((2, v * 1e-6));
+                }
+                ui.end_row();
+                let label = ui.label("Yield strength").id;
+                if let Some(v) = value_edit(ui, label, units, Quantity::Pressure, m.yield_strength_pa, "0.2 % yield strength") {
+                    edits.push((3, v));
+                }
+                ui.end_row();
+                for (k, v) in edits {
+                    let mut member = part.member.clone();
+                    let mat = member.material_mut();
+                    match k {
+                        0 => mat.youngs_modulus_pa = v,
+                        1 => mat.poisson_ratio = v,
+                        2 => mat.cte_per_c = v,
+                        _ => mat.yield_strength_pa = v,
+                    }
+                    mat.name = "Custom material".into();
+                    match member.validate() {
+                        Ok(()) => out.push(Command::SetMember { part: sel.part, member: Box::new(member) }),
+                        Err(e) => *field_error = Some((sel.part, 100 + k, e.to_string())),
+                    }
+                }
+                if let Some((p, k, msg)) = field_error.as_ref()
+                    && *p == sel.part
+                    && *k >= 100
+                {
+                    ui.label("");
+                    ui.colored_label(super::palette::FAIL, msg);
+                    ui.end_row();
+                }
+            });
             egui::Grid::new("dimensions").num_columns(2).show(ui, |ui| {
                 for (k, f) in fields(&part.member).iter().enumerate() {
                     let label = ui.label(f.label).id;
@@ -121,6 +183,35 @@ impl ProjectPanel {
                             out.push(Command::SetLoad { part: sel.part, case: sel.case, component: c, value: v });
                         }
                         ui.end_row();
+                    }
+                });
+                ui.horizontal(|ui| {
+                    let mut steps = case.ramp_steps;
+                    let mut lo = units.to_display(Quantity::TemperatureChange, case.temperature_range_c.0);
+                    let mut hi = units.to_display(Quantity::TemperatureChange, case.temperature_range_c.1);
+                    let mut cycled = case.cycled;
+                    let t = units.label(Quantity::TemperatureChange);
+                    let mut changed = false;
+                    ui.label("Ramp points");
+                    changed |= ui
+                        .add(egui::DragValue::new(&mut steps).range(1..=200))
+                        .on_hover_text("Points from zero to full load in the output plot")
+                        .changed();
+                    ui.label("Temperature from");
+                    changed |= ui
+                        .add(egui::DragValue::new(&mut lo).suffix(format!(" {t}")))
+                        .on_hover_text("Low end of the apparent-strain plot, as a change from the reference temperature")
+                        .changed();
+                    ui.label("to");
+                    changed |= ui
+                        .add(egui::DragValue::new(&mut hi).suffix(format!(" {t}")))
+                        .on_hover_text("High end of the apparent-strain plot, as a change from the reference temperature")
+                        .changed();
+                    changed |= ui.checkbox(&mut cycled, "Cycled").on_hover_text("Applied many times: fatigue margins apply").changed();
+                    if changed {
+                        let lo = units.from_display(Quantity::TemperatureChange, lo);
+                        let hi = units.from_display(Quantity::TemperatureChange, hi);
+                        out.push(Command::SetCaseSettings { part: sel.part, case: sel.case, ramp_steps: steps, temperature_range_c: (lo.min(hi), hi.max(lo)), cycled });
                     }
                 });
                 if case.proof_test {
