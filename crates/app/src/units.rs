@@ -26,6 +26,8 @@ pub enum Quantity {
     Moment,
     /// Pressure or stress (Pa).
     Pressure,
+    /// Elastic modulus (Pa), shown in GPa or Mpsi.
+    Modulus,
     /// Temperature change (°C).
     TemperatureChange,
     /// Absolute temperature (°C).
@@ -61,6 +63,8 @@ impl Units {
             (Units::Si, Quantity::ForcePerLength) => (1.0, 0.0, "N/m"),
             (Units::Si, Quantity::Moment) => (1.0, 0.0, "N·m"),
             (Units::Si, Quantity::Pressure) => (1e-6, 0.0, "MPa"),
+            (Units::Si, Quantity::Modulus) => (1e-9, 0.0, "GPa"),
+            (Units::UsCustomary, Quantity::Modulus) => (1e-6 / PSI_PA, 0.0, "Mpsi"),
             (Units::Si, Quantity::TemperatureChange) => (1.0, 0.0, "°C"),
             (Units::Si, Quantity::Temperature) => (1.0, 0.0, "°C"),
             (Units::UsCustomary, Quantity::Length) => (1.0 / IN_M, 0.0, "in"),

@@ -17,7 +17,7 @@ pub struct ThermalPoint {
     pub gauge_thermal_output: f64,
     /// Expansion mismatch between part and gauge match, net over the arms.
     pub expansion_mismatch: f64,
-    /// Gauge-factor drift, shown as the change of the full-load reading.
+    /// Gauge-factor drift, shown as the change of the full-load reading (span change).
     pub gauge_factor_drift: f64,
     /// Lead-resistance change (with the small nonlinear remainder of the exact circuit).
     pub lead_resistance: f64,
@@ -85,9 +85,16 @@ pub fn thermal_sweep(
         let total = model.displayed(&thermal_only)?;
         // Leads: the exact circuit's apparent strain less the arm contributions.
         let lead_resistance = total - (lot + mismatch + completion);
-        let mut hot_full = mechanical_full;
-        hot_full[LoadComponent::TemperatureChange] = dt;
-        let gauge_factor_drift = model.displayed(&hot_full)? - total - full_at_ref;
+        // Gauge-factor drift changes the span: the full-load reading scales by GF(T)/GF(Tref).
+        let gf_ratio = (0..4)
+            .find_map(|k| match b.arms[k] {
+                ArmElement::Grid(_) => model
+                    .spec(k)
+                    .map(|s| s.gauge_factor_at(t_ref, t) / s.gauge_factor),
+                _ => None,
+            })
+            .unwrap_or(1.0);
+        let gauge_factor_drift = full_at_ref * (gf_ratio - 1.0);
         out.push(ThermalPoint {
             temperature_c: t,
             gauge_thermal_output: lot,

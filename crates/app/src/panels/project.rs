@@ -82,7 +82,7 @@ impl ProjectPanel {
                 let m = material.clone();
                 let mut edits: Vec<(usize, f64)> = Vec::new();
                 let label = ui.label("Young's modulus").id;
-                if let Some(v) = value_edit(ui, label, units, Quantity::Pressure, m.youngs_modulus_pa, "Young's modulus E") {
+                if let Some(v) = value_edit(ui, label, units, Quantity::Modulus, m.youngs_modulus_pa, "Young's modulus E") {
                     edits.push((0, v));
                 }
                 ui.end_row();
