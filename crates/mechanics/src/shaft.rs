@@ -7,7 +7,7 @@ use crate::load::{LoadComponent, LoadVector};
 use crate::material::Material;
 use crate::section::{Section, checked};
 use crate::section_resultants::{Resultants, unit_strains};
-use crate::surface::{Face, FaceExtent, SurfacePoint};
+use crate::surface::{FaceExtent, SurfacePoint};
 use crate::surface_state::SurfaceState;
 
 /// A round shaft along x from 0 to `length_m`; loads are constant along it.
@@ -84,14 +84,7 @@ impl Shaft {
 
     /// The round face.
     pub fn faces(&self) -> Vec<FaceExtent> {
-        let half = std::f64::consts::PI * self.radius_m();
-        vec![FaceExtent {
-            face: Face::Round,
-            x_range_m: (0.0, self.length_m),
-            s_range_m: (-half, half),
-            wraps: true,
-            hole_radius_m: None,
-        }]
+        vec![FaceExtent::round(self.length_m, self.radius_m())]
     }
 
     pub(crate) fn state_at(

@@ -80,6 +80,19 @@ pub struct FaceExtent {
 }
 
 impl FaceExtent {
+    /// The round outer surface of a cylinder of `radius_m`, from x = 0 to `length_m`, with the
+    /// arc length running half a turn either way from the top line.
+    pub fn round(length_m: f64, radius_m: f64) -> Self {
+        let half = std::f64::consts::PI * radius_m;
+        Self {
+            face: Face::Round,
+            x_range_m: (0.0, length_m),
+            s_range_m: (-half, half),
+            wraps: true,
+            hole_radius_m: None,
+        }
+    }
+
     /// A point of this face brought into range (s wrapped on round faces), or why it is off.
     pub fn locate(&self, point: &SurfacePoint) -> Result<SurfacePoint, String> {
         if !point.x_m.is_finite() || !point.s_m.is_finite() {

@@ -100,14 +100,10 @@ impl ThickCylinder {
 
     /// The round outer face.
     pub fn faces(&self) -> Vec<FaceExtent> {
-        let half = std::f64::consts::PI * self.outer_diameter_m / 2.0;
-        vec![FaceExtent {
-            face: Face::Round,
-            x_range_m: (0.0, self.length_m),
-            s_range_m: (-half, half),
-            wraps: true,
-            hole_radius_m: None,
-        }]
+        vec![FaceExtent::round(
+            self.length_m,
+            self.outer_diameter_m / 2.0,
+        )]
     }
 
     pub(crate) fn state_at(

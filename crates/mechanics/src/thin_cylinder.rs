@@ -24,6 +24,19 @@ pub enum VesselEnds {
 /// Formulas for Stress and Strain*, 7th ed., §13.1 (from memory).
 pub const THIN_WALL_MIN_RATIO: f64 = 10.0;
 
+/// Checks mean radius / wall against [`THIN_WALL_MIN_RATIO`]; the error names the
+/// thick-walled model to use instead.
+pub(crate) fn check_thin_wall(mean_radius_m: f64, wall_m: f64) -> Result<()> {
+    let ratio = mean_radius_m / wall_m;
+    if ratio < THIN_WALL_MIN_RATIO {
+        return Err(MechanicsError::ThinWallOutsideValidity {
+            ratio,
+            limit: THIN_WALL_MIN_RATIO,
+        });
+    }
+    Ok(())
+}
+
 /// A thin-walled cylinder; strains are reported on its outer surface. Local x is axial,
 /// local y is hoop.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -83,14 +96,7 @@ impl ThinCylinder {
             self.outer_diameter_m,
         )?;
         self.material.validate()?;
-        let ratio = self.mean_radius_m() / self.wall_m;
-        if ratio < THIN_WALL_MIN_RATIO {
-            return Err(MechanicsError::ThinWallOutsideValidity {
-                ratio,
-                limit: THIN_WALL_MIN_RATIO,
-            });
-        }
-        Ok(())
+        check_thin_wall(self.mean_radius_m(), self.wall_m)
     }
 
     /// Hoop and axial membrane stresses per unit internal pressure: σh = p r / t,
@@ -108,14 +114,10 @@ impl ThinCylinder {
 
     /// The round outer face.
     pub fn faces(&self) -> Vec<FaceExtent> {
-        let half = std::f64::consts::PI * self.outer_diameter_m / 2.0;
-        vec![FaceExtent {
-            face: Face::Round,
-            x_range_m: (0.0, self.length_m),
-            s_range_m: (-half, half),
-            wraps: true,
-            hole_radius_m: None,
-        }]
+        vec![FaceExtent::round(
+            self.length_m,
+            self.outer_diameter_m / 2.0,
+        )]
     }
 
     pub(crate) fn state_at(

@@ -2,12 +2,12 @@
 
 use serde::{Deserialize, Serialize};
 
-use crate::error::{MechanicsError, Result, inner_smaller, positive_dimension};
+use crate::error::{Result, inner_smaller, positive_dimension};
 use crate::load::{LoadComponent, LoadVector};
 use crate::material::Material;
 use crate::surface::{Face, FaceExtent, SurfacePoint};
 use crate::surface_state::SurfaceState;
-use crate::thin_cylinder::THIN_WALL_MIN_RATIO;
+use crate::thin_cylinder::check_thin_wall;
 
 /// A thin-walled sphere; strains on the outer surface. Local x is meridional (`x_m` is the
 /// meridian arc from the equator), local y is along the parallel.
@@ -55,14 +55,7 @@ impl ThinSphere {
             self.outer_diameter_m,
         )?;
         self.material.validate()?;
-        let ratio = self.mean_radius_m() / self.wall_m;
-        if ratio < THIN_WALL_MIN_RATIO {
-            return Err(MechanicsError::ThinWallOutsideValidity {
-                ratio,
-                limit: THIN_WALL_MIN_RATIO,
-            });
-        }
-        Ok(())
+        check_thin_wall(self.mean_radius_m(), self.wall_m)
     }
 
     /// Membrane stress per unit pressure, σ = p r / (2t) in every direction.
