@@ -593,7 +593,12 @@ impl GaugewrightApp {
         });
         self.modal_ui(ui);
         if !out.is_empty() {
+            let before = self.doc.evaluations;
             self.doc.apply_all(out);
+            if self.doc.evaluations != before {
+                // Draw again before presenting, so every panel shows the edit in this frame.
+                ui.ctx().request_discard("the project changed");
+            }
             ui.ctx().request_repaint();
         }
         let title = self.doc.title();

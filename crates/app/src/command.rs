@@ -62,6 +62,18 @@ pub enum Command {
     },
     /// Delete a gauge (and clear the arms that used it).
     DeleteGauge { part: usize, gauge: usize },
+    /// Replace a gauge's data (already validated).
+    SetGaugeSpec {
+        part: usize,
+        gauge: usize,
+        spec: Box<gw_bridge::GaugeSpec>,
+    },
+    /// Replace a bridge's settings (excitation, leads, instrument, channel).
+    SetBridge {
+        part: usize,
+        bridge: usize,
+        plan: Box<gw_plan::BridgePlan>,
+    },
     /// Set what goes in one arm.
     SetArm {
         part: usize,

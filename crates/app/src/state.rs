@@ -367,6 +367,35 @@ impl DocumentState {
                 }
                 self.selection.gauge = None;
             }
+            Command::SetGaugeSpec { part, gauge, spec } => {
+                let Some(g) = self
+                    .project
+                    .parts
+                    .get_mut(part)
+                    .and_then(|p| p.gauges.get_mut(gauge))
+                else {
+                    return false;
+                };
+                if spec.validate().is_err() {
+                    return false;
+                }
+                g.spec = *spec;
+            }
+            Command::SetBridge { part, bridge, plan } => {
+                let Some(p) = self.project.parts.get_mut(part) else {
+                    return false;
+                };
+                let Ok(b) = gw_plan::validate::bridge_from_plan(p, &plan) else {
+                    return false;
+                };
+                if b.validate(&p.gauges).is_err() {
+                    return false;
+                }
+                let Some(slot) = p.bridges.get_mut(bridge) else {
+                    return false;
+                };
+                *slot = *plan;
+            }
             Command::SetArm {
                 part,
                 bridge,

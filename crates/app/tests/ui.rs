@@ -240,3 +240,27 @@ fn switch_units() {
     // The stored value is unchanged.
     assert_eq!(vertical_force(&h), 6000.0);
 }
+
+#[test]
+fn raising_the_excitation_shows_a_failing_self_heating_margin_and_clicking_it_selects_the_bridge() {
+    let mut h = harness();
+    h.get_by_label("Bridges").click();
+    h.run();
+    h.get_by_label("Excitation, leads and channel").click();
+    h.run();
+    set_value(&mut h, "Excitation", "10");
+    let plan = &h.state().doc.project.parts[0].bridges[0];
+    assert_eq!(
+        plan.excitation,
+        gw_bridge::Excitation::Voltage { volts: 10.0 }
+    );
+    let finding = "part \"Reaction arm\", bridge \"Arm bending\", Rated pull: grid power vs self-heating limit";
+    h.get_by_label_contains(finding);
+    // Select another bridge, then click the finding: the bridge at fault is selected again.
+    h.get_by_label("Arm shear web").click();
+    h.run();
+    assert_eq!(h.state().doc.selection.bridge, Some(1));
+    h.get_by_label_contains(finding).click();
+    h.run();
+    assert_eq!(h.state().doc.selection.bridge, Some(0));
+}

@@ -171,6 +171,41 @@ impl BridgesPanel {
                     }
                 }
             });
+            egui::CollapsingHeader::new("Excitation, leads and channel").default_open(false).show(ui, |ui| {
+                let mut edited = plan.clone();
+                let mut changed = false;
+                egui::Grid::new("bridge settings").num_columns(2).show(ui, |ui| {
+                    let mut num = |ui: &mut egui::Ui, label: &str, value: &mut f64, scale: f64, suffix: &str, help: &str| {
+                        let id = ui.label(label).id;
+                        let mut shown = *value * scale;
+                        let speed = (shown.abs() * 0.005).max(0.001);
+                        if ui
+                            .add(egui::DragValue::new(&mut shown).speed(speed).suffix(suffix))
+                            .labelled_by(id)
+                            .on_hover_text(help)
+                            .changed()
+                        {
+                            *value = shown / scale;
+                            changed = true;
+                        }
+                        ui.end_row();
+                    };
+                    if let gw_bridge::Excitation::Voltage { volts } = &mut edited.excitation {
+                        num(ui, "Excitation", volts, 1.0, " V", "Bridge excitation voltage");
+                    }
+                    num(ui, "Lead length", &mut edited.lead.length_m, 1.0, " m", "Length of each lead wire");
+                    num(ui, "Lead resistance", &mut edited.lead.ohm_per_m, 1.0, " Ω/m", "Resistance per metre of one lead");
+                    num(ui, "Instrument gauge factor", &mut edited.instrument.gauge_factor, 1.0, "", "Gauge factor set on the instrument");
+                    num(ui, "Bridge factor", &mut edited.instrument.bridge_factor, 1.0, "", "How many times the target strain the bridge reads");
+                    num(ui, "Gain", &mut edited.signal.gain, 1.0, "", "Amplifier gain");
+                    num(ui, "Input range", &mut edited.signal.input_range_v, 1.0, " V", "± range at the ADC");
+                    num(ui, "Noise density", &mut edited.signal.amplifier_noise_v_per_rt_hz, 1e9, " nV/√Hz", "Amplifier input noise density");
+                    num(ui, "Bandwidth", &mut edited.signal.bandwidth_hz, 1.0, " Hz", "Measurement bandwidth");
+                });
+                if changed {
+                    out.push(Command::SetBridge { part: sel.part, bridge: bi, plan: Box::new(edited) });
+                }
+            });
             let choices = arm_choices(part);
             egui::Grid::new("arms").num_columns(1).show(ui, |ui| {
                 for k in 0..4 {

@@ -361,9 +361,28 @@ impl CanvasPanel {
                     && *d == gi
                 {
                     let (x, s) = to_world(pointer);
-                    // Snap to 0.5 mm.
+                    // Snap to 0.5 mm, then to a nearby station (another gauge, the datum, the
+                    // load point) and to the face's centre line, within 1.5 mm.
                     let snap = |v: f64| (v / 0.0005).round() * 0.0005;
-                    let candidate = SurfacePoint::new(current, snap(x), snap(s));
+                    let mut stations: Vec<f64> = part
+                        .gauges
+                        .iter()
+                        .enumerate()
+                        .filter(|(k, _)| *k != gi)
+                        .map(|(_, o)| o.position.x_m)
+                        .collect();
+                    stations.push(part.datum_m.0);
+                    if let gw_mechanics::Member::Beam(b) = member {
+                        stations.push(b.load_position_m);
+                    }
+                    let near = |v: f64, targets: &[f64]| {
+                        targets
+                            .iter()
+                            .copied()
+                            .find(|t| (t - v).abs() < 0.0015)
+                            .unwrap_or(snap(v))
+                    };
+                    let candidate = SurfacePoint::new(current, near(x, &stations), near(s, &[0.0]));
                     if member.locate(&candidate).is_ok() {
                         *p = candidate;
                     }

@@ -220,6 +220,48 @@ impl ProjectPanel {
             }
             ui.separator();
             ui.strong("Gauges");
+            if let Some((gi, g)) = sel.gauge.and_then(|g| part.gauges.get(g).map(|p| (g, p))) {
+                egui::CollapsingHeader::new(format!("Gauge data of {}", g.id)).default_open(false).show(ui, |ui| {
+                    let s = &g.spec;
+                    let mut spec = s.clone();
+                    let mut changed = false;
+                    egui::Grid::new("gauge data").num_columns(2).show(ui, |ui| {
+                        let mut num = |ui: &mut egui::Ui, label: &str, value: &mut f64, scale: f64, suffix: &str, help: &str| {
+                            let id = ui.label(label).id;
+                            let mut shown = *value * scale;
+                            let speed = (shown.abs() * 0.005).max(0.001);
+                            if ui
+                                .add(egui::DragValue::new(&mut shown).speed(speed).suffix(suffix))
+                                .labelled_by(id)
+                                .on_hover_text(help)
+                                .changed()
+                            {
+                                *value = shown / scale;
+                                changed = true;
+                            }
+                            ui.end_row();
+                        };
+                        num(ui, "Grid length", &mut spec.grid_length_m, 1e3, " mm", "Active grid length");
+                        num(ui, "Grid width", &mut spec.grid_width_m, 1e3, " mm", "Active grid width");
+                        num(ui, "Resistance", &mut spec.resistance_ohm, 1.0, " Ω", "Nominal grid resistance");
+                        num(ui, "Gauge factor", &mut spec.gauge_factor, 1.0, "", "Gauge factor of the lot");
+                        num(ui, "Gauge-factor tolerance", &mut spec.gauge_factor_tolerance, 100.0, " %", "± tolerance of the gauge factor");
+                        num(ui, "Transverse sensitivity", &mut spec.transverse_sensitivity, 100.0, " %", "Kt of the grid");
+                        num(ui, "Strain limit", &mut spec.strain_limit, 1e6, " µε", "Largest strain the grid survives once");
+                        num(ui, "Fatigue strain limit", &mut spec.fatigue_strain_limit, 1e6, " µε", "Strain amplitude for the rated cycles");
+                        num(ui, "Matched expansion", &mut spec.thermal_output.matched_cte_per_c, 1e6, " ppm/°C", "Expansion coefficient the gauge is matched to");
+                        num(ui, "Allowed power density", &mut spec.max_power_density_w_m2, 1e-3, " kW/m²", "Self-heating limit; depends on the part's heat sinking");
+                    });
+                    if changed {
+                        match spec.validate() {
+                            Ok(()) => out.push(Command::SetGaugeSpec { part: sel.part, gauge: gi, spec: Box::new(spec) }),
+                            Err(e) => {
+                                ui.colored_label(super::palette::FAIL, e.to_string());
+                            }
+                        }
+                    }
+                });
+            }
             egui::Grid::new("gauges").num_columns(4).striped(true).show(ui, |ui| {
                 for (i, g) in part.gauges.iter().enumerate() {
                     if ui.selectable_label(sel.gauge == Some(i), &g.id).on_hover_text("Select this gauge").clicked() {
@@ -229,9 +271,11 @@ impl ProjectPanel {
                     let mut deg = g.angle_rad.to_degrees();
                     if ui
                         .add(egui::DragValue::new(&mut deg).speed(1.0).suffix("°"))
-                        .on_hover_text("Grid direction from the member axis, counter-clockwise seen from outside")
+                        .on_hover_text("Grid direction from the member axis, counter-clockwise seen from outside; snaps to 0.5°")
                         .changed()
                     {
+                        // Snap to half degrees: finer than any layout can hold.
+                        let deg = (deg * 2.0).round() / 2.0;
                         out.push(Command::SetGaugeAngle { part: sel.part, gauge: i, angle_rad: deg.to_radians() });
                     }
                     if ui.small_button("Delete").on_hover_text("Delete this gauge; arms that used it get a completion resistor").clicked() {
