@@ -58,7 +58,7 @@ pub struct BridgeUncertainty {
 }
 
 /// Inputs, in order: lot gauge factor, Kt, per active grid (angle, position), per completion
-/// arm (tolerance), lead resistance, temperature, excitation, gain, quantization, noise.
+/// arm (tolerance, drift), lead resistance, temperature, excitation, gain, quantization, noise.
 pub fn bridge_uncertainty(
     member: &Member,
     model: &BridgeModel,
@@ -170,6 +170,13 @@ pub fn bridge_uncertainty(
                 0.0,
                 c.tolerance,
             ));
+            // Drift with the instrument's temperature, known as well as the part temperature.
+            inputs.push(InputQuantity::normal(
+                &format!("drift of completion resistor in arm {} (relative)", k + 1),
+                "",
+                0.0,
+                c.tcr_per_c * tol.temperature_c,
+            ));
             completions.push(k);
         }
     }
@@ -223,9 +230,9 @@ pub fn bridge_uncertainty(
         }
         let base = 2 + 2 * n_geo;
         for (i, k) in completions.iter().enumerate() {
-            p.completion_scale[*k] = 1.0 + x[base + i];
+            p.completion_scale[*k] = (1.0 + x[base + 2 * i]) * (1.0 + x[base + 2 * i + 1]);
         }
-        let rest = base + n_comp;
+        let rest = base + 2 * n_comp;
         p.lead_scale = 1.0 + x[rest];
         p.temperature_offset_c = x[rest + 1];
         let displayed = model.perturbed_displayed(loads, &p).unwrap_or(f64::NAN);
