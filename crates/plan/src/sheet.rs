@@ -367,6 +367,18 @@ fn drawing(w: &mut Writer, part: &Part) {
             }
             let (gx, gy) = to(g.position.x_m, g.position.s_m);
             w.text_at(gx + 4.0, gy - 4.0, 8.0, true, g.id.clone());
+            // Dimensions from the datum beside each gauge.
+            w.text_at(
+                gx + 4.0,
+                gy + 6.0,
+                6.5,
+                false,
+                format!(
+                    "{:.1} / {:.1} mm",
+                    (g.position.x_m - dx) * 1e3,
+                    (g.position.s_m - ds) * 1e3
+                ),
+            );
         }
         w.y = top + h + 14.0;
         w.para(
