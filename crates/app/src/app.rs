@@ -280,7 +280,8 @@ impl GaugewrightApp {
         }
     }
 
-    fn autosave(&mut self, now_s: f64) {
+    /// Writes the recovery file when there are unsaved changes and the interval has passed.
+    pub fn autosave(&mut self, now_s: f64) {
         if now_s - self.last_autosave_s < AUTOSAVE_S {
             return;
         }

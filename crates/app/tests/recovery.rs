@@ -1,0 +1,115 @@
+//! Autosave to a recovery file, the offer to recover on the next start, and the settings that
+//! bring the last project back.
+
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
+use gw_app::app::{FileDialogs, GaugewrightApp};
+use gw_app::command::Command;
+use gw_app::settings::AppPaths;
+use gw_mechanics::LoadComponent;
+
+fn paths(tag: &str) -> AppPaths {
+    let dir = std::env::temp_dir().join(format!("gw-recovery-{tag}-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    AppPaths {
+        settings: Some(dir.join("settings.ron")),
+        recovery: Some(dir.join("recovery.ron")),
+    }
+}
+
+#[test]
+fn unsaved_work_is_autosaved_and_offered_back_on_the_next_start() {
+    let p = paths("autosave");
+    let recovery = p.recovery.clone().unwrap();
+    // First run: the demo opens; an edit is autosaved after the interval.
+    let mut first = GaugewrightApp::new(p.clone(), None);
+    first.dialogs = FileDialogs::TypedPath;
+    assert_eq!(first.doc.project.name, "Winch test stand (demo)");
+    first.doc.apply_all(vec![Command::SetLoad {
+        part: 0,
+        case: 0,
+        component: LoadComponent::VerticalForce,
+        value: 7777.0,
+    }]);
+    first.autosave(30.0);
+    assert!(!recovery.exists(), "autosave waits for its interval");
+    first.autosave(61.0);
+    assert!(recovery.exists());
+    drop(first); // as if the app had crashed
+
+    // Next start: the app offers the recovered work.
+    let second = GaugewrightApp::new(p, None);
+    let mut h = Harness::builder()
+        .with_size(egui::vec2(1400.0, 900.0))
+        .build_ui_state(|ui, app: &mut GaugewrightApp| app.frame_ui(ui), second);
+    h.run();
+    h.get_by_label_contains("closed with unsaved work");
+    h.get_by_label("Recover").click();
+    h.run();
+    let doc = &h.state().doc;
+    assert_eq!(
+        doc.project.parts[0].load_cases[0].value(LoadComponent::VerticalForce),
+        7777.0
+    );
+    assert!(
+        doc.dirty,
+        "recovered work is unsaved until the user saves it"
+    );
+}
+
+#[test]
+fn the_last_saved_project_reopens_on_the_next_start() {
+    let p = paths("reopen");
+    let file = p.settings.as_ref().unwrap().with_file_name("plan.ron");
+    let mut first = GaugewrightApp::new(p.clone(), None);
+    first.doc.apply_all(vec![Command::SetLoad {
+        part: 0,
+        case: 0,
+        component: LoadComponent::VerticalForce,
+        value: 6100.0,
+    }]);
+    first.save_path(&file);
+    assert!(!first.doc.dirty);
+    drop(first);
+    let second = GaugewrightApp::new(p, None);
+    assert_eq!(second.doc.path.as_deref(), Some(file.as_path()));
+    assert_eq!(
+        second.doc.project.parts[0].load_cases[0].value(LoadComponent::VerticalForce),
+        6100.0
+    );
+}
+
+#[derive(Debug)]
+struct DroppedPath(std::path::PathBuf);
+
+impl egui::DroppedFile for DroppedPath {
+    fn path(&self) -> &std::path::Path {
+        &self.0
+    }
+    fn bytes(&self) -> Result<Vec<u8>, String> {
+        std::fs::read(&self.0).map_err(|e| e.to_string())
+    }
+}
+
+#[test]
+fn dropping_a_project_file_on_the_window_opens_it() {
+    let p = paths("drop");
+    let file = p.settings.as_ref().unwrap().with_file_name("dropped.ron");
+    let mut project = gw_plan::demo::demo_project();
+    project.name = "Dropped plan".into();
+    gw_plan::save_project(&project, &file).unwrap();
+    let mut h = Harness::builder()
+        .with_size(egui::vec2(1400.0, 900.0))
+        .build_ui_state(
+            |ui, app: &mut GaugewrightApp| app.frame_ui(ui),
+            GaugewrightApp::new(p, None),
+        );
+    h.run();
+    h.input_mut()
+        .dropped_files
+        .push(std::sync::Arc::new(DroppedPath(file.clone())));
+    h.run();
+    assert_eq!(h.state().doc.project.name, "Dropped plan");
+    assert_eq!(h.state().doc.path.as_deref(), Some(file.as_path()));
+}
