@@ -358,12 +358,13 @@ impl GaugewrightApp {
                     self.guarded(Pending::OpenDemo);
                 }
                 ui.menu_button("Recent", |ui| {
+                    ui.label("Projects opened or saved lately:");
                     let recent = self.settings.recent_files.clone();
                     if recent.is_empty() {
                         ui.label("No recent files");
                     }
                     for p in recent {
-                        if ui.button(p.display().to_string()).clicked() {
+                        if ui.button(p.display().to_string()).on_hover_text("Open this project").clicked() {
                             self.guarded(Pending::Open(p));
                         }
                     }
@@ -376,7 +377,7 @@ impl GaugewrightApp {
                 {
                     self.save();
                 }
-                if ui.button("Save as…").clicked() {
+                if ui.button("Save as…").on_hover_text("Save the project to a new file").clicked() {
                     self.pick_save();
                 }
                 ui.separator();
@@ -409,7 +410,11 @@ impl GaugewrightApp {
                     (Units::Si, "SI (mm, N, MPa, °C)"),
                     (Units::UsCustomary, "US customary (in, lbf, psi, °F)"),
                 ] {
-                    if ui.selectable_label(self.doc.units == u, name).clicked() {
+                    if ui
+                        .selectable_label(self.doc.units == u, name)
+                        .on_hover_text("Display units; values are stored in SI whatever is shown")
+                        .clicked()
+                    {
                         out.push(Command::SetUnits(u));
                         self.settings.units = u;
                         self.settings.save(self.paths.settings.as_deref());

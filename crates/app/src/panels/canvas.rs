@@ -157,7 +157,9 @@ impl CanvasPanel {
                     for p in GaugePattern::ALL {
                         ui.selectable_value(pattern, p, p.name());
                     }
-                });
+                })
+                .response
+                .on_hover_text("Grid pattern of the next gauge added");
             if ui
                 .button("Add gauge")
                 .on_hover_text("Place a gauge of the chosen pattern at the middle of this face")

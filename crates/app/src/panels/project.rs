@@ -159,7 +159,9 @@ impl ProjectPanel {
                                 out.push(Command::Select(Selection { case: i, ..sel }));
                             }
                         }
-                    });
+                    })
+                    .response
+                    .on_hover_text("The load case the map, readings and margins show");
                 if ui.button("Add").on_hover_text("Add a load case copied from this one").clicked() {
                     out.push(Command::AddLoadCase { part: sel.part });
                 }
