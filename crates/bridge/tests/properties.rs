@@ -39,7 +39,9 @@ proptest! {
         // Halves: arms 1–2 (output +) and arms 4–3 (output −); swap 1↔4 and 2↔3.
         let swapped = circuit([ohms[3], ohms[2], ohms[1], ohms[0]], [g[3], g[2], g[1], g[0]], lead, w);
         let b = swapped.solve().unwrap().output_v;
-        prop_assert!((a + b).abs() < 1e-12, "{a} vs {b}");
+        // Equal and opposite up to the solver's round-off (0.1 nV on a 5 V bridge; low-ohm
+        // leads make the equations stiffer).
+        prop_assert!((a + b).abs() <= 1e-8 * a.abs() + 1e-10, "{a} vs {b}");
     }
 
     #[test]
