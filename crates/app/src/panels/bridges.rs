@@ -176,19 +176,7 @@ impl BridgesPanel {
                 let mut changed = false;
                 egui::Grid::new("bridge settings").num_columns(2).show(ui, |ui| {
                     let mut num = |ui: &mut egui::Ui, label: &str, value: &mut f64, scale: f64, suffix: &str, help: &str| {
-                        let id = ui.label(label).id;
-                        let mut shown = *value * scale;
-                        let speed = (shown.abs() * 0.005).max(0.001);
-                        if ui
-                            .add(egui::DragValue::new(&mut shown).speed(speed).suffix(suffix))
-                            .labelled_by(id)
-                            .on_hover_text(help)
-                            .changed()
-                        {
-                            *value = shown / scale;
-                            changed = true;
-                        }
-                        ui.end_row();
+                        changed |= super::scaled_number_row(ui, label, value, scale, suffix, help);
                     };
                     if let gw_bridge::Excitation::Voltage { volts } = &mut edited.excitation {
                         num(ui, "Excitation", volts, 1.0, " V", "Bridge excitation voltage");

@@ -7,6 +7,31 @@ pub mod help;
 pub mod plots;
 pub mod project;
 
+/// A labelled number in a two-column grid, shown as `value × scale` with `suffix`; writes the
+/// value back and returns true when the user changed it. Ends the grid row.
+pub fn scaled_number_row(
+    ui: &mut egui::Ui,
+    label: &str,
+    value: &mut f64,
+    scale: f64,
+    suffix: &str,
+    help: &str,
+) -> bool {
+    let id = ui.label(label).id;
+    let mut shown = *value * scale;
+    let speed = (shown.abs() * 0.005).max(0.001);
+    let changed = ui
+        .add(egui::DragValue::new(&mut shown).speed(speed).suffix(suffix))
+        .labelled_by(id)
+        .on_hover_text(help)
+        .changed();
+    if changed {
+        *value = shown / scale;
+    }
+    ui.end_row();
+    changed
+}
+
 /// Colours of our own calm engineering look.
 pub mod palette {
     use egui::Color32;

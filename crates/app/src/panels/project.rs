@@ -229,19 +229,7 @@ impl ProjectPanel {
                     let mut changed = false;
                     egui::Grid::new("gauge data").num_columns(2).show(ui, |ui| {
                         let mut num = |ui: &mut egui::Ui, label: &str, value: &mut f64, scale: f64, suffix: &str, help: &str| {
-                            let id = ui.label(label).id;
-                            let mut shown = *value * scale;
-                            let speed = (shown.abs() * 0.005).max(0.001);
-                            if ui
-                                .add(egui::DragValue::new(&mut shown).speed(speed).suffix(suffix))
-                                .labelled_by(id)
-                                .on_hover_text(help)
-                                .changed()
-                            {
-                                *value = shown / scale;
-                                changed = true;
-                            }
-                            ui.end_row();
+                            changed |= super::scaled_number_row(ui, label, value, scale, suffix, help);
                         };
                         num(ui, "Grid length", &mut spec.grid_length_m, 1e3, " mm", "Active grid length");
                         num(ui, "Grid width", &mut spec.grid_width_m, 1e3, " mm", "Active grid width");
