@@ -22,6 +22,8 @@ fn spec(pattern: GaugePattern) -> GaugeSpec {
         thermal_output: ThermalOutput {
             matched_cte_per_c: 10.8e-6,
             lot_polynomial: vec![-32e-6, 2.2e-6, -3.5e-8],
+            reference_gauge_factor: None,
+            valid_range_c: None,
         },
         gauge_factor_temp_coeff_per_c: 1e-4,
         max_power_density_w_m2: 3000.0,

@@ -141,6 +141,18 @@ pub struct Bridge {
 impl Bridge {
     /// Checks the bridge against the placed gauges.
     pub fn validate(&self, gauges: &[PlacedGauge]) -> Result<(), BridgeError> {
+        self.validate_arms(gauges)?;
+        self.validate_settings()
+    }
+
+    /// True when at least one arm holds an active grid.
+    pub fn is_wired(&self) -> bool {
+        self.arms.iter().any(|a| matches!(a, ArmElement::Grid(_)))
+    }
+
+    /// Checks what sits in the arms: an active grid somewhere, grids that exist, each grid in
+    /// one arm only, completion resistors of positive value.
+    pub fn validate_arms(&self, gauges: &[PlacedGauge]) -> Result<(), BridgeError> {
         let what = |s: &str| format!("bridge \"{}\": {s}", self.name);
         if !self.arms.iter().any(|a| matches!(a, ArmElement::Grid(_))) {
             return Err(BridgeError::Invalid {
@@ -194,6 +206,12 @@ impl Bridge {
                 }
             }
         }
+        Ok(())
+    }
+
+    /// Checks leads, instrument, excitation, signal chain and shunt.
+    pub fn validate_settings(&self) -> Result<(), BridgeError> {
+        let what = |s: &str| format!("bridge \"{}\": {s}", self.name);
         check_non_negative(&what("lead length"), self.lead.length_m)?;
         check_non_negative(&what("lead resistance per metre"), self.lead.ohm_per_m)?;
         check_positive(

@@ -113,7 +113,7 @@ pub fn choose(
             spec.gauge_factor_at(t_ref, t_ref + dt)
                 * spec
                     .thermal_output
-                    .apparent_strain(cte, kt, t_ref, t_ref + dt)
+                    .apparent_strain(cte, kt, spec.gauge_factor, t_ref, t_ref + dt)
         };
         for element in 0..gauge.element_count() {
             let footprint = gauge.footprint(element);

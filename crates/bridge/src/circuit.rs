@@ -39,6 +39,48 @@ pub enum LeadWiring {
 }
 
 impl LeadWiring {
+    /// The wirings offered for a bridge with `at_gauge` arms at the gauge site: a quarter
+    /// bridge is wired with two or three wires; half and full bridges without or with remote
+    /// sense (common practice).
+    pub fn choices(at_gauge: usize) -> [LeadWiring; 2] {
+        if at_gauge <= 1 {
+            [LeadWiring::TwoWire, LeadWiring::ThreeWire]
+        } else {
+            [LeadWiring::ThreeWire, LeadWiring::RemoteSense]
+        }
+    }
+
+    /// The name the trade gives this wiring of a bridge whose arms sit at the gauge site as
+    /// `at_gauge` says: "two-wire" and "three-wire" for a quarter bridge; for half and full
+    /// bridges the number of conductors and whether sense leads are run
+    /// ("four-wire, no sense", "six-wire with remote sense" for a full bridge).
+    pub fn trade_name(self, at_gauge: [bool; 4]) -> String {
+        let count = at_gauge.iter().filter(|a| **a).count();
+        if count <= 1 {
+            return self.name().to_owned();
+        }
+        let circuit = BridgeCircuit {
+            arms: at_gauge.map(|at_gauge| ArmResistor {
+                ohm: 350.0,
+                at_gauge,
+            }),
+            wiring: self,
+            lead_ohm: 1.0,
+            excitation: Excitation::default(),
+            amplifier_input_ohm: None,
+            shunt: None,
+        };
+        let conductors = circuit.network().1.lead_count;
+        let words = [
+            "no", "one", "two", "three", "four", "five", "six", "seven", "eight",
+        ];
+        let n = words.get(conductors).copied().unwrap_or("many");
+        match self {
+            LeadWiring::RemoteSense => format!("{n}-wire with remote sense"),
+            _ => format!("{n}-wire, no sense"),
+        }
+    }
+
     /// Plain name.
     pub fn name(self) -> &'static str {
         match self {

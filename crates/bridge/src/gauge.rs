@@ -66,15 +66,34 @@ impl GaugePattern {
 pub struct ThermalOutput {
     /// Expansion coefficient of the material the gauge is matched to, 1/°C.
     pub matched_cte_per_c: f64,
-    /// Lot polynomial on the matched material: apparent strain = Σ cₖ Tᵏ (T in °C), m/m.
-    /// Empty means no residual thermal output on the matched material.
+    /// Lot polynomial on the matched material: apparent strain = Σ cₖ Tᵏ (T in °C), m/m, as
+    /// indicated with the instrument set to `reference_gauge_factor`. Empty means no residual
+    /// thermal output on the matched material.
     pub lot_polynomial: Vec<f64>,
+    /// Gauge factor the instrument was set to when the lot's curve was recorded. The curve is
+    /// an indicated strain, i.e. ΔR/R ÷ that factor, so on a grid of another gauge factor the
+    /// same resistance change is the curve × reference ÷ actual (data-sheet correction, from
+    /// memory). `None`: the curve was recorded at the grid's own gauge factor.
+    #[serde(default)]
+    pub reference_gauge_factor: Option<f64>,
+    /// Temperatures between which the curve was measured, °C (`None`: not stated). Outside
+    /// this range the polynomial is an extrapolation.
+    #[serde(default)]
+    pub valid_range_c: Option<(f64, f64)>,
 }
 
 impl ThermalOutput {
     /// Apparent strain at part temperature `t_c` relative to `reference_c`, for a part of
-    /// expansion `part_cte_per_c` and a grid of transverse sensitivity `kt`, m/m.
-    pub fn apparent_strain(&self, part_cte_per_c: f64, kt: f64, reference_c: f64, t_c: f64) -> f64 {
+    /// expansion `part_cte_per_c` and a grid of transverse sensitivity `kt` and gauge factor
+    /// `gauge_factor`, m/m (as a strain of that grid: ΔR/R = gauge_factor × result).
+    pub fn apparent_strain(
+        &self,
+        part_cte_per_c: f64,
+        kt: f64,
+        gauge_factor: f64,
+        reference_c: f64,
+        t_c: f64,
+    ) -> f64 {
         let poly = |t: f64| {
             self.lot_polynomial
                 .iter()
@@ -82,8 +101,25 @@ impl ThermalOutput {
                 .fold(0.0, |acc, c| acc * t + c)
         };
         let transverse = (1.0 + kt) / (1.0 - CALIBRATION_POISSON_RATIO * kt);
-        poly(t_c) - poly(reference_c)
+        (poly(t_c) - poly(reference_c)) * self.lot_scale(gauge_factor)
             + (part_cte_per_c - self.matched_cte_per_c) * (t_c - reference_c) * transverse
+    }
+}
+
+impl ThermalOutput {
+    /// Factor from the recorded curve to a strain of a grid of `gauge_factor`:
+    /// reference gauge factor ÷ gauge factor (1 when no reference is stated).
+    pub fn lot_scale(&self, gauge_factor: f64) -> f64 {
+        match self.reference_gauge_factor {
+            Some(reference) if gauge_factor > 0.0 => reference / gauge_factor,
+            _ => 1.0,
+        }
+    }
+
+    /// Whether the curve covers `t_c` (true when no range is stated).
+    pub fn covers(&self, t_c: f64) -> bool {
+        self.valid_range_c
+            .is_none_or(|(lo, hi)| (lo - 1e-9..=hi + 1e-9).contains(&t_c))
     }
 }
 
@@ -146,6 +182,20 @@ impl GaugeSpec {
         check_positive("strain limit", self.strain_limit)?;
         check_positive("fatigue strain limit", self.fatigue_strain_limit)?;
         check_positive("allowed power density", self.max_power_density_w_m2)?;
+        if let Some(reference) = self.thermal_output.reference_gauge_factor {
+            check_positive(
+                "reference gauge factor of the thermal-output curve",
+                reference,
+            )?;
+        }
+        if let Some((lo, hi)) = self.thermal_output.valid_range_c
+            && !(lo.is_finite() && hi.is_finite() && lo < hi && lo >= -273.15)
+        {
+            return Err(BridgeError::Invalid {
+                what: "temperature range of the thermal-output curve".into(),
+                why: format!("{lo} to {hi} °C must run from low to high, above absolute zero"),
+            });
+        }
         if !self.gauge_factor_temp_coeff_per_c.is_finite()
             || !self.thermal_output.matched_cte_per_c.is_finite()
             || self

@@ -330,6 +330,7 @@ impl BridgeModel {
                         strain += spec.thermal_output.apparent_strain(
                             self.part_cte_per_c,
                             kt,
+                            spec.gauge_factor,
                             self.reference_temperature_c,
                             t,
                         );

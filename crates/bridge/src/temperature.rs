@@ -67,12 +67,17 @@ pub fn thermal_sweep(
                     let matched = spec.thermal_output.apparent_strain(
                         spec.thermal_output.matched_cte_per_c,
                         kt,
+                        spec.gauge_factor,
                         t_ref,
                         t,
                     );
-                    let total =
-                        spec.thermal_output
-                            .apparent_strain(model.part_cte_per_c(), kt, t_ref, t);
+                    let total = spec.thermal_output.apparent_strain(
+                        model.part_cte_per_c(),
+                        kt,
+                        spec.gauge_factor,
+                        t_ref,
+                        t,
+                    );
                     lot += sign * gf * matched;
                     mismatch += sign * gf * (total - matched);
                     uncompensated += (gf * total).abs();

@@ -197,9 +197,11 @@ fn thermal_output_from_expansion_mismatch() {
     let t = ThermalOutput {
         matched_cte_per_c: 10.8e-6,
         lot_polynomial: vec![],
+        reference_gauge_factor: None,
+        valid_range_c: None,
     };
     assert_relative_eq!(
-        t.apparent_strain(23.4e-6, 0.0, 20.0, 30.0),
+        t.apparent_strain(23.4e-6, 0.0, 2.0, 20.0, 30.0),
         126e-6,
         max_relative = 1e-12
     );
@@ -207,11 +209,50 @@ fn thermal_output_from_expansion_mismatch() {
     let lot = ThermalOutput {
         matched_cte_per_c: 10.8e-6,
         lot_polynomial: vec![-30e-6, 2e-6, -0.05e-6],
+        reference_gauge_factor: None,
+        valid_range_c: None,
     };
     let poly = |x: f64| -30e-6 + 2e-6 * x - 0.05e-6 * x * x;
     assert_relative_eq!(
-        lot.apparent_strain(10.8e-6, 0.02, 20.0, 60.0),
+        lot.apparent_strain(10.8e-6, 0.02, 2.0, 20.0, 60.0),
         poly(60.0) - poly(20.0),
         max_relative = 1e-12
+    );
+}
+
+#[test]
+fn wiring_names_count_the_conductors_the_trade_counts() {
+    // Conductor counts as wired in practice (common practice): a quarter bridge with two or
+    // three leads; a full bridge with four leads, six with remote sense; a half bridge with
+    // its completion at the instrument with three leads, five with remote sense.
+    let full = [true; 4];
+    assert_eq!(
+        LeadWiring::ThreeWire.trade_name(full),
+        "four-wire, no sense"
+    );
+    assert_eq!(LeadWiring::TwoWire.trade_name(full), "four-wire, no sense");
+    assert_eq!(
+        LeadWiring::RemoteSense.trade_name(full),
+        "six-wire with remote sense"
+    );
+    let half = [true, true, false, false];
+    assert_eq!(
+        LeadWiring::ThreeWire.trade_name(half),
+        "three-wire, no sense"
+    );
+    assert_eq!(
+        LeadWiring::RemoteSense.trade_name(half),
+        "five-wire with remote sense"
+    );
+    let quarter = [true, false, false, false];
+    assert_eq!(LeadWiring::TwoWire.trade_name(quarter), "two-wire");
+    assert_eq!(LeadWiring::ThreeWire.trade_name(quarter), "three-wire");
+    assert_eq!(
+        LeadWiring::choices(1),
+        [LeadWiring::TwoWire, LeadWiring::ThreeWire]
+    );
+    assert_eq!(
+        LeadWiring::choices(4),
+        [LeadWiring::ThreeWire, LeadWiring::RemoteSense]
     );
 }

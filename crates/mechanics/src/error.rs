@@ -56,6 +56,10 @@ pub enum MechanicsError {
     #[error("load position {position} lies outside the span 0 to {span}; place the load on the beam", position = mm(*position_m), span = mm(*span_m))]
     LoadOutsideSpan { position_m: f64, span_m: f64 },
 
+    /// A beam without a load point.
+    #[error("the beam has no load point; add one where the vertical and lateral forces act")]
+    NoLoadPoint,
+
     /// Three rosette angles that do not determine a plane strain state.
     #[error(
         "rosette angles {angles_deg:?}° do not determine the strain state; two grids share a direction"

@@ -39,7 +39,7 @@ pub mod thin_cylinder;
 pub mod thin_sphere;
 pub mod transverse;
 
-pub use beam::{Beam, BeamSupport};
+pub use beam::{Beam, BeamSupport, LoadPoint};
 pub use error::{MechanicsError, Result};
 pub use given_state::{GivenQuantity, GivenState};
 pub use grid_average::{GridFootprint, QuadratureOrder, grid_average_state, grid_average_strain};

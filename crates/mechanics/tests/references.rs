@@ -335,6 +335,47 @@ fn simply_supported_midspan_point_load() {
 }
 
 #[test]
+fn four_point_bending_has_constant_moment_and_no_shear_between_the_loads() {
+    // Gere & Goodno 7th ed., §4.5 and Appendix H, table H-2 case 6 (two equal loads P at a from
+    // each support): M = P a between the loads, V = 0 there; bottom in tension.
+    let (b, h, l, a, p) = (0.03, 0.06, 1.2, 0.35, 2500.0);
+    let m = Member::Beam(Beam {
+        section: rect(b, h),
+        material: steel(),
+        length_m: l,
+        support: BeamSupport::SimplySupported,
+        load_points: vec![LoadPoint::whole(a), LoadPoint::whole(l - a)],
+    });
+    m.validate().unwrap();
+    let pl = loads(&[(LoadComponent::VerticalForce, p)]);
+    let sigma = p * a / (b * h * h / 6.0);
+    for x in [a + 0.01, l / 2.0, l - a - 0.01] {
+        let st = state(&m, Face::Bottom, x, 0.0, &pl);
+        assert_relative_eq!(st.strain.normal_x, sigma / E, max_relative = 1e-12);
+        let side = state(&m, Face::Front, x, 0.0, &pl);
+        assert!(
+            side.strain.shear_xy.abs() < 1e-15,
+            "no shear between the loads"
+        );
+    }
+    // Outside the loads the shear is the reaction P (rectangle: τ = 3V / 2A at the centre).
+    let side = state(&m, Face::Front, a / 2.0, 0.0, &pl);
+    assert_relative_eq!(
+        side.strain.shear_xy.abs(),
+        1.5 * p / (b * h) / g(),
+        max_relative = 1e-12
+    );
+}
+
+#[test]
+fn a_beam_without_a_load_point_is_refused_with_the_way_out() {
+    let mut beam = Beam::new(rect(0.03, 0.06), steel(), 1.0, BeamSupport::Cantilever, 1.0).unwrap();
+    beam.load_points.clear();
+    let e = beam.validate().unwrap_err().to_string();
+    assert!(e.contains("add one"), "{e}");
+}
+
+#[test]
 fn simply_supported_off_centre_point_load() {
     // Gere & Goodno 7th ed., Appendix H, table H-2 case 5: M under the load = P a b / L.
     let (b, h, l, a, p) = (0.03, 0.06, 1.2, 0.4, 4000.0);

@@ -3,10 +3,10 @@
 
 use gw_bridge::arrangement::{ArmSlot, CatalogueEntry};
 use gw_bridge::chooser::RankedArrangement;
-use gw_bridge::{ArmElement, BridgeModel, Setup};
+use gw_bridge::{ArmElement, Bridge, BridgeModel, PlacedGauge, Setup};
 use gw_mechanics::{LoadVector, QuadratureOrder};
 
-use crate::document::{BridgePlan, Part, PlanArm};
+use crate::document::{BridgePlan, Part, PlanArm, PlanGauge, StockGauge, stock_name_for};
 use crate::validate::bridge_from_plan;
 
 /// A gauge id not yet used on the part: "G1", "G2", …
@@ -20,20 +20,35 @@ pub fn next_gauge_id(part: &Part) -> String {
 /// Bridge factor that makes the instrument display the strain the first active grid sees from
 /// the wanted load: Σ±ε / ε(first grid), from grid-averaged strains per unit wanted load.
 /// Falls back to 1 when the bridge does not respond.
-pub fn bridge_factor_for(part: &Part, plan: &BridgePlan, reference_temperature_c: f64) -> f64 {
-    let Ok(bridge) = bridge_from_plan(part, plan) else {
+pub fn bridge_factor_for(
+    part: &Part,
+    gauges: &[PlacedGauge],
+    plan: &BridgePlan,
+    reference_temperature_c: f64,
+) -> f64 {
+    let Ok(bridge) = bridge_from_plan(part, gauges, plan) else {
         return 1.0;
     };
+    bridge_factor_of(part, gauges, &bridge, reference_temperature_c)
+}
+
+/// [`bridge_factor_for`] of a bridge already resolved.
+pub fn bridge_factor_of(
+    part: &Part,
+    gauges: &[PlacedGauge],
+    bridge: &Bridge,
+    reference_temperature_c: f64,
+) -> f64 {
     let setup = Setup {
         member: &part.member,
-        gauges: &part.gauges,
+        gauges,
         reference_temperature_c,
         quadrature: QuadratureOrder::default(),
     };
-    let Ok(model) = BridgeModel::new(&setup, &bridge) else {
+    let Ok(model) = BridgeModel::new(&setup, bridge) else {
         return 1.0;
     };
-    let unit = LoadVector::unit(plan.wanted);
+    let unit = LoadVector::unit(bridge.wanted);
     let signs = gw_bridge::model::ARM_SIGNS;
     let mut sum = 0.0;
     let mut first = None;
@@ -52,20 +67,25 @@ pub fn bridge_factor_for(part: &Part, plan: &BridgePlan, reference_temperature_c
     }
 }
 
-/// Adds the entry's gauges to the part (with new ids) and sets the bridge's arms, arrangement
-/// name and bridge factor.
+/// Adds the entry's gauges to the part (with new ids, their data in the project's gauge stock)
+/// and sets the bridge's arms and arrangement name. The bridge factor follows from the part.
 pub fn apply_catalogue_entry(
     part: &mut Part,
+    stock: &mut Vec<StockGauge>,
     bridge: usize,
     entry: &CatalogueEntry,
-    reference_temperature_c: f64,
 ) {
     let mut ids = Vec::new();
     for g in &entry.gauges {
-        let mut placed = g.clone();
-        placed.id = next_gauge_id(part);
-        ids.push(placed.id.clone());
-        part.gauges.push(placed);
+        let id = next_gauge_id(part);
+        ids.push(id.clone());
+        part.gauges.push(PlanGauge {
+            id,
+            stock: stock_name_for(stock, &g.spec),
+            lot: None,
+            position: g.position,
+            angle_rad: g.angle_rad,
+        });
     }
     let Some(plan) = part.bridges.get_mut(bridge) else {
         return;
@@ -92,20 +112,12 @@ pub fn apply_catalogue_entry(
         ArmSlot::Completion => PlanArm::Completion(completion),
     });
     plan.arrangement = entry.name.clone();
-    let plan_copy = plan.clone();
-    let bf = bridge_factor_for(part, &plan_copy, reference_temperature_c);
-    if let Some(plan) = part.bridges.get_mut(bridge) {
-        plan.instrument.bridge_factor = bf;
-    }
+    plan.bridge_factor_override = None;
 }
 
-/// Rewires a bridge to a ranked chooser entry (grids already on the part).
-pub fn apply_ranked(
-    part: &mut Part,
-    bridge: usize,
-    ranked: &RankedArrangement,
-    reference_temperature_c: f64,
-) {
+/// Rewires a bridge to a ranked chooser entry (grids already on the part, indices into its
+/// gauge list).
+pub fn apply_ranked(part: &mut Part, bridge: usize, ranked: &RankedArrangement) {
     let id = |g: usize| part.gauges.get(g).map(|p| p.id.clone()).unwrap_or_default();
     let arms = ranked.arms.map(|a| match a {
         ArmElement::Grid(g) => PlanArm::Grid {
@@ -123,9 +135,5 @@ pub fn apply_ranked(
     };
     plan.arms = arms;
     plan.arrangement = "Suggested arrangement".into();
-    let plan_copy = plan.clone();
-    let bf = bridge_factor_for(part, &plan_copy, reference_temperature_c);
-    if let Some(plan) = part.bridges.get_mut(bridge) {
-        plan.instrument.bridge_factor = bf;
-    }
+    plan.bridge_factor_override = None;
 }

@@ -1,11 +1,18 @@
 //! The command-line subcommands, as functions that return their output and exit status so
 //! they can be tested without a process.
+//!
+//! Exit status of every subcommand: 0 when nothing fails, 1 when a margin fails or something
+//! could not be computed (the output is still complete), 2 when the project file is broken or
+//! unreadable, or an output file cannot be written.
 
 use std::fmt::Write;
 use std::path::Path;
 
 use crate::demo::demo_project;
-use crate::evaluate::{EvalOptions, Evaluation, Severity, UncertaintyDepth, evaluate};
+use crate::document::Project;
+use crate::evaluate::{
+    BridgeEvaluation, EvalOptions, Evaluation, Severity, UncertaintyDepth, evaluate,
+};
 use crate::io::{PlanError, load_project, save_project};
 
 /// What a subcommand prints and returns.
@@ -44,10 +51,15 @@ pub fn check(path: &Path) -> CliOutput {
         ..EvalOptions::default()
     };
     let ev = evaluate(&project, &options);
+    summary_output(&project, &ev, Detail::Margins)
+}
+
+/// The human summary of an evaluation, with the closing verdict, and its exit status.
+fn summary_output(project: &Project, ev: &Evaluation, detail: Detail) -> CliOutput {
     let mut out = String::new();
     let _ = writeln!(out, "{} — {} part(s)", project.name, project.parts.len());
-    write_summary(&mut out, &ev);
-    let code = if ev.has_failures() { 1 } else { 0 };
+    write_summary(&mut out, ev, detail);
+    let code = status(ev);
     let _ = writeln!(
         out,
         "\n{}",
@@ -64,7 +76,22 @@ pub fn check(path: &Path) -> CliOutput {
     }
 }
 
-fn write_summary(out: &mut String, ev: &Evaluation) {
+/// 1 when a margin fails or something could not be computed, else 0.
+fn status(ev: &Evaluation) -> i32 {
+    if ev.has_failures() { 1 } else { 0 }
+}
+
+/// How much the human summary says about each bridge.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Detail {
+    /// Readings per load case, margins and the shunt check (`check`).
+    Margins,
+    /// Also the instrument settings, rejection of unwanted loads, the signal chain and the
+    /// uncertainty budget when computed (`eval`).
+    Everything,
+}
+
+fn write_summary(out: &mut String, ev: &Evaluation, detail: Detail) {
     for part in &ev.parts {
         let _ = writeln!(out, "\n{} ({})", part.name, part.kind);
         for c in &part.cases {
@@ -84,6 +111,9 @@ fn write_summary(out: &mut String, ev: &Evaluation) {
                 b.arrangement,
                 b.wanted.name()
             );
+            if detail == Detail::Everything {
+                write_settings(out, b);
+            }
             for c in &b.cases {
                 let _ = writeln!(
                     out,
@@ -112,6 +142,10 @@ fn write_summary(out: &mut String, ev: &Evaluation) {
                     ue(s.expected_reading_strain)
                 );
             }
+            if detail == Detail::Everything {
+                write_rejection_and_noise(out, b);
+                write_uncertainty(out, b);
+            }
         }
     }
     if !ev.findings.is_empty() {
@@ -133,12 +167,106 @@ fn write_summary(out: &mut String, ev: &Evaluation) {
     }
 }
 
-/// `gaugewright eval FILE --json`: every computed figure as JSON.
-pub fn eval_json(path: &Path, monte_carlo: bool) -> CliOutput {
-    let project = match load_project(path) {
-        Ok(p) => p,
-        Err(e) => return broken(path, &e),
+/// Instrument settings of one bridge, on one line.
+fn write_settings(out: &mut String, b: &BridgeEvaluation) {
+    let _ = writeln!(
+        out,
+        "    channel {}, excitation {:.2} V, gauge factor {:.3}, bridge factor {:.3}, {}",
+        b.channel_number, b.excitation_v, b.gauge_factor_setting, b.bridge_factor, b.wiring
+    );
+}
+
+/// Rejection of unwanted loads, noise and resolution, and the zero offset band.
+fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation) {
+    if !b.rejection.is_empty() {
+        let list: Vec<String> = b
+            .rejection
+            .iter()
+            .map(|r| {
+                // Evaluation caps the figure at 200 dB where the arrangement cancels exactly.
+                if r.rejection_db >= 200.0 {
+                    format!("{} completely", r.component.name())
+                } else {
+                    format!("{} by {:.0} dB", r.component.name(), r.rejection_db)
+                }
+            })
+            .collect();
+        let _ = writeln!(out, "    rejects {}", list.join(", "));
+    }
+    let _ = writeln!(
+        out,
+        "    noise {} rms, resolution {} per count, zero offset within ± {:.3} mV/V",
+        ue_small(b.channel.noise_strain_rms),
+        ue_small(b.channel.resolution_strain),
+        b.zero_offset_band_mv_per_v
+    );
+}
+
+/// The uncertainty of the wanted load inferred from the reading, when it was computed.
+fn write_uncertainty(out: &mut String, b: &BridgeEvaluation) {
+    let Some(u) = &b.uncertainty else { return };
+    let case = b.uncertainty_case.as_deref().unwrap_or("—");
+    let _ = writeln!(
+        out,
+        "    uncertainty at \"{case}\": {} ± {} (GUM, k = {})",
+        si(u.gum.value, u.unit),
+        si(u.gum.expanded, u.unit),
+        u.gum.coverage_factor
+    );
+    if let Some(top) = u.gum.rows.first() {
+        let _ = writeln!(out, "      largest contribution: {}", top.name);
+    }
+    // Without --monte-carlo the propagation runs one trial, which gives no interval.
+    let mc = &u.monte_carlo;
+    if mc.trials > 1 {
+        let _ = writeln!(
+            out,
+            "      Monte Carlo, {} trials: 95 % interval {} to {}",
+            mc.trials,
+            si(mc.interval_95.0, u.unit),
+            si(mc.interval_95.1, u.unit)
+        );
+    }
+}
+
+/// Microstrain text with three significant figures, for noise and resolution (often far
+/// below 1 µε).
+fn ue_small(strain: f64) -> String {
+    let ue = strain * 1e6;
+    let decimals = if ue == 0.0 || !ue.is_finite() {
+        1
+    } else {
+        (2 - ue.abs().log10().floor() as i32).clamp(0, 9) as usize
     };
+    format!("{ue:.decimals$} µε")
+}
+
+/// A value in an SI unit with a decimal prefix and four significant figures ("12.35 kN").
+/// Temperatures and plain numbers keep no prefix.
+fn si(value: f64, unit: &str) -> String {
+    let prefixed = !matches!(unit, "" | "°C");
+    let (scale, prefix) = match value.abs() {
+        a if !prefixed || a == 0.0 || !a.is_finite() => (1.0, ""),
+        a if a >= 1e9 => (1e9, "G"),
+        a if a >= 1e6 => (1e6, "M"),
+        a if a >= 1e3 => (1e3, "k"),
+        a if a >= 1.0 => (1.0, ""),
+        a if a >= 1e-3 => (1e-3, "m"),
+        _ => (1e-6, "µ"),
+    };
+    let scaled = value / scale;
+    let decimals = match scaled.abs() {
+        a if a >= 100.0 => 1,
+        a if a >= 10.0 => 2,
+        _ => 3,
+    };
+    format!("{scaled:.decimals$} {prefix}{unit}")
+        .trim_end()
+        .to_owned()
+}
+
+fn load_and_evaluate(path: &Path, monte_carlo: bool) -> Result<(Project, Evaluation), CliOutput> {
+    let project = load_project(path).map_err(|e| broken(path, &e))?;
     let options = EvalOptions {
         uncertainty: if monte_carlo {
             UncertaintyDepth::GumAndMonteCarlo
@@ -148,9 +276,28 @@ pub fn eval_json(path: &Path, monte_carlo: bool) -> CliOutput {
         ..EvalOptions::default()
     };
     let ev = evaluate(&project, &options);
+    Ok((project, ev))
+}
+
+/// `gaugewright eval FILE`: the human summary of every bridge (settings, readings per load
+/// case in mV/V and displayed µε, margins, rejection, noise, uncertainty), then findings and
+/// cautions. Status as for [`check`].
+pub fn eval_summary(path: &Path, monte_carlo: bool) -> CliOutput {
+    match load_and_evaluate(path, monte_carlo) {
+        Ok((project, ev)) => summary_output(&project, &ev, Detail::Everything),
+        Err(out) => out,
+    }
+}
+
+/// `gaugewright eval FILE --json`: every computed figure as JSON.
+pub fn eval_json(path: &Path, monte_carlo: bool) -> CliOutput {
+    let ev = match load_and_evaluate(path, monte_carlo) {
+        Ok((_, ev)) => ev,
+        Err(out) => return out,
+    };
     match serde_json::to_string_pretty(&ev) {
         Ok(json) => CliOutput {
-            code: if ev.has_failures() { 1 } else { 0 },
+            code: status(&ev),
             stdout: json + "\n",
             stderr: String::new(),
         },
@@ -221,5 +368,33 @@ pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>) -> CliOutput {
         code: if ev.has_failures() { 1 } else { 0 },
         stdout,
         stderr: String::new(),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::{si, ue_small};
+
+    #[test]
+    fn si_picks_a_prefix_and_keeps_four_significant_figures() {
+        assert_eq!(si(12_345.0, "N"), "12.35 kN");
+        assert_eq!(si(-3.2e6, "Pa"), "-3.200 MPa");
+        assert_eq!(si(0.5, "N·m"), "500.0 mN·m");
+        assert_eq!(si(250.0, "N/m"), "250.0 N/m");
+        assert_eq!(si(0.0, "N"), "0.000 N");
+    }
+
+    #[test]
+    fn si_leaves_temperatures_and_plain_numbers_unprefixed() {
+        assert_eq!(si(1500.0, "°C"), "1500.0 °C");
+        assert_eq!(si(0.75, ""), "0.750");
+    }
+
+    #[test]
+    fn small_microstrain_keeps_three_significant_figures() {
+        assert_eq!(ue_small(2.34e-8), "0.0234 µε");
+        assert_eq!(ue_small(1.2e-10), "0.000120 µε");
+        assert_eq!(ue_small(3.456e-6), "3.46 µε");
+        assert_eq!(ue_small(0.0), "0.0 µε");
     }
 }

@@ -4,18 +4,17 @@
 use gw_bridge::bridge::COPPER_TCR_PER_C;
 use gw_bridge::bridge_uncertainty::InstallationTolerances;
 use gw_bridge::{
-    CompletionResistor, Excitation, GaugePattern, InstrumentSetting, InstrumentTemperature,
-    LeadWire, LeadWiring, PlacedGauge, ShuntLocation, ShuntPlan, SignalChain,
+    CompletionResistor, Excitation, GaugePattern, InstrumentTemperature, LeadWire, LeadWiring,
+    ShuntLocation, ShuntPlan, SignalChain,
 };
 use gw_mechanics::{
-    Beam, BeamSupport, Face, LoadComponent, Member, Section, Shaft, SurfacePoint, ThinCylinder,
-    VesselEnds, library_material,
+    Beam, BeamSupport, Face, LoadComponent, LoadPoint, Member, Section, Shaft, SurfacePoint,
+    ThinCylinder, VesselEnds, library_material,
 };
 
-use crate::arrangements::bridge_factor_for;
 use crate::document::{
-    BridgePlan, FORMAT_VERSION, LeadColours, LoadCase, PaperSize, Part, PlanArm, Project,
-    default_gauge_spec,
+    BridgePlan, FORMAT_VERSION, LeadColours, LoadCase, PaperSize, Part, PlanArm, PlanGauge,
+    Project, StockGauge, default_gauge_spec, stock_base_name,
 };
 
 fn material(key: &str) -> gw_mechanics::Material {
@@ -30,20 +29,32 @@ fn material(key: &str) -> gw_mechanics::Material {
         })
 }
 
-fn gauge(
-    id: &str,
-    pattern: GaugePattern,
-    face: Face,
-    x: f64,
-    s: f64,
-    angle_deg: f64,
-) -> PlacedGauge {
-    PlacedGauge {
+fn gauge(id: &str, pattern: GaugePattern, face: Face, x: f64, s: f64, angle_deg: f64) -> PlanGauge {
+    PlanGauge {
         id: id.into(),
-        spec: default_gauge_spec(pattern),
+        stock: stock_base_name(&default_gauge_spec(pattern)),
+        lot: None,
         position: SurfacePoint::new(face, x, s),
         angle_rad: angle_deg.to_radians(),
     }
+}
+
+/// The demo's gauge stock: the default type in each pattern the demo uses.
+fn stock() -> Vec<StockGauge> {
+    [
+        GaugePattern::SingleGrid,
+        GaugePattern::ShearPair,
+        GaugePattern::TwoElement90,
+    ]
+    .into_iter()
+    .map(|pattern| {
+        let spec = default_gauge_spec(pattern);
+        StockGauge {
+            name: stock_base_name(&spec),
+            spec,
+        }
+    })
+    .collect()
 }
 
 fn grid(gauge: &str, grid: usize) -> PlanArm {
@@ -98,10 +109,8 @@ fn bridge(
         },
         excitation: Excitation::Voltage { volts: 3.0 },
         amplifier_input_ohm: Some(10e6),
-        instrument: InstrumentSetting {
-            gauge_factor: 2.05,
-            bridge_factor: 1.0,
-        },
+        gauge_factor_setting: 2.05,
+        bridge_factor_override: None,
         signal: signal(gain),
         wanted,
         instrument_temperature: InstrumentTemperature::Fixed,
@@ -135,15 +144,6 @@ fn shunt(arm: usize, microstrain: f64) -> Option<ShuntPlan> {
     })
 }
 
-/// Sets every bridge factor from the part (so the instrument displays the first grid's strain).
-fn with_bridge_factors(mut part: Part, reference_c: f64) -> Part {
-    for k in 0..part.bridges.len() {
-        let plan = part.bridges[k].clone();
-        part.bridges[k].instrument.bridge_factor = bridge_factor_for(&part, &plan, reference_c);
-    }
-    part
-}
-
 /// The demo project.
 pub fn demo_project() -> Project {
     use LoadComponent::*;
@@ -160,7 +160,7 @@ pub fn demo_project() -> Project {
             material: steel.clone(),
             length_m: 0.45,
             support: BeamSupport::Cantilever,
-            load_position_m: 0.45,
+            load_points: vec![LoadPoint::whole(0.45)],
         }),
         material_key: Some("carbon_steel".into()),
         load_cases: vec![
@@ -406,11 +406,8 @@ pub fn demo_project() -> Project {
         reference_temperature_c: reference,
         warn_utilisation: gw_bridge::margins::DEFAULT_WARN_UTILISATION,
         lead_colours: LeadColours::default(),
-        parts: vec![
-            with_bridge_factors(arm, reference),
-            with_bridge_factors(shaft, reference),
-            with_bridge_factors(shell, reference),
-        ],
+        gauge_stock: stock(),
+        parts: vec![arm, shaft, shell],
         notes: "Invented demo: a winch test stand with a reaction arm, a drum drive shaft and an \
                 hydraulic accumulator."
             .into(),

@@ -1,15 +1,16 @@
 //! The project document: what the engineer plans, saved as RON.
 
 use gw_bridge::{
-    Excitation, GaugeSpec, InstrumentSetting, InstrumentTemperature, LeadWire, LeadWiring,
-    PlacedGauge, ShuntPlan, SignalChain, bridge::CompletionResistor,
+    Excitation, GaugeSpec, InstrumentTemperature, LeadWire, LeadWiring, PlacedGauge, ShuntPlan,
+    SignalChain, ThermalOutput, bridge::CompletionResistor,
     bridge_uncertainty::InstallationTolerances,
 };
-use gw_mechanics::{LoadComponent, LoadVector, Member};
+use gw_mechanics::{LoadComponent, LoadVector, Member, SurfacePoint};
 use serde::{Deserialize, Serialize};
 
-/// The format version this build writes and reads.
-pub const FORMAT_VERSION: u32 = 1;
+/// The format version this build writes. Version 1 files (gauge data inside every gauge, a
+/// typed bridge factor) are read and migrated by [`crate::io`].
+pub const FORMAT_VERSION: u32 = 2;
 
 /// Paper size for the build sheet. Default: A4.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
@@ -51,6 +52,9 @@ pub struct Project {
     /// Lead colours of our own default scheme, by conductor role (editable).
     #[serde(default)]
     pub lead_colours: LeadColours,
+    /// Gauge types in stock for this project, referred to by name from each placed gauge.
+    #[serde(default)]
+    pub gauge_stock: Vec<StockGauge>,
     /// Parts.
     pub parts: Vec<Part>,
     /// Free notes.
@@ -106,7 +110,7 @@ pub struct Part {
     /// Load cases.
     pub load_cases: Vec<LoadCase>,
     /// Placed gauges.
-    pub gauges: Vec<PlacedGauge>,
+    pub gauges: Vec<PlanGauge>,
     /// Bridges.
     pub bridges: Vec<BridgePlan>,
     /// Resolution the engineer requires, m/m.
@@ -195,8 +199,12 @@ pub struct BridgePlan {
     /// Amplifier input resistance, Ω (`None` = ideal).
     #[serde(default)]
     pub amplifier_input_ohm: Option<f64>,
-    /// Instrument conversion.
-    pub instrument: InstrumentSetting,
+    /// Gauge factor set on the instrument.
+    pub gauge_factor_setting: f64,
+    /// A bridge factor typed by the engineer instead of the one computed from the arrangement
+    /// and the part (`None`: computed).
+    #[serde(default)]
+    pub bridge_factor_override: Option<BridgeFactorOverride>,
     /// Acquisition channel.
     pub signal: SignalChain,
     /// The load component the bridge measures.
@@ -210,6 +218,170 @@ pub struct BridgePlan {
     /// Acquisition channel number on the instrument.
     #[serde(default)]
     pub channel: u32,
+}
+
+impl BridgePlan {
+    /// True when at least one arm holds an active grid.
+    pub fn is_wired(&self) -> bool {
+        self.arms.iter().any(|a| matches!(a, PlanArm::Grid { .. }))
+    }
+}
+
+/// A bridge factor set by hand, with the reason for not using the computed one.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct BridgeFactorOverride {
+    /// The bridge factor the instrument is set to.
+    pub value: f64,
+    /// Why the computed factor is not used (shown on the build sheet).
+    pub reason: String,
+}
+
+/// A gauge type in the project's stock: what a data sheet gives, defined once.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct StockGauge {
+    /// Name the placed gauges refer to, e.g. "3 mm single grid, 350 Ω".
+    pub name: String,
+    /// The data.
+    pub spec: GaugeSpec,
+}
+
+/// The values of one gauge's lot where they differ from its stock type.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct GaugeLot {
+    /// Lot number printed on the packet.
+    #[serde(default)]
+    pub lot_number: String,
+    /// Nominal grid resistance of the lot, Ω.
+    pub resistance_ohm: f64,
+    /// Gauge factor of the lot.
+    pub gauge_factor: f64,
+    /// Gauge-factor tolerance of the lot, ± fraction.
+    pub gauge_factor_tolerance: f64,
+    /// Transverse sensitivity of the lot, fraction.
+    pub transverse_sensitivity: f64,
+    /// Thermal output of the lot.
+    pub thermal_output: ThermalOutput,
+}
+
+impl GaugeLot {
+    /// The lot values of a gauge type (the starting point of an override).
+    pub fn from_spec(spec: &GaugeSpec) -> Self {
+        Self {
+            lot_number: String::new(),
+            resistance_ohm: spec.resistance_ohm,
+            gauge_factor: spec.gauge_factor,
+            gauge_factor_tolerance: spec.gauge_factor_tolerance,
+            transverse_sensitivity: spec.transverse_sensitivity,
+            thermal_output: spec.thermal_output.clone(),
+        }
+    }
+
+    /// The stock type with this lot's values.
+    pub fn applied_to(&self, spec: &GaugeSpec) -> GaugeSpec {
+        GaugeSpec {
+            resistance_ohm: self.resistance_ohm,
+            gauge_factor: self.gauge_factor,
+            gauge_factor_tolerance: self.gauge_factor_tolerance,
+            transverse_sensitivity: self.transverse_sensitivity,
+            thermal_output: self.thermal_output.clone(),
+            ..spec.clone()
+        }
+    }
+}
+
+/// A gauge placed on a part: a stock type (with its lot's values where they differ), a
+/// position and a direction.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct PlanGauge {
+    /// Short identifier shown on drawings and the build sheet, e.g. "G1".
+    pub id: String,
+    /// Name of the stock type.
+    pub stock: String,
+    /// This gauge's lot values where they differ from the stock type.
+    #[serde(default)]
+    pub lot: Option<GaugeLot>,
+    /// Centre of the grid area on the part's surface.
+    pub position: SurfacePoint,
+    /// Reference direction, radians from the local surface x axis.
+    pub angle_rad: f64,
+}
+
+impl PlanGauge {
+    /// The gauge as the measurement core sees it, or `None` when its stock type is missing.
+    pub fn resolve(&self, stock: &[StockGauge]) -> Option<PlacedGauge> {
+        let entry = stock.iter().find(|s| s.name == self.stock)?;
+        let spec = match &self.lot {
+            Some(lot) => lot.applied_to(&entry.spec),
+            None => entry.spec.clone(),
+        };
+        Some(PlacedGauge {
+            id: self.id.clone(),
+            spec,
+            position: self.position,
+            angle_rad: self.angle_rad,
+        })
+    }
+}
+
+/// The gauges of a part as the measurement core sees them. Gauges whose stock type is missing
+/// are left out (validation reports them first).
+pub fn placed_gauges(stock: &[StockGauge], part: &Part) -> Vec<PlacedGauge> {
+    part.gauges
+        .iter()
+        .filter_map(|g| g.resolve(stock))
+        .collect()
+}
+
+impl Project {
+    /// The stock type of that name.
+    pub fn stock_entry(&self, name: &str) -> Option<&StockGauge> {
+        self.gauge_stock.iter().find(|s| s.name == name)
+    }
+
+    /// The gauges of part `part` as the measurement core sees them.
+    pub fn placed_gauges(&self, part: &Part) -> Vec<PlacedGauge> {
+        placed_gauges(&self.gauge_stock, part)
+    }
+}
+
+/// The name of the stock entry holding `spec`, adding an entry (named after its pattern, grid
+/// length and resistance) when no entry holds the same data.
+pub fn stock_name_for(stock: &mut Vec<StockGauge>, spec: &GaugeSpec) -> String {
+    if let Some(s) = stock.iter().find(|s| s.spec == *spec) {
+        return s.name.clone();
+    }
+    let base = stock_base_name(spec);
+    let name = (1..)
+        .map(|n| {
+            if n == 1 {
+                base.clone()
+            } else {
+                format!("{base} ({n})")
+            }
+        })
+        .find(|n| stock.iter().all(|s| &s.name != n))
+        .unwrap_or(base);
+    stock.push(StockGauge {
+        name: name.clone(),
+        spec: spec.clone(),
+    });
+    name
+}
+
+/// The name a stock type gets from its data: pattern, grid length and resistance.
+pub fn stock_base_name(spec: &GaugeSpec) -> String {
+    format!(
+        "{}, {} mm, {} Ω",
+        spec.pattern.name(),
+        format_number(spec.grid_length_m * 1e3),
+        format_number(spec.resistance_ohm)
+    )
+}
+
+/// "3", "1.5", "0.75": a short number for names.
+fn format_number(v: f64) -> String {
+    let s = format!("{v:.3}");
+    s.trim_end_matches('0').trim_end_matches('.').to_owned()
 }
 
 /// A gauge type used by the demo and offered by the app when adding gauges: a 3 mm, 350 Ω
@@ -229,6 +401,8 @@ pub fn default_gauge_spec(pattern: gw_bridge::GaugePattern) -> GaugeSpec {
         thermal_output: gw_bridge::ThermalOutput {
             matched_cte_per_c: 10.8e-6,
             lot_polynomial: vec![-32e-6, 2.2e-6, -3.5e-8, 1.4e-10],
+            reference_gauge_factor: None,
+            valid_range_c: None,
         },
         gauge_factor_temp_coeff_per_c: 0.0001,
         // Power-density limits depend on heat sinking; 3 kW/m² (about 2 W/in²) is a common

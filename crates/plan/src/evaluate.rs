@@ -13,7 +13,7 @@ use serde::Serialize;
 
 use crate::cautions::{Caution, cautions};
 use crate::document::{Part, Project};
-use crate::validate::{bridge_from_plan, expected_magnitudes, validate_part};
+use crate::validate::{bridge_with_factor, expected_magnitudes, validate_part};
 
 /// How much to compute. Default: everything but Monte Carlo.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -239,7 +239,7 @@ pub fn evaluate(project: &Project, options: &EvalOptions) -> Evaluation {
     let mut findings = Vec::new();
     let mut parts = Vec::new();
     for (pi, part) in project.parts.iter().enumerate() {
-        if let Err(e) = validate_part(part) {
+        if let Err(e) = validate_part(part, &project.gauge_stock) {
             findings.push(Finding {
                 severity: Severity::Error,
                 message: e.to_string(),
@@ -304,9 +304,10 @@ fn evaluate_part(
             }),
         }
     }
+    let gauges = project.placed_gauges(part);
     let setup = Setup {
         member,
-        gauges: &part.gauges,
+        gauges: &gauges,
         reference_temperature_c: project.reference_temperature_c,
         quadrature: options.quadrature,
     };
@@ -319,7 +320,18 @@ fn evaluate_part(
             part: pi,
             bridge: bi,
         };
-        let result = bridge_from_plan(part, plan)
+        if !plan.is_wired() {
+            findings.push(Finding {
+                severity: Severity::Warn,
+                message: format!(
+                    "part \"{}\", bridge \"{}\": not wired yet; put a grid in at least one arm",
+                    part.name, plan.name
+                ),
+                target,
+            });
+            continue;
+        }
+        let result = bridge_with_factor(part, &gauges, plan, project.reference_temperature_c)
             .map_err(|e| e.to_string())
             .and_then(|b| BridgeModel::new(&setup, &b).map_err(|e| e.to_string()))
             .and_then(|model| {
@@ -638,7 +650,7 @@ fn evaluate_bridge(
         excitation_v: vex,
         gauge_factor_setting: b.instrument.gauge_factor,
         bridge_factor: b.instrument.bridge_factor,
-        wiring: b.wiring.name().to_owned(),
+        wiring: b.wiring.trade_name(b.arms.map(|a| a.at_gauge())),
         cases,
         sensitivities,
         rejection,
@@ -662,11 +674,13 @@ pub fn monte_carlo_for(
 ) -> Result<BridgeUncertainty, String> {
     let p = project.parts.get(part).ok_or("no such part")?;
     let plan = p.bridges.get(bridge).ok_or("no such bridge")?;
-    let b = bridge_from_plan(p, plan).map_err(|e| e.to_string())?;
+    let gauges = project.placed_gauges(p);
+    let b = bridge_with_factor(p, &gauges, plan, project.reference_temperature_c)
+        .map_err(|e| e.to_string())?;
     let options = EvalOptions::default();
     let setup = Setup {
         member: &p.member,
-        gauges: &p.gauges,
+        gauges: &gauges,
         reference_temperature_c: project.reference_temperature_c,
         quadrature: options.quadrature,
     };

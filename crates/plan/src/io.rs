@@ -46,11 +46,15 @@ fn syntax(e: &ron::error::SpannedError) -> PlanError {
     }
 }
 
-/// Upgrades an older document in place. Version 1 is the first; later versions add their
-/// step here.
-fn migrate(text: &str, from: u32) -> Result<String, PlanError> {
+/// Reads a document of format version `from`, upgrading older versions
+/// (see [`crate::migrate`]); later versions add their step here.
+fn parse_version(text: &str, from: u32) -> Result<Project, PlanError> {
     match from {
-        FORMAT_VERSION => Ok(text.to_owned()),
+        1 => {
+            let v1: crate::migrate::ProjectV1 = ron::from_str(text).map_err(|e| syntax(&e))?;
+            Ok(v1.upgrade())
+        }
+        FORMAT_VERSION => ron::from_str(text).map_err(|e| syntax(&e)),
         found => Err(PlanError::UnknownVersion {
             found,
             supported: FORMAT_VERSION,
@@ -67,8 +71,7 @@ pub fn project_from_str(text: &str) -> Result<Project, PlanError> {
             supported: FORMAT_VERSION,
         });
     }
-    let text = migrate(text, probe.format_version)?;
-    let project: Project = ron::from_str(&text).map_err(|e| syntax(&e))?;
+    let project = parse_version(text, probe.format_version)?;
     validate_project(&project)?;
     Ok(project)
 }

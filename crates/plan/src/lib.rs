@@ -11,17 +11,20 @@
 //! - Gauges are referred to by their id in bridges ("G1", grid 2), never by list position.
 
 pub mod arrangements;
+pub mod blank;
 pub mod cautions;
 pub mod channel_list;
 pub mod cli;
 pub mod demo;
 pub mod document;
+pub mod edit;
 pub mod evaluate;
 pub mod io;
+pub mod migrate;
 pub mod sheet;
 pub mod validate;
 pub mod wiring;
 
-pub use document::{BridgePlan, LoadCase, Part, PlanArm, Project};
+pub use document::{BridgePlan, GaugeLot, LoadCase, Part, PlanArm, PlanGauge, Project, StockGauge};
 pub use evaluate::{EvalOptions, Evaluation, evaluate};
 pub use io::{PlanError, load_project, project_from_str, project_to_string, save_project};

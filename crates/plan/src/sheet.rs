@@ -211,7 +211,15 @@ fn part_description(part: &Part) -> String {
             b.section.shape_name(),
             mm(b.section.width_m()),
             mm(b.section.height_m()),
-            mm(b.load_position_m)
+            b.load_points
+                .iter()
+                .map(|p| if (p.multiple - 1.0).abs() < 1e-12 {
+                    mm(p.position_m)
+                } else {
+                    format!("{} (× {})", mm(p.position_m), p.multiple)
+                })
+                .collect::<Vec<_>>()
+                .join(", ")
         ),
         Member::Shaft(s) => format!(
             "shaft, outer diameter {}, bore {}, length {}",
@@ -259,11 +267,10 @@ fn part_description(part: &Part) -> String {
 
 /// Draws each face that carries gauges, to scale (round faces unrolled: axial position across,
 /// arc length up), with the gauges, their ids and grid directions.
-fn drawing(w: &mut Writer, part: &Part) {
+fn drawing(w: &mut Writer, part: &Part, placed: &[gw_bridge::PlacedGauge]) {
     let faces = part.member.faces();
     for extent in faces {
-        let gauges: Vec<_> = part
-            .gauges
+        let gauges: Vec<_> = placed
             .iter()
             .filter(|g| g.position.face == extent.face)
             .collect();
@@ -544,7 +551,7 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
                 ),
             );
         }
-        drawing(&mut w, part);
+        drawing(&mut w, part, &project.placed_gauges(part));
         w.heading("Gauges");
         let mut rows = vec![
             vec![
@@ -563,7 +570,7 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
             .map(String::from)
             .collect::<Vec<_>>(),
         ];
-        for g in &part.gauges {
+        for g in &project.placed_gauges(part) {
             let s = &g.spec;
             rows.push(vec![
                 g.id.clone(),

@@ -1,10 +1,10 @@
 //! Checks a project's values before anything is computed. Every message names the place
 //! (part, load case, gauge, bridge) and the value.
 
-use gw_bridge::{ArmElement, Bridge, GridRef};
+use gw_bridge::{ArmElement, Bridge, GridRef, InstrumentSetting, PlacedGauge};
 use gw_mechanics::{LoadComponent, LoadVector};
 
-use crate::document::{BridgePlan, Part, PlanArm, Project};
+use crate::document::{BridgePlan, Part, PlanArm, Project, StockGauge};
 use crate::io::PlanError;
 
 fn invalid(path: String, message: impl Into<String>) -> PlanError {
@@ -31,14 +31,39 @@ pub fn validate_project(project: &Project) -> Result<(), PlanError> {
             ),
         ));
     }
+    validate_stock(&project.gauge_stock)?;
     for part in &project.parts {
-        validate_part(part)?;
+        validate_part(part, &project.gauge_stock)?;
     }
     Ok(())
 }
 
-/// Checks one part.
-pub fn validate_part(part: &Part) -> Result<(), PlanError> {
+/// Checks the gauge stock: names present and distinct, data valid.
+pub fn validate_stock(stock: &[StockGauge]) -> Result<(), PlanError> {
+    for (k, entry) in stock.iter().enumerate() {
+        let at = format!("gauge stock › \"{}\"", entry.name);
+        if entry.name.trim().is_empty() {
+            return Err(invalid(
+                format!("gauge stock › entry {}", k + 1),
+                "a stock type has no name; give it one, e.g. \"3 mm single grid, 350 Ω\"",
+            ));
+        }
+        if stock[..k].iter().any(|s| s.name == entry.name) {
+            return Err(invalid(
+                at,
+                "this name is used twice; give each stock type its own",
+            ));
+        }
+        entry
+            .spec
+            .validate()
+            .map_err(|e| invalid(at.clone(), e.to_string()))?;
+    }
+    Ok(())
+}
+
+/// Checks one part against the project's gauge stock.
+pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError> {
     let here = format!("part \"{}\"", part.name);
     part.member
         .validate()
@@ -102,10 +127,26 @@ pub fn validate_part(part: &Part) -> Result<(), PlanError> {
             ));
         }
         ids.push(&gauge.id);
-        gauge
+        let Some(placed) = gauge.resolve(stock) else {
+            let names: Vec<&str> = stock.iter().map(|s| s.name.as_str()).collect();
+            return Err(invalid(
+                at,
+                format!(
+                    "refers to stock type \"{}\", which the project's gauge stock does not hold; \
+                     pick one of: {}",
+                    gauge.stock,
+                    if names.is_empty() {
+                        "(the stock is empty; add a type)".to_owned()
+                    } else {
+                        names.join(", ")
+                    }
+                ),
+            ));
+        };
+        placed
             .spec
             .validate()
-            .map_err(|e| invalid(at.clone(), e.to_string()))?;
+            .map_err(|e| invalid(format!("{at} › lot values"), e.to_string()))?;
         part.member
             .state(&gauge.position, &LoadVector::ZERO)
             .map_err(|e| invalid(at.clone(), e.to_string()))?;
@@ -113,11 +154,36 @@ pub fn validate_part(part: &Part) -> Result<(), PlanError> {
             return Err(invalid(at, "angle is not a number"));
         }
     }
+    let gauges = crate::document::placed_gauges(stock, part);
     for plan in &part.bridges {
-        let bridge = bridge_from_plan(part, plan)?;
-        bridge
-            .validate(&part.gauges)
+        let bridge = bridge_from_plan(part, &gauges, plan)?;
+        // A bridge with no grid yet is a plan in progress: its settings are checked, and the
+        // evaluation reports it as not wired.
+        let checked = if bridge.is_wired() {
+            bridge.validate(&gauges)
+        } else {
+            bridge.validate_settings()
+        };
+        checked
             .map_err(|e| invalid(format!("{here} › bridge \"{}\"", plan.name), e.to_string()))?;
+        if let Some(o) = &plan.bridge_factor_override {
+            let at = format!("{here} › bridge \"{}\" › bridge factor", plan.name);
+            if !(o.value.is_finite() && o.value > 0.0) {
+                return Err(invalid(
+                    at,
+                    format!(
+                        "{} must be a positive number (e.g. 2 for two active grids)",
+                        o.value
+                    ),
+                ));
+            }
+            if o.reason.trim().is_empty() {
+                return Err(invalid(
+                    at,
+                    "a typed bridge factor needs its reason; say why the computed one is not used",
+                ));
+            }
+        }
         if !carried.contains(&plan.wanted) {
             return Err(invalid(
                 format!("{here} › bridge \"{}\"", plan.name),
@@ -132,11 +198,16 @@ pub fn validate_part(part: &Part) -> Result<(), PlanError> {
     Ok(())
 }
 
-/// Resolves gauge ids into indices: the bridge as the measurement core sees it.
-pub fn bridge_from_plan(part: &Part, plan: &BridgePlan) -> Result<Bridge, PlanError> {
+/// Resolves gauge ids into indices of `gauges` (the part's resolved gauges): the bridge as the
+/// measurement core sees it, with a bridge factor of 1 (see [`bridge_with_factor`]).
+pub fn bridge_from_plan(
+    part: &Part,
+    gauges: &[PlacedGauge],
+    plan: &BridgePlan,
+) -> Result<Bridge, PlanError> {
     let here = format!("part \"{}\" › bridge \"{}\"", part.name, plan.name);
     let resolve = |k: usize, gauge: &str, grid: usize| -> Result<GridRef, PlanError> {
-        let Some(index) = part.gauges.iter().position(|g| g.id == gauge) else {
+        let Some(index) = gauges.iter().position(|g| g.id == gauge) else {
             return Err(invalid(
                 here.clone(),
                 format!(
@@ -145,13 +216,13 @@ pub fn bridge_from_plan(part: &Part, plan: &BridgePlan) -> Result<Bridge, PlanEr
                 ),
             ));
         };
-        if grid == 0 || grid > part.gauges[index].element_count() {
+        if grid == 0 || grid > gauges[index].element_count() {
             return Err(invalid(
                 here.clone(),
                 format!(
                     "arm {} refers to grid {grid} of gauge \"{gauge}\", which has {} grid(s)",
                     k + 1,
-                    part.gauges[index].element_count()
+                    gauges[index].element_count()
                 ),
             ));
         }
@@ -179,12 +250,34 @@ pub fn bridge_from_plan(part: &Part, plan: &BridgePlan) -> Result<Bridge, PlanEr
         lead: plan.lead,
         excitation: plan.excitation,
         amplifier_input_ohm: plan.amplifier_input_ohm,
-        instrument: plan.instrument,
+        instrument: InstrumentSetting {
+            gauge_factor: plan.gauge_factor_setting,
+            bridge_factor: 1.0,
+        },
         signal: plan.signal,
         wanted: plan.wanted,
         instrument_temperature: plan.instrument_temperature,
         shunt: plan.shunt,
     })
+}
+
+/// The bridge with the bridge factor the instrument is set to: the engineer's override, or
+/// the one computed from the arrangement and the part
+/// ([`crate::arrangements::bridge_factor_for`]).
+pub fn bridge_with_factor(
+    part: &Part,
+    gauges: &[PlacedGauge],
+    plan: &BridgePlan,
+    reference_temperature_c: f64,
+) -> Result<Bridge, PlanError> {
+    let mut bridge = bridge_from_plan(part, gauges, plan)?;
+    bridge.instrument.bridge_factor = match &plan.bridge_factor_override {
+        Some(o) => o.value,
+        None => {
+            crate::arrangements::bridge_factor_of(part, gauges, &bridge, reference_temperature_c)
+        }
+    };
+    Ok(bridge)
 }
 
 /// The largest magnitude of each component over a part's load cases (for rejection ratios).

@@ -77,10 +77,11 @@ mod tests {
     fn one_inverse_agrees_with_injecting_a_current_between_each_pair() {
         let p = demo_project();
         let part = &p.parts[0];
-        let bridge = bridge_from_plan(part, &part.bridges[0]).unwrap();
+        let gauges = p.placed_gauges(part);
+        let bridge = bridge_from_plan(part, &gauges, &part.bridges[0]).unwrap();
         let setup = Setup {
             member: &part.member,
-            gauges: &part.gauges,
+            gauges: &gauges,
             reference_temperature_c: 20.0,
             quadrature: QuadratureOrder::default(),
         };

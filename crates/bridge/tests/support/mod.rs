@@ -23,6 +23,8 @@ pub fn spec(pattern: GaugePattern) -> GaugeSpec {
         thermal_output: ThermalOutput {
             matched_cte_per_c: 11e-6,
             lot_polynomial: vec![],
+            reference_gauge_factor: None,
+            valid_range_c: None,
         },
         gauge_factor_temp_coeff_per_c: 0.0,
         max_power_density_w_m2: 3100.0,
