@@ -1,40 +1,111 @@
-//! The `gaugewright` binary: the desktop app.
+//! The `gaugewright` binary: the desktop app, and the command line for scripts.
 
-use gw_app::{GaugewrightApp, screenshot, settings::AppPaths};
+use gw_app::{GaugewrightApp, app::Tab, screenshot, settings::AppPaths};
 
+use std::io::Write;
 use std::path::PathBuf;
+use std::process::ExitCode;
 
-use clap::Parser;
+use clap::builder::{PathBufValueParser, TypedValueParser};
+use clap::error::ErrorKind;
+use clap::parser::ValueSource;
+use clap::{CommandFactory, FromArgMatches, Parser};
 
 /// Plan strain-gauge installations: where gauges go, how bridges are wired, what they will read.
+///
+/// With no subcommand the desktop app starts, on FILE when one is given.
 #[derive(Debug, Parser)]
-#[command(name = "gaugewright", version)]
+#[command(
+    name = "gaugewright",
+    version,
+    override_usage = "gaugewright [--view <VIEW>] [--screenshot <PATH>] [FILE]\n       \
+                      gaugewright <COMMAND>",
+    after_help = "Exit status of the subcommands: 0 when nothing fails, 1 when a margin fails or \
+                  something could not be computed, 2 when the project file is broken or an \
+                  output cannot be written. When the reader of the output stops early (a \
+                  closed pipe, as in `| head`), the rest is dropped quietly and the status is \
+                  still the command's own."
+)]
 struct Cli {
+    /// Project file (.ron) to open in the desktop app. If it cannot be read, the app starts on
+    /// the last project (or the demo) and says why.
+    #[arg(
+        value_name = "FILE",
+        value_parser = PathBufValueParser::new().try_map(project_file)
+    )]
+    file: Option<PathBuf>,
+    /// Anything after FILE. Collected so that a mistyped subcommand (`chek x.ron`) is reported
+    /// as such, not as an unexpected `x.ron`; refused once FILE is accepted.
+    #[arg(hide = true)]
+    more: Vec<std::ffi::OsString>,
     /// Render a few frames, save the window as a PNG at PATH and exit (for documentation and
     /// smoke tests).
     #[arg(long, value_name = "PATH")]
     screenshot: Option<PathBuf>,
-    /// Which view to show first: layout, bridges, results or help.
-    #[arg(long, value_name = "VIEW", default_value = "layout")]
-    view: String,
-    /// With no subcommand the desktop app starts.
+    /// Which view to show first.
+    #[arg(long, value_name = "VIEW", value_enum, default_value_t = View::Layout)]
+    view: View,
     #[command(subcommand)]
     command: Option<Command>,
 }
 
+/// FILE for the desktop app. A bare word that names no file is taken for a mistyped
+/// subcommand (`gaugewright chek x.ron`) and refused, instead of opening a window that can
+/// only say the file is missing.
+fn project_file(path: PathBuf) -> Result<PathBuf, String> {
+    let bare_word = path.extension().is_none() && path.components().count() == 1;
+    if bare_word && !path.exists() {
+        let names: Vec<String> = Cli::command()
+            .get_subcommands()
+            .map(|c| c.get_name().to_owned())
+            .collect();
+        return Err(format!(
+            "there is no subcommand or file of that name; the subcommands are {}",
+            names.join(", ")
+        ));
+    }
+    Ok(path)
+}
+
+/// The views `--view` can open on. Each maps to one tab of the app.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+enum View {
+    /// The part with its colour map and gauges.
+    Layout,
+    /// Bridges: schematic, arms, arrangements, suggestions.
+    Bridges,
+    /// Plots and tables.
+    Results,
+    /// Method, assumptions and cautions.
+    Help,
+}
+
+impl View {
+    fn tab(self) -> Tab {
+        match self {
+            View::Layout => Tab::Layout,
+            View::Bridges => Tab::Bridges,
+            View::Results => Tab::Results,
+            View::Help => Tab::Help,
+        }
+    }
+}
+
 #[derive(Debug, clap::Subcommand)]
 enum Command {
-    /// Validate a project and print margins and warnings (exit status 1 if a margin fails,
-    /// 2 if the file is broken).
+    /// Validate a project and print readings, margins and findings (exit status 1 if a margin
+    /// fails, 2 if the file is broken).
     Check {
         /// Project file (.ron).
         file: PathBuf,
     },
-    /// Print every computed figure.
+    /// Print every computed figure: a readable summary per bridge and load case (settings,
+    /// mV/V, displayed µε, margins, rejection, noise, uncertainty), or everything as JSON with
+    /// --json (exit status 1 if a margin fails, 2 if the file is broken).
     Eval {
         /// Project file (.ron).
         file: PathBuf,
-        /// Print JSON (the only format so far).
+        /// Print every figure as JSON instead of the summary.
         #[arg(long)]
         json: bool,
         /// Include the Monte Carlo uncertainty propagation (slower).
@@ -59,22 +130,96 @@ enum Command {
     },
 }
 
-fn finish(out: gw_plan::cli::CliOutput) -> std::process::ExitCode {
-    print!("{}", out.stdout);
-    eprint!("{}", out.stderr);
-    std::process::ExitCode::from(out.code.clamp(0, 255) as u8)
+/// What became of writing a command's output.
+enum Delivery {
+    /// Everything was written.
+    Written,
+    /// The reader went away (`| head`); the rest is dropped on purpose.
+    ReaderClosed,
+    /// Writing failed for another reason (a full disk, say).
+    Failed(std::io::Error),
 }
 
-fn main() -> std::process::ExitCode {
-    let cli = Cli::parse();
+fn deliver(mut stream: impl Write, text: &str) -> Delivery {
+    match stream
+        .write_all(text.as_bytes())
+        .and_then(|()| stream.flush())
+    {
+        Ok(()) => Delivery::Written,
+        Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe => Delivery::ReaderClosed,
+        Err(e) => Delivery::Failed(e),
+    }
+}
+
+/// Prints a subcommand's output and returns its status. A closed pipe ends the output quietly
+/// and keeps the command's own status (the result was computed; the reader chose to stop). Any
+/// other write failure is reported on standard error and gives status 2.
+fn finish(out: gw_plan::cli::CliOutput) -> ExitCode {
+    let code = out.code.clamp(0, 255) as u8;
+    if let Delivery::Failed(e) = deliver(std::io::stdout().lock(), &out.stdout) {
+        let _ = writeln!(
+            std::io::stderr().lock(),
+            "error: could not write the output: {e}"
+        );
+        return ExitCode::from(2);
+    }
+    // Nowhere is left to report a failure to write the error stream itself.
+    let _ = deliver(std::io::stderr().lock(), &out.stderr);
+    ExitCode::from(code)
+}
+
+/// Parses the command line. A subcommand name always wins over FILE (`gaugewright check x`
+/// checks x); the app's own arguments given with a subcommand are refused rather than
+/// ignored, with the reason.
+fn parse() -> Cli {
+    let matches = Cli::command().get_matches();
+    let cli = Cli::from_arg_matches(&matches).unwrap_or_else(|e| e.exit());
+    if let Some(extra) = cli.more.first() {
+        Cli::command()
+            .error(
+                ErrorKind::UnknownArgument,
+                format!(
+                    "unexpected argument '{}': the app opens one FILE at a time",
+                    extra.to_string_lossy()
+                ),
+            )
+            .exit();
+    }
+    if let Some(subcommand) = matches.subcommand_name() {
+        for (id, shown) in [
+            ("file", "a project FILE"),
+            ("view", "--view"),
+            ("screenshot", "--screenshot"),
+        ] {
+            if matches.value_source(id) == Some(ValueSource::CommandLine) {
+                Cli::command()
+                    .error(
+                        ErrorKind::ArgumentConflict,
+                        format!(
+                            "{shown} is for the desktop app and cannot be used with `{subcommand}`"
+                        ),
+                    )
+                    .exit();
+            }
+        }
+    }
+    cli
+}
+
+fn main() -> ExitCode {
+    let cli = parse();
     match cli.command {
         Some(Command::Check { file }) => return finish(gw_plan::cli::check(&file)),
         Some(Command::Eval {
             file,
-            json: _,
+            json,
             monte_carlo,
         }) => {
-            return finish(gw_plan::cli::eval_json(&file, monte_carlo));
+            return finish(if json {
+                gw_plan::cli::eval_json(&file, monte_carlo)
+            } else {
+                gw_plan::cli::eval_summary(&file, monte_carlo)
+            });
         }
         Some(Command::Demo { out }) => return finish(gw_plan::cli::write_demo(&out)),
         Some(Command::Sheet { file, output, csv }) => {
@@ -89,7 +234,8 @@ fn main() -> std::process::ExitCode {
             .with_min_inner_size([800.0, 500.0]),
         ..Default::default()
     };
-    let view = cli.view.clone();
+    let tab = cli.view.tab();
+    let file = cli.file;
     let screenshot = cli.screenshot.map(screenshot::ScreenshotRequest::new);
     let outcome = screenshot.as_ref().map(|r| r.outcome());
     let result = eframe::run_native(
@@ -102,28 +248,26 @@ fn main() -> std::process::ExitCode {
                 AppPaths::user()
             };
             let mut app = GaugewrightApp::new(paths, screenshot);
-            app.tab = match view.as_str() {
-                "bridges" => gw_app::app::Tab::Bridges,
-                "results" => gw_app::app::Tab::Results,
-                "help" => gw_app::app::Tab::Help,
-                _ => gw_app::app::Tab::Layout,
-            };
+            if let Some(path) = &file {
+                app.open_path(path);
+            }
+            app.tab = tab;
             Ok(Box::new(app))
         }),
     );
     if let Err(e) = result {
         eprintln!("error: could not open the Gaugewright window: {e}");
-        return std::process::ExitCode::from(1);
+        return ExitCode::from(1);
     }
     match outcome.map(|o| o.take()) {
         Some(Some(Err(message))) => {
             eprintln!("error: {message}");
-            std::process::ExitCode::from(1)
+            ExitCode::from(1)
         }
         Some(None) => {
             eprintln!("error: the window closed before the screenshot was taken");
-            std::process::ExitCode::from(1)
+            ExitCode::from(1)
         }
-        _ => std::process::ExitCode::SUCCESS,
+        _ => ExitCode::SUCCESS,
     }
 }
