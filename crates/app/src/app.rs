@@ -7,8 +7,10 @@ use crate::panels::bridges::BridgesPanel;
 use crate::panels::canvas::CanvasPanel;
 use crate::panels::findings::FindingsPanel;
 use crate::panels::help::HelpPanel;
+use crate::panels::inspector::InspectorPanel;
+use crate::panels::new_project::{NewProjectDialog, NewProjectOutcome};
 use crate::panels::plots::PlotsPanel;
-use crate::panels::project::ProjectPanel;
+use crate::panels::tree::TreePanel;
 use crate::screenshot::ScreenshotRequest;
 use crate::settings::{AppPaths, Settings};
 use crate::state::{DocumentState, Notice};
@@ -63,6 +65,8 @@ pub enum Modal {
     ConfirmDiscard(Pending),
     /// A recovery file from an earlier session exists.
     Recover(PathBuf),
+    /// Describe the first part of a new project.
+    NewProject,
 }
 
 /// Autosave interval, seconds.
@@ -78,7 +82,9 @@ pub struct GaugewrightApp {
     pub modal: Option<Modal>,
     /// File-dialog behaviour.
     pub dialogs: FileDialogs,
-    project_panel: ProjectPanel,
+    tree: TreePanel,
+    inspector: InspectorPanel,
+    new_project: NewProjectDialog,
     canvas: CanvasPanel,
     bridges: BridgesPanel,
     plots: PlotsPanel,
@@ -127,7 +133,9 @@ impl GaugewrightApp {
             tab: Tab::Layout,
             modal: None,
             dialogs: FileDialogs::default(),
-            project_panel: ProjectPanel::default(),
+            tree: TreePanel::default(),
+            inspector: InspectorPanel::default(),
+            new_project: NewProjectDialog::default(),
             canvas: CanvasPanel::default(),
             bridges: BridgesPanel::default(),
             plots: PlotsPanel::default(),
@@ -144,24 +152,8 @@ impl GaugewrightApp {
     fn run_pending(&mut self, pending: Pending) {
         match pending {
             Pending::New => {
-                let mut p = gw_plan::demo::demo_project();
-                p.name = "New project".into();
-                p.parts.truncate(1);
-                p.parts[0].gauges.clear();
-                p.parts[0].bridges.truncate(1);
-                p.parts[0].bridges[0].arms = std::array::from_fn(|_| {
-                    gw_plan::PlanArm::Completion(gw_bridge::CompletionResistor {
-                        ohm: 350.0,
-                        tolerance: 0.0005,
-                        tcr_per_c: 5e-6,
-                    })
-                });
-                p.parts[0].bridges[0].arrangement = String::new();
-                p.parts[0].bridges[0].shunt = None;
-                self.doc.apply_all(vec![Command::ReplaceProject {
-                    project: Box::new(p),
-                    path: None,
-                }]);
+                self.new_project = NewProjectDialog::default();
+                self.modal = Some(Modal::NewProject);
             }
             Pending::OpenDemo => {
                 self.doc.apply_all(vec![Command::ReplaceProject {
@@ -325,7 +317,9 @@ impl GaugewrightApp {
         if save {
             self.save();
         }
-        if delete && let Some(g) = self.doc.selection.gauge {
+        if delete
+            && let Some(gw_plan::edit::Item::Gauge { gauge: g, .. }) = self.doc.selection.focus
+        {
             out.push(Command::DeleteGauge {
                 part: self.doc.selection.part,
                 gauge: g,
@@ -454,6 +448,26 @@ impl GaugewrightApp {
         let Some(modal) = self.modal.clone() else {
             return;
         };
+        if modal == Modal::NewProject {
+            match self.new_project.ui(ui.ctx(), self.doc.units) {
+                Some(NewProjectOutcome::Create(project)) => {
+                    self.doc.apply_all(vec![Command::ReplaceProject {
+                        project,
+                        path: None,
+                    }]);
+                    self.doc.notice = Some(Notice {
+                        is_error: false,
+                        text: "New project: add gauges and bridges from the plan tree (Add), \
+                               edit every value in the inspector on the right."
+                            .into(),
+                    });
+                    self.modal = None;
+                }
+                Some(NewProjectOutcome::Cancel) => self.modal = None,
+                None => {}
+            }
+            return;
+        }
         let mut close = false;
         let mut next = None;
         egui::Window::new("Gaugewright")
@@ -529,6 +543,7 @@ impl GaugewrightApp {
                         }
                     });
                 }
+                Modal::NewProject => {}
                 Modal::Recover(path) => {
                     ui.label("Gaugewright closed with unsaved work last time. Recover it?");
                     ui.horizontal(|ui| {
@@ -585,11 +600,17 @@ impl GaugewrightApp {
             .show(ui, |ui| {
                 self.findings.findings_ui(ui, &mut self.doc);
             });
-        egui::Panel::left("project")
+        egui::Panel::left("plan tree")
             .resizable(true)
-            .default_size(340.0)
+            .default_size(270.0)
             .show(ui, |ui| {
-                self.project_panel.project_ui(ui, &self.doc, &mut out);
+                self.tree.tree_ui(ui, &self.doc, &mut out);
+            });
+        egui::Panel::right("inspector")
+            .resizable(true)
+            .default_size(360.0)
+            .show(ui, |ui| {
+                self.inspector.inspector_ui(ui, &self.doc, &mut out);
             });
         egui::CentralPanel::default().show(ui, |ui| match self.tab {
             Tab::Layout => self.canvas.canvas_ui(ui, &self.doc, &mut out),

@@ -4,7 +4,8 @@
 use gw_bridge::LeadWiring;
 use gw_bridge::arrangement::CatalogueEntry;
 use gw_bridge::chooser::RankedArrangement;
-use gw_mechanics::{LoadComponent, Member, SurfacePoint};
+use gw_mechanics::SurfacePoint;
+use gw_plan::edit::Item;
 use gw_plan::{PlanArm, Project};
 
 use crate::units::Units;
@@ -12,35 +13,16 @@ use crate::units::Units;
 /// A change to the project or to what the app shows.
 #[derive(Debug, Clone)]
 pub enum Command {
-    /// Set one load component of a load case (SI value).
-    SetLoad {
-        part: usize,
-        case: usize,
-        component: LoadComponent,
-        value: f64,
+    /// Replace the project with an edited copy (inspector fields and plan-tree edits, already
+    /// validated), then focus `focus` if given.
+    Edit {
+        project: Box<Project>,
+        focus: Option<Item>,
     },
-    /// Rename a load case.
-    RenameLoadCase {
-        part: usize,
-        case: usize,
-        name: String,
-    },
-    /// Add a load case (a copy of the selected one).
-    AddLoadCase { part: usize },
-    /// Delete a load case.
-    DeleteLoadCase { part: usize, case: usize },
-    /// Set a load case's ramp points, temperature range and whether it is cycled.
-    SetCaseSettings {
-        part: usize,
-        case: usize,
-        ramp_steps: u32,
-        temperature_range_c: (f64, f64),
-        cycled: bool,
-    },
+    /// Show this item in the inspector (and select it everywhere).
+    Focus(Item),
     /// Put the dimension datum of a part at a surface point.
     SetDatum { part: usize, x_m: f64, s_m: f64 },
-    /// Replace a part's mechanics model (already validated).
-    SetMember { part: usize, member: Box<Member> },
     /// Add a gauge of a pattern at a point.
     AddGauge {
         part: usize,
@@ -62,18 +44,6 @@ pub enum Command {
     },
     /// Delete a gauge (and clear the arms that used it).
     DeleteGauge { part: usize, gauge: usize },
-    /// Replace a gauge's data (already validated).
-    SetGaugeSpec {
-        part: usize,
-        gauge: usize,
-        spec: Box<gw_bridge::GaugeSpec>,
-    },
-    /// Replace a bridge's settings (excitation, leads, instrument, channel).
-    SetBridge {
-        part: usize,
-        bridge: usize,
-        plan: Box<gw_plan::BridgePlan>,
-    },
     /// Set what goes in one arm.
     SetArm {
         part: usize,
@@ -125,6 +95,7 @@ impl Command {
                 | Command::Redo
                 | Command::SetUnits(_)
                 | Command::Select(_)
+                | Command::Focus(_)
                 | Command::ReplaceProject { .. }
         )
     }

@@ -8,7 +8,6 @@
 
 pub mod app;
 pub mod command;
-pub mod member_fields;
 pub mod panels;
 pub mod screenshot;
 pub mod settings;

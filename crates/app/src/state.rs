@@ -3,8 +3,9 @@
 use std::path::{Path, PathBuf};
 
 use gw_mechanics::LoadComponent;
+use gw_plan::edit::Item;
 use gw_plan::evaluate::{EvalOptions, Evaluation, UncertaintyDepth, evaluate};
-use gw_plan::{PlanArm, Project};
+use gw_plan::{PlanGauge, Project};
 
 use crate::command::Command;
 use crate::units::Units;
@@ -20,6 +21,35 @@ pub struct Selection {
     pub gauge: Option<usize>,
     /// Bridge index.
     pub bridge: Option<usize>,
+    /// The item the inspector shows (`None`: the part).
+    pub focus: Option<Item>,
+}
+
+impl Selection {
+    /// The selection that shows `item`: its part, and the case, gauge or bridge it is.
+    pub fn of(item: Item, before: Selection) -> Selection {
+        let part = item.part().unwrap_or(before.part);
+        let same_part = part == before.part;
+        let mut s = Selection {
+            part,
+            case: if same_part { before.case } else { 0 },
+            gauge: if same_part { before.gauge } else { None },
+            bridge: if same_part { before.bridge } else { None },
+            focus: Some(item),
+        };
+        match item {
+            Item::LoadCase { case, .. } => s.case = case,
+            Item::Gauge { gauge, .. } => s.gauge = Some(gauge),
+            Item::Bridge { bridge, .. } => s.bridge = Some(bridge),
+            _ => {}
+        }
+        s
+    }
+
+    /// What the inspector shows: the focus, or else the selected part.
+    pub fn inspected(&self) -> Item {
+        self.focus.unwrap_or(Item::Part(self.part))
+    }
 }
 
 /// A message for the user.
@@ -54,6 +84,35 @@ pub struct DocumentState {
     pub notice: Option<Notice>,
     /// Number of evaluations so far (tests and diagnostics).
     pub evaluations: u64,
+}
+
+/// The inspector follows what the user picked last in a view: a gauge, a bridge, a load case
+/// or a part, in that order of precedence.
+fn inferred_focus(before: &Selection, after: &Selection) -> Option<Item> {
+    let part = after.part;
+    if let Some(gauge) = after.gauge
+        && after.gauge != before.gauge
+    {
+        return Some(Item::Gauge { part, gauge });
+    }
+    if let Some(bridge) = after.bridge
+        && after.bridge != before.bridge
+    {
+        return Some(Item::Bridge { part, bridge });
+    }
+    if after.case != before.case {
+        return Some(Item::LoadCase {
+            part,
+            case: after.case,
+        });
+    }
+    if after.part != before.part {
+        return Some(Item::Part(part));
+    }
+    if after.gauge.is_none() && before.gauge.is_some() {
+        return Some(Item::Part(part));
+    }
+    after.focus.or(before.focus)
 }
 
 /// Options of the live evaluation (GUM budget, no Monte Carlo).
@@ -129,6 +188,11 @@ impl DocumentState {
         if sel.bridge.is_none() && !part.bridges.is_empty() {
             sel.bridge = Some(0);
         }
+        if let Some(f) = sel.focus
+            && gw_plan::edit::item_name(&self.project, f).is_none()
+        {
+            sel.focus = None;
+        }
     }
 
     /// Applies commands in order, then evaluates once.
@@ -184,7 +248,14 @@ impl DocumentState {
                 false
             }
             Command::Select(s) => {
-                self.selection = s;
+                self.selection = Selection {
+                    focus: inferred_focus(&self.selection, &s),
+                    ..s
+                };
+                false
+            }
+            Command::Focus(item) => {
+                self.selection = Selection::of(item, self.selection);
                 false
             }
             Command::ReplaceProject { project, path } => {
@@ -202,77 +273,16 @@ impl DocumentState {
 
     /// Performs an edit on the project; false if it did not apply.
     fn edit(&mut self, command: Command) -> bool {
-        let reference = self.project.reference_temperature_c;
         match command {
-            Command::SetLoad {
-                part,
-                case,
-                component,
-                value,
-            } => {
-                let Some(c) = self.case_mut(part, case) else {
-                    return false;
-                };
-                if !value.is_finite() {
+            Command::Edit { project, focus } => {
+                if gw_plan::validate::validate_project(&project).is_err() {
                     return false;
                 }
-                c.set_value(component, value);
-            }
-            Command::RenameLoadCase { part, case, name } => {
-                let Some(c) = self.case_mut(part, case) else {
-                    return false;
-                };
-                c.name = name;
-            }
-            Command::AddLoadCase { part } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                let mut copy =
-                    p.load_cases
-                        .get(self.selection.case)
-                        .cloned()
-                        .unwrap_or(gw_plan::LoadCase {
-                            name: String::new(),
-                            loads: Vec::new(),
-                            ramp_steps: 10,
-                            temperature_range_c: (-10.0, 40.0),
-                            cycled: false,
-                            proof_test: false,
-                        });
-                copy.name = format!("Load case {}", p.load_cases.len() + 1);
-                p.load_cases.push(copy);
-                self.selection.case = p.load_cases.len() - 1;
-            }
-            Command::DeleteLoadCase { part, case } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                if case >= p.load_cases.len() || p.load_cases.len() == 1 {
-                    return false;
+                self.project = *project;
+                if let Some(item) = focus {
+                    self.selection = Selection::of(item, self.selection);
                 }
-                p.load_cases.remove(case);
-            }
-            Command::SetCaseSettings {
-                part,
-                case,
-                ramp_steps,
-                temperature_range_c,
-                cycled,
-            } => {
-                let Some(c) = self.case_mut(part, case) else {
-                    return false;
-                };
-                let (lo, hi) = temperature_range_c;
-                if !(lo.is_finite() && hi.is_finite() && lo <= hi)
-                    || ramp_steps == 0
-                    || ramp_steps > 1000
-                {
-                    return false;
-                }
-                c.ramp_steps = ramp_steps;
-                c.temperature_range_c = temperature_range_c;
-                c.cycled = cycled;
+                true
             }
             Command::SetDatum { part, x_m, s_m } => {
                 let Some(p) = self.project.parts.get_mut(part) else {
@@ -282,34 +292,14 @@ impl DocumentState {
                     return false;
                 }
                 p.datum_m = (x_m, s_m);
-            }
-            Command::SetMember { part, member } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                if member.validate().is_err() {
-                    return false;
-                }
-                p.member = *member;
+                true
             }
             Command::AddGauge {
                 part,
                 pattern,
                 position,
                 angle_rad,
-            } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                let id = gw_plan::arrangements::next_gauge_id(p);
-                p.gauges.push(gw_bridge::PlacedGauge {
-                    id,
-                    spec: gw_plan::document::default_gauge_spec(pattern),
-                    position,
-                    angle_rad,
-                });
-                self.selection.gauge = Some(p.gauges.len() - 1);
-            }
+            } => self.add_gauge(part, pattern, position, angle_rad),
             Command::MoveGauge {
                 part,
                 gauge,
@@ -325,6 +315,7 @@ impl DocumentState {
                     return false;
                 };
                 g.position = position;
+                true
             }
             Command::SetGaugeAngle {
                 part,
@@ -343,58 +334,14 @@ impl DocumentState {
                     return false;
                 }
                 g.angle_rad = angle_rad;
+                true
             }
             Command::DeleteGauge { part, gauge } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                if gauge >= p.gauges.len() {
-                    return false;
-                }
-                let id = p.gauges.remove(gauge).id;
-                let completion = PlanArm::Completion(gw_bridge::CompletionResistor {
-                    ohm: 350.0,
-                    tolerance: 0.0005,
-                    tcr_per_c: 5e-6,
-                });
-                for b in &mut p.bridges {
-                    for arm in &mut b.arms {
-                        if matches!(arm, PlanArm::Grid { gauge, .. } | PlanArm::Dummy { gauge, .. } if *gauge == id)
-                        {
-                            *arm = completion.clone();
-                        }
-                    }
-                }
+                let ok =
+                    gw_plan::edit::delete(&mut self.project, Item::Gauge { part, gauge }).is_ok();
                 self.selection.gauge = None;
-            }
-            Command::SetGaugeSpec { part, gauge, spec } => {
-                let Some(g) = self
-                    .project
-                    .parts
-                    .get_mut(part)
-                    .and_then(|p| p.gauges.get_mut(gauge))
-                else {
-                    return false;
-                };
-                if spec.validate().is_err() {
-                    return false;
-                }
-                g.spec = *spec;
-            }
-            Command::SetBridge { part, bridge, plan } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                let Ok(b) = gw_plan::validate::bridge_from_plan(p, &plan) else {
-                    return false;
-                };
-                if b.validate(&p.gauges).is_err() {
-                    return false;
-                }
-                let Some(slot) = p.bridges.get_mut(bridge) else {
-                    return false;
-                };
-                *slot = *plan;
+                self.selection.focus = Some(Item::Part(part));
+                ok
             }
             Command::SetArm {
                 part,
@@ -415,12 +362,7 @@ impl DocumentState {
                 }
                 b.arms[arm] = element;
                 b.arrangement = "Custom".into();
-                let part_ref = &self.project.parts[part];
-                let plan = part_ref.bridges[bridge].clone();
-                let bf = gw_plan::arrangements::bridge_factor_for(part_ref, &plan, reference);
-                self.project.parts[part].bridges[bridge]
-                    .instrument
-                    .bridge_factor = bf;
+                gw_plan::validate::validate_project(&self.project).is_ok()
             }
             Command::SetWiring {
                 part,
@@ -436,19 +378,16 @@ impl DocumentState {
                     return false;
                 };
                 b.wiring = wiring;
+                true
             }
             Command::AddBridge { part } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                let Some(template) = p.bridges.first().cloned() else {
-                    return false;
-                };
-                let mut b = template;
-                b.name = format!("Bridge {}", p.bridges.len() + 1);
-                b.channel = p.bridges.iter().map(|b| b.channel).max().unwrap_or(0) + 1;
-                p.bridges.push(b);
-                self.selection.bridge = Some(p.bridges.len() - 1);
+                match gw_plan::edit::add(&mut self.project, gw_plan::edit::ItemKind::Bridge, part) {
+                    Ok(item) => {
+                        self.selection = Selection::of(item, self.selection);
+                        true
+                    }
+                    Err(_) => false,
+                }
             }
             Command::ApplyCatalogue {
                 part,
@@ -458,7 +397,13 @@ impl DocumentState {
                 let Some(p) = self.project.parts.get_mut(part) else {
                     return false;
                 };
-                gw_plan::arrangements::apply_catalogue_entry(p, bridge, &entry, reference);
+                gw_plan::arrangements::apply_catalogue_entry(
+                    p,
+                    &mut self.project.gauge_stock,
+                    bridge,
+                    &entry,
+                );
+                true
             }
             Command::ApplySuggestion {
                 part,
@@ -468,21 +413,58 @@ impl DocumentState {
                 let Some(p) = self.project.parts.get_mut(part) else {
                     return false;
                 };
-                gw_plan::arrangements::apply_ranked(p, bridge, &ranked, reference);
+                gw_plan::arrangements::apply_ranked(p, bridge, &ranked);
+                true
             }
             Command::Undo
             | Command::Redo
             | Command::SetUnits(_)
             | Command::Select(_)
-            | Command::ReplaceProject { .. } => {
-                return false;
-            }
+            | Command::Focus(_)
+            | Command::ReplaceProject { .. } => false,
         }
-        true
     }
 
-    fn case_mut(&mut self, part: usize, case: usize) -> Option<&mut gw_plan::LoadCase> {
-        self.project.parts.get_mut(part)?.load_cases.get_mut(case)
+    fn add_gauge(
+        &mut self,
+        part: usize,
+        pattern: gw_bridge::GaugePattern,
+        position: gw_mechanics::SurfacePoint,
+        angle_rad: f64,
+    ) -> bool {
+        // The first stock type of that pattern, or the default type added to the stock.
+        let stock = match self
+            .project
+            .gauge_stock
+            .iter()
+            .find(|s| s.spec.pattern == pattern)
+        {
+            Some(s) => s.name.clone(),
+            None => gw_plan::document::stock_name_for(
+                &mut self.project.gauge_stock,
+                &gw_plan::document::default_gauge_spec(pattern),
+            ),
+        };
+        let Some(p) = self.project.parts.get_mut(part) else {
+            return false;
+        };
+        if p.member.locate(&position).is_err() || !angle_rad.is_finite() {
+            return false;
+        }
+        let id = gw_plan::arrangements::next_gauge_id(p);
+        p.gauges.push(PlanGauge {
+            id,
+            stock,
+            lot: None,
+            position,
+            angle_rad,
+        });
+        self.selection.gauge = Some(p.gauges.len() - 1);
+        self.selection.focus = Some(Item::Gauge {
+            part,
+            gauge: p.gauges.len() - 1,
+        });
+        true
     }
 
     /// Opens a file; on failure the open project is untouched and the message says why.

@@ -18,6 +18,15 @@ fn paths(tag: &str) -> AppPaths {
     }
 }
 
+fn set_vertical_force(app: &mut GaugewrightApp, value: f64) {
+    let mut p = app.doc.project.clone();
+    p.parts[0].load_cases[0].set_value(LoadComponent::VerticalForce, value);
+    app.doc.apply_all(vec![Command::Edit {
+        project: Box::new(p),
+        focus: None,
+    }]);
+}
+
 #[test]
 fn unsaved_work_is_autosaved_and_offered_back_on_the_next_start() {
     let p = paths("autosave");
@@ -26,12 +35,7 @@ fn unsaved_work_is_autosaved_and_offered_back_on_the_next_start() {
     let mut first = GaugewrightApp::new(p.clone(), None);
     first.dialogs = FileDialogs::TypedPath;
     assert_eq!(first.doc.project.name, "Winch test stand (demo)");
-    first.doc.apply_all(vec![Command::SetLoad {
-        part: 0,
-        case: 0,
-        component: LoadComponent::VerticalForce,
-        value: 7777.0,
-    }]);
+    set_vertical_force(&mut first, 7777.0);
     first.autosave(30.0);
     assert!(!recovery.exists(), "autosave waits for its interval");
     first.autosave(61.0);
@@ -63,12 +67,7 @@ fn the_last_saved_project_reopens_on_the_next_start() {
     let p = paths("reopen");
     let file = p.settings.as_ref().unwrap().with_file_name("plan.ron");
     let mut first = GaugewrightApp::new(p.clone(), None);
-    first.doc.apply_all(vec![Command::SetLoad {
-        part: 0,
-        case: 0,
-        component: LoadComponent::VerticalForce,
-        value: 6100.0,
-    }]);
+    set_vertical_force(&mut first, 6100.0);
     first.save_path(&file);
     assert!(!first.doc.dirty);
     drop(first);

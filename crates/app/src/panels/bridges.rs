@@ -7,10 +7,10 @@ use gw_bridge::chooser::{ChooserRequest, RankedArrangement, choose};
 use gw_bridge::{CompletionResistor, LeadWiring};
 use gw_mechanics::{LoadComponent, QuadratureOrder};
 use gw_plan::validate::expected_magnitudes;
-use gw_plan::{BridgePlan, Part, PlanArm};
+use gw_plan::{BridgePlan, PlanArm};
 
 use crate::command::Command;
-use crate::panels::project::capitalise;
+use crate::panels::capitalise;
 use crate::state::{DocumentState, Selection};
 
 /// A suggestion list with the evaluation count, part and bridge it was made for.
@@ -22,42 +22,7 @@ pub struct BridgesPanel {
     suggestions: Option<Suggestions>,
 }
 
-fn arm_text(arm: &PlanArm) -> String {
-    match arm {
-        PlanArm::Grid { gauge, grid } => format!("{gauge} grid {grid}"),
-        PlanArm::Dummy { gauge, grid } => format!("dummy like {gauge}/{grid}"),
-        PlanArm::Completion(c) => format!("{:.0} Ω resistor", c.ohm),
-    }
-}
-
-fn arm_choices(part: &Part) -> Vec<PlanArm> {
-    let mut out = Vec::new();
-    for g in &part.gauges {
-        for k in 0..g.element_count() {
-            out.push(PlanArm::Grid {
-                gauge: g.id.clone(),
-                grid: k + 1,
-            });
-        }
-    }
-    if let Some(g) = part.gauges.first() {
-        out.push(PlanArm::Dummy {
-            gauge: g.id.clone(),
-            grid: 1,
-        });
-    }
-    let ohm = part
-        .gauges
-        .first()
-        .map(|g| g.spec.resistance_ohm)
-        .unwrap_or(350.0);
-    out.push(PlanArm::Completion(CompletionResistor {
-        ohm,
-        tolerance: 0.0005,
-        tcr_per_c: 5e-6,
-    }));
-    out
-}
+use super::item_fields::{arm_choices, arm_text};
 
 /// Draws the four arms as a diamond with what sits in each, the corners' roles and the wiring.
 fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
@@ -153,48 +118,37 @@ impl BridgesPanel {
                 return;
             };
             ui.separator();
+            let factor = doc
+                .evaluation
+                .parts
+                .iter()
+                .find(|p| p.part_index == sel.part)
+                .and_then(|pe| pe.bridge_indices.iter().position(|&b| b == bi).and_then(|k| pe.bridges.get(k)))
+                .map(|be| format!("bridge factor {:.3}", be.bridge_factor))
+                .unwrap_or_else(|| "not evaluated yet".to_owned());
             ui.label(format!(
-                "{} — measures {}; arrangement: {}; channel {}; instrument gauge factor {:.3}, bridge factor {:.3}",
+                "{} — measures {}; arrangement: {}; channel {}; instrument gauge factor {:.3}, {factor}. Edit every setting in the inspector.",
                 plan.name,
                 plan.wanted.name(),
                 if plan.arrangement.is_empty() { "custom" } else { &plan.arrangement },
                 plan.channel,
-                plan.instrument.gauge_factor,
-                plan.instrument.bridge_factor
+                plan.gauge_factor_setting,
             ));
             schematic_ui(ui, plan);
             ui.horizontal(|ui| {
                 ui.label("Wiring");
-                for w in [LeadWiring::TwoWire, LeadWiring::ThreeWire, LeadWiring::RemoteSense] {
-                    if ui.selectable_label(plan.wiring == w, w.name()).on_hover_text("How leads connect the gauge site to the instrument").clicked() {
+                let at_gauge = plan.arms.clone().map(|a| !matches!(a, PlanArm::Completion(_)));
+                let count = at_gauge.iter().filter(|a| **a).count();
+                let now = plan.wiring.trade_name(at_gauge);
+                for w in LeadWiring::choices(count) {
+                    let name = w.trade_name(at_gauge);
+                    if ui.selectable_label(now == name, &name).on_hover_text("How leads connect the gauge site to the instrument").clicked() {
                         out.push(Command::SetWiring { part: sel.part, bridge: bi, wiring: w });
                     }
                 }
             });
-            egui::CollapsingHeader::new("Excitation, leads and channel").default_open(false).show(ui, |ui| {
-                let mut edited = plan.clone();
-                let mut changed = false;
-                egui::Grid::new("bridge settings").num_columns(2).show(ui, |ui| {
-                    let mut num = |ui: &mut egui::Ui, label: &str, value: &mut f64, scale: f64, suffix: &str, help: &str| {
-                        changed |= super::scaled_number_row(ui, label, value, scale, suffix, help);
-                    };
-                    if let gw_bridge::Excitation::Voltage { volts } = &mut edited.excitation {
-                        num(ui, "Excitation", volts, 1.0, " V", "Bridge excitation voltage");
-                    }
-                    num(ui, "Lead length", &mut edited.lead.length_m, 1.0, " m", "Length of each lead wire");
-                    num(ui, "Lead resistance", &mut edited.lead.ohm_per_m, 1.0, " Ω/m", "Resistance per metre of one lead");
-                    num(ui, "Instrument gauge factor", &mut edited.instrument.gauge_factor, 1.0, "", "Gauge factor set on the instrument");
-                    num(ui, "Bridge factor", &mut edited.instrument.bridge_factor, 1.0, "", "How many times the target strain the bridge reads");
-                    num(ui, "Gain", &mut edited.signal.gain, 1.0, "", "Amplifier gain");
-                    num(ui, "Input range", &mut edited.signal.input_range_v, 1.0, " V", "± range at the ADC");
-                    num(ui, "Noise density", &mut edited.signal.amplifier_noise_v_per_rt_hz, 1e9, " nV/√Hz", "Amplifier input noise density");
-                    num(ui, "Bandwidth", &mut edited.signal.bandwidth_hz, 1.0, " Hz", "Measurement bandwidth");
-                });
-                if changed {
-                    out.push(Command::SetBridge { part: sel.part, bridge: bi, plan: Box::new(edited) });
-                }
-            });
-            let choices = arm_choices(part);
+            let choices = arm_choices(&doc.project, part);
+            let placed = doc.project.placed_gauges(part);
             egui::Grid::new("arms").num_columns(1).show(ui, |ui| {
                 for k in 0..4 {
                     egui::ComboBox::from_label(format!("Arm {}", k + 1))
@@ -215,11 +169,10 @@ impl BridgesPanel {
             ui.strong("Arrangements for this part");
             let station = sel
                 .gauge
-                .and_then(|g| part.gauges.get(g))
+                .and_then(|g| placed.get(g))
                 .map(|g| g.position.x_m)
                 .unwrap_or_else(|| part.member.faces().first().map(|f| (f.x_range_m.0 + f.x_range_m.1) / 4.0).unwrap_or(0.0));
-            let spec = part
-                .gauges
+            let spec = placed
                 .first()
                 .map(|g| g.spec.clone())
                 .unwrap_or_else(|| gw_plan::document::default_gauge_spec(gw_bridge::GaugePattern::SingleGrid));
@@ -265,7 +218,7 @@ impl BridgesPanel {
                         completion: CompletionResistor { ohm: spec.resistance_ohm, tolerance: 0.0005, tcr_per_c: 5e-6 },
                         keep: 8,
                     };
-                    let result = choose(&part.member, &part.gauges, &request, QuadratureOrder::default()).map_err(|e| e.to_string());
+                    let result = choose(&part.member, &placed, &request, QuadratureOrder::default()).map_err(|e| e.to_string());
                     *suggestions = Some((doc.evaluations, sel.part, bi, result));
                 }
             });

@@ -119,6 +119,7 @@ impl CanvasPanel {
         let Some(part) = doc.project.parts.get(sel.part) else {
             return;
         };
+        let placed = doc.project.placed_gauges(part);
         let member = &part.member;
         let faces = member.faces();
         let current = face
@@ -293,7 +294,7 @@ impl CanvasPanel {
             );
 
             // Gauges on this face, each an accessible handle: click selects, drag moves.
-            for (gi, g) in part.gauges.iter().enumerate() {
+            for (gi, g) in placed.iter().enumerate() {
                 let pos = match drag {
                     Some((d, p)) if *d == gi => *p,
                     _ => g.position,
@@ -375,7 +376,7 @@ impl CanvasPanel {
                         .collect();
                     stations.push(part.datum_m.0);
                     if let gw_mechanics::Member::Beam(b) = member {
-                        stations.push(b.load_position_m);
+                        stations.extend(b.load_points.iter().map(|p| p.position_m));
                     }
                     let near = |v: f64, targets: &[f64]| {
                         targets

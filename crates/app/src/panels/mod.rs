@@ -2,10 +2,14 @@
 
 pub mod bridges;
 pub mod canvas;
+pub mod fields;
 pub mod findings;
 pub mod help;
+pub mod inspector;
+pub mod item_fields;
+pub mod new_project;
 pub mod plots;
-pub mod project;
+pub mod tree;
 
 /// A labelled number in a two-column grid, shown as `value × scale` with `suffix`; writes the
 /// value back and returns true when the user changed it. Ends the grid row.
@@ -30,6 +34,14 @@ pub fn scaled_number_row(
     }
     ui.end_row();
     changed
+}
+
+/// "axial force" → "Axial force".
+pub fn capitalise(s: &str) -> String {
+    let mut c = s.chars();
+    c.next()
+        .map(|f| f.to_uppercase().collect::<String>() + c.as_str())
+        .unwrap_or_default()
 }
 
 /// Colours of our own calm engineering look.

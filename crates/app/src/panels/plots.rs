@@ -8,7 +8,7 @@ use gw_bridge::margins::MarginStatus;
 use gw_plan::evaluate::{BridgeEvaluation, PartEvaluation};
 
 use super::palette;
-use crate::panels::project::capitalise;
+use crate::panels::capitalise;
 use crate::state::DocumentState;
 use crate::units::{Quantity, microstrain};
 

@@ -1,0 +1,265 @@
+//! What the inspector edits: one description per field of the document (label, unit, help,
+//! how to read and write it), grouped per item. Adding a field to the document means adding
+//! one line here; the inspector draws, validates and undoes it like every other.
+
+use gw_plan::Project;
+
+use crate::units::{Quantity, Units};
+
+/// How a number is shown.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Unit {
+    /// A quantity whose unit follows the chosen unit system.
+    Of(Quantity),
+    /// A fixed scale and suffix: shown = stored × scale.
+    Scaled(f64, &'static str),
+}
+
+impl Unit {
+    /// Stored value to shown value.
+    pub fn show(self, units: Units, v: f64) -> f64 {
+        match self {
+            Unit::Of(q) => units.to_display(q, v),
+            Unit::Scaled(k, _) => v * k,
+        }
+    }
+
+    /// Shown value to stored value.
+    pub fn store(self, units: Units, v: f64) -> f64 {
+        match self {
+            Unit::Of(q) => units.from_display(q, v),
+            Unit::Scaled(k, _) => v / k,
+        }
+    }
+
+    /// Suffix shown after the number.
+    pub fn suffix(self, units: Units) -> &'static str {
+        match self {
+            Unit::Of(q) => units.label(q),
+            Unit::Scaled(_, s) => s,
+        }
+    }
+}
+
+/// Millimetres or inches.
+pub const LENGTH: Unit = Unit::Of(Quantity::Length);
+/// A fraction shown in per cent.
+pub const PERCENT: Unit = Unit::Scaled(100.0, "%");
+/// A strain shown in µε.
+pub const MICROSTRAIN: Unit = Unit::Scaled(1e6, "µε");
+/// A plain number.
+pub const PLAIN: Unit = Unit::Scaled(1.0, "");
+/// Ohms.
+pub const OHM: Unit = Unit::Scaled(1.0, "Ω");
+/// Volts.
+pub const VOLT: Unit = Unit::Scaled(1.0, "V");
+/// Per °C shown in ppm/°C.
+pub const PPM_PER_C: Unit = Unit::Scaled(1e6, "ppm/°C");
+/// Radians shown in degrees.
+pub const DEGREES: Unit = Unit::Scaled(180.0 / std::f64::consts::PI, "°");
+
+type Get<T, V> = Box<dyn Fn(&T) -> V>;
+type Set<T, V> = Box<dyn Fn(&mut T, V)>;
+
+/// How a field is edited.
+pub enum Editor<T> {
+    /// A real number.
+    Number {
+        unit: Unit,
+        get: Get<T, f64>,
+        set: Set<T, f64>,
+    },
+    /// A whole number within a range.
+    Whole {
+        range: (u64, u64),
+        get: Get<T, u64>,
+        set: Set<T, u64>,
+    },
+    /// Text (one line or several).
+    Text {
+        multiline: bool,
+        get: Get<T, String>,
+        set: Set<T, String>,
+    },
+    /// Yes or no.
+    Flag {
+        get: Get<T, bool>,
+        set: Set<T, bool>,
+    },
+    /// One of several options, by position.
+    Choice {
+        options: Vec<String>,
+        get: Get<T, Option<usize>>,
+        set: Set<T, usize>,
+    },
+    /// A value shown but not edited here (derived, or edited elsewhere), with why.
+    Info(String),
+}
+
+/// One field of an item.
+pub struct Field<T> {
+    /// Where it sits in the item as the file stores it (dots between names; the coverage
+    /// test compares these with the document).
+    pub path: &'static str,
+    /// Label before the control.
+    pub label: String,
+    /// Tooltip.
+    pub help: &'static str,
+    /// Editor.
+    pub editor: Editor<T>,
+}
+
+/// Fields under one heading.
+pub struct Group<T> {
+    /// Heading.
+    pub title: &'static str,
+    /// Fields.
+    pub fields: Vec<Field<T>>,
+}
+
+/// What field builders may look at besides the item itself.
+pub struct Ctx<'a> {
+    /// The whole project (names of stock types, gauges of the part).
+    pub project: &'a Project,
+    /// The part the item belongs to, if any.
+    pub part: Option<usize>,
+    /// Display units.
+    pub units: Units,
+}
+
+/// A number field.
+pub fn num<T>(
+    path: &'static str,
+    label: &str,
+    unit: Unit,
+    help: &'static str,
+    get: impl Fn(&T) -> f64 + 'static,
+    set: impl Fn(&mut T, f64) + 'static,
+) -> Field<T> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::Number {
+            unit,
+            get: Box::new(get),
+            set: Box::new(set),
+        },
+    }
+}
+
+/// A whole-number field.
+pub fn whole<T>(
+    path: &'static str,
+    label: &str,
+    range: (u64, u64),
+    help: &'static str,
+    get: impl Fn(&T) -> u64 + 'static,
+    set: impl Fn(&mut T, u64) + 'static,
+) -> Field<T> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::Whole {
+            range,
+            get: Box::new(get),
+            set: Box::new(set),
+        },
+    }
+}
+
+/// A text field.
+pub fn text<T>(
+    path: &'static str,
+    label: &str,
+    help: &'static str,
+    get: impl Fn(&T) -> String + 'static,
+    set: impl Fn(&mut T, String) + 'static,
+) -> Field<T> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::Text {
+            multiline: false,
+            get: Box::new(get),
+            set: Box::new(set),
+        },
+    }
+}
+
+/// A yes/no field.
+pub fn flag<T>(
+    path: &'static str,
+    label: &str,
+    help: &'static str,
+    get: impl Fn(&T) -> bool + 'static,
+    set: impl Fn(&mut T, bool) + 'static,
+) -> Field<T> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::Flag {
+            get: Box::new(get),
+            set: Box::new(set),
+        },
+    }
+}
+
+/// A choice among `options`.
+pub fn choice<T>(
+    path: &'static str,
+    label: &str,
+    help: &'static str,
+    options: Vec<String>,
+    get: impl Fn(&T) -> Option<usize> + 'static,
+    set: impl Fn(&mut T, usize) + 'static,
+) -> Field<T> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::Choice {
+            options,
+            get: Box::new(get),
+            set: Box::new(set),
+        },
+    }
+}
+
+/// A choice among the values of a small enum, by their names.
+pub fn pick<T, V: Copy + PartialEq + 'static>(
+    path: &'static str,
+    label: &str,
+    help: &'static str,
+    values: &[(V, &str)],
+    get: impl Fn(&T) -> V + 'static,
+    set: impl Fn(&mut T, V) + 'static,
+) -> Field<T> {
+    let list: Vec<V> = values.iter().map(|(v, _)| *v).collect();
+    let list2 = list.clone();
+    choice(
+        path,
+        label,
+        help,
+        values.iter().map(|(_, n)| (*n).to_owned()).collect(),
+        move |t| list.iter().position(|v| *v == get(t)),
+        move |t, i| {
+            if let Some(v) = list2.get(i) {
+                set(t, *v);
+            }
+        },
+    )
+}
+
+/// A read-only line.
+pub fn info<T>(path: &'static str, label: &str, help: &'static str, value: String) -> Field<T> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::Info(value),
+    }
+}

@@ -1,0 +1,357 @@
+//! The inspector: every field of the selected item, grouped, with units and help. An edit is
+//! tried on a copy of the project; a rejected value is marked at its field with the reason.
+
+use gw_plan::Project;
+use gw_plan::edit::Item;
+
+use super::fields::{Editor, Field, Group};
+use super::item_fields;
+use crate::command::Command;
+use crate::state::DocumentState;
+use crate::units::Units;
+
+/// View state: the last rejected edit (item, field label, reason) and text being typed.
+#[derive(Default)]
+pub struct InspectorPanel {
+    rejected: Option<(Item, String, String)>,
+}
+
+/// The result of drawing one group list: the edited copy of the item and the field label.
+type Edited<T> = Option<(T, String)>;
+
+fn number_ui<T: Clone>(
+    ui: &mut egui::Ui,
+    f: &Field<T>,
+    item: &T,
+    units: Units,
+    label: egui::Id,
+) -> Option<T> {
+    let Editor::Number { unit, get, set } = &f.editor else {
+        return None;
+    };
+    let stored = get(item);
+    if !stored.is_finite() {
+        ui.label("—");
+        return None;
+    }
+    let mut shown = unit.show(units, stored);
+    let speed = (shown.abs() * 0.005).max(0.001);
+    let suffix = unit.suffix(units);
+    let r = ui
+        .add(
+            egui::DragValue::new(&mut shown)
+                .speed(speed)
+                .max_decimals(6)
+                .suffix(if suffix.is_empty() {
+                    String::new()
+                } else {
+                    format!(" {suffix}")
+                }),
+        )
+        .labelled_by(label)
+        .on_hover_text(f.help);
+    (r.changed() && shown.is_finite()).then(|| {
+        let mut copy = item.clone();
+        set(&mut copy, unit.store(units, shown));
+        copy
+    })
+}
+
+fn field_ui<T: Clone>(ui: &mut egui::Ui, f: &Field<T>, item: &T, units: Units) -> Option<T> {
+    let label = ui.label(&f.label).on_hover_text(f.help).id;
+    match &f.editor {
+        Editor::Number { .. } => number_ui(ui, f, item, units, label),
+        Editor::Whole { range, get, set } => {
+            let mut v = get(item);
+            let r = ui
+                .add(egui::DragValue::new(&mut v).range(range.0..=range.1))
+                .labelled_by(label)
+                .on_hover_text(f.help);
+            r.changed().then(|| {
+                let mut copy = item.clone();
+                set(&mut copy, v);
+                copy
+            })
+        }
+        Editor::Text {
+            multiline,
+            get,
+            set,
+        } => {
+            let mut v = get(item);
+            let edit = if *multiline {
+                egui::TextEdit::multiline(&mut v).desired_rows(3)
+            } else {
+                egui::TextEdit::singleline(&mut v)
+            };
+            let r = ui
+                .add(edit.desired_width(200.0))
+                .labelled_by(label)
+                .on_hover_text(f.help);
+            // Names are committed when the field loses focus, so a half-typed id is not tried.
+            let commit = if *multiline {
+                r.changed()
+            } else {
+                r.lost_focus() && v != get(item)
+            };
+            commit.then(|| {
+                let mut copy = item.clone();
+                set(&mut copy, v);
+                copy
+            })
+        }
+        Editor::Flag { get, set } => {
+            let mut v = get(item);
+            let r = ui
+                .checkbox(&mut v, "")
+                .labelled_by(label)
+                .on_hover_text(f.help);
+            r.changed().then(|| {
+                let mut copy = item.clone();
+                set(&mut copy, v);
+                copy
+            })
+        }
+        Editor::Choice { options, get, set } => {
+            let current = get(item);
+            let shown = current
+                .and_then(|i| options.get(i))
+                .cloned()
+                .unwrap_or_else(|| "—".to_owned());
+            let mut picked = None;
+            egui::ComboBox::from_id_salt((f.path, &f.label))
+                .selected_text(shown)
+                .width(200.0)
+                .show_ui(ui, |ui| {
+                    for (i, o) in options.iter().enumerate() {
+                        if ui.selectable_label(current == Some(i), o).clicked()
+                            && current != Some(i)
+                        {
+                            picked = Some(i);
+                        }
+                    }
+                })
+                .response
+                .labelled_by(label)
+                .on_hover_text(f.help);
+            picked.map(|i| {
+                let mut copy = item.clone();
+                set(&mut copy, i);
+                copy
+            })
+        }
+        Editor::Info(text) => {
+            ui.label(text).labelled_by(label).on_hover_text(f.help);
+            None
+        }
+    }
+}
+
+fn groups_ui<T: Clone>(
+    ui: &mut egui::Ui,
+    groups: &[Group<T>],
+    item: &T,
+    units: Units,
+    rejected: Option<&(String, String)>,
+) -> Edited<T> {
+    let mut edited = None;
+    for (gi, group) in groups.iter().enumerate() {
+        egui::CollapsingHeader::new(group.title)
+            .id_salt(("inspector group", gi))
+            .default_open(true)
+            .show(ui, |ui| {
+                egui::Grid::new(("inspector grid", gi))
+                    .num_columns(2)
+                    .spacing([10.0, 4.0])
+                    .show(ui, |ui| {
+                        for f in &group.fields {
+                            // Fields of an absent optional value read NaN: they are not shown.
+                            if let Editor::Number { get, .. } = &f.editor
+                                && get(item).is_nan()
+                            {
+                                continue;
+                            }
+                            if let Some(copy) = field_ui(ui, f, item, units) {
+                                edited = Some((copy, f.label.clone()));
+                            }
+                            ui.end_row();
+                            if let Some((label, reason)) = rejected
+                                && *label == f.label
+                            {
+                                ui.label("");
+                                ui.add(
+                                    egui::Label::new(
+                                        egui::RichText::new(format!("Not applied: {reason}"))
+                                            .color(super::palette::FAIL),
+                                    )
+                                    .wrap(),
+                                );
+                                ui.end_row();
+                            }
+                        }
+                    });
+            });
+    }
+    edited
+}
+
+/// Puts an edited copy of an item back into a copy of the project.
+fn with_item(
+    project: &Project,
+    apply: impl FnOnce(&mut Project) -> Result<(), String>,
+) -> Result<Project, String> {
+    let mut p = project.clone();
+    apply(&mut p)?;
+    Ok(p)
+}
+
+impl InspectorPanel {
+    /// Draws the inspector for the selected item.
+    pub fn inspector_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
+        let Self { rejected } = self;
+        let item = doc.selection.inspected();
+        let project = &doc.project;
+        let units = doc.units;
+        let here = rejected
+            .as_ref()
+            .filter(|(i, _, _)| *i == item)
+            .map(|(_, l, r)| (l.clone(), r.clone()));
+        let title = match gw_plan::edit::item_name(project, item) {
+            Some(name) => format!("{} — {name}", super::capitalise(item.kind_name())),
+            None => "Nothing selected".to_owned(),
+        };
+        ui.heading(title);
+        ui.separator();
+        let candidate: Option<(Result<Project, String>, String)> = egui::ScrollArea::vertical()
+            .auto_shrink([false, false])
+            .show(ui, |ui| {
+                match item {
+                    Item::Project => groups_ui(
+                        ui,
+                        &item_fields::project_groups(),
+                        project,
+                        units,
+                        here.as_ref(),
+                    )
+                    .map(|(p, l)| (Ok(p), l)),
+                    Item::Stock(k) => {
+                        let s = project.gauge_stock.get(k)?;
+                        let (copy, label) =
+                            groups_ui(ui, &item_fields::stock_groups(), s, units, here.as_ref())?;
+                        Some((
+                            with_item(project, |p| {
+                                let new_name = copy.name.clone();
+                                p.gauge_stock[k] = gw_plan::StockGauge {
+                                    name: s.name.clone(),
+                                    ..copy
+                                };
+                                // A new name is carried into every gauge of this type.
+                                if new_name != s.name {
+                                    gw_plan::edit::rename(p, item, &new_name)?;
+                                }
+                                Ok(())
+                            }),
+                            label,
+                        ))
+                    }
+                    Item::Part(i) => {
+                        let part = project.parts.get(i)?;
+                        let (copy, label) = groups_ui(
+                            ui,
+                            &item_fields::part_groups(part),
+                            part,
+                            units,
+                            here.as_ref(),
+                        )?;
+                        Some((
+                            with_item(project, |p| {
+                                p.parts[i] = copy;
+                                Ok(())
+                            }),
+                            label,
+                        ))
+                    }
+                    Item::LoadCase { part, case } => {
+                        let pt = project.parts.get(part)?;
+                        let c = pt.load_cases.get(case)?;
+                        let (copy, label) = groups_ui(
+                            ui,
+                            &item_fields::load_case_groups(&pt.member),
+                            c,
+                            units,
+                            here.as_ref(),
+                        )?;
+                        Some((
+                            with_item(project, |p| {
+                                p.parts[part].load_cases[case] = copy;
+                                Ok(())
+                            }),
+                            label,
+                        ))
+                    }
+                    Item::Gauge { part, gauge } => {
+                        let pt = project.parts.get(part)?;
+                        let g = pt.gauges.get(gauge)?;
+                        let (copy, label) = groups_ui(
+                            ui,
+                            &item_fields::gauge_groups(project, pt, g),
+                            g,
+                            units,
+                            here.as_ref(),
+                        )?;
+                        Some((
+                            with_item(project, |p| {
+                                let new_id = copy.id.clone();
+                                p.parts[part].gauges[gauge] = gw_plan::PlanGauge {
+                                    id: g.id.clone(),
+                                    ..copy
+                                };
+                                // A new id is carried into every arm that uses the gauge.
+                                if new_id != g.id {
+                                    gw_plan::edit::rename(p, item, &new_id)?;
+                                }
+                                Ok(())
+                            }),
+                            label,
+                        ))
+                    }
+                    Item::Bridge { part, bridge } => {
+                        let pt = project.parts.get(part)?;
+                        let b = pt.bridges.get(bridge)?;
+                        let (copy, label) = groups_ui(
+                            ui,
+                            &item_fields::bridge_groups(project, pt, b),
+                            b,
+                            units,
+                            here.as_ref(),
+                        )?;
+                        Some((
+                            with_item(project, |p| {
+                                p.parts[part].bridges[bridge] = copy;
+                                Ok(())
+                            }),
+                            label,
+                        ))
+                    }
+                }
+            })
+            .inner;
+        if let Some((candidate, label)) = candidate {
+            match candidate.and_then(|c| check(&c).map(|()| c)) {
+                Ok(candidate) => {
+                    *rejected = None;
+                    out.push(Command::Edit {
+                        project: Box::new(candidate),
+                        focus: Some(item),
+                    });
+                }
+                Err(reason) => *rejected = Some((item, label, reason)),
+            }
+        }
+    }
+}
+
+/// Whether the edited project may replace the current one; the reason when not.
+fn check(candidate: &Project) -> Result<(), String> {
+    gw_plan::validate::validate_project(candidate).map_err(|e| e.to_string())
+}
