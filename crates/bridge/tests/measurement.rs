@@ -398,3 +398,42 @@ fn multi_axis_separates_torque_and_bending_on_a_shaft() {
         assert!(row.iter().all(|v| v.abs() < 1e-6), "{row:?}");
     }
 }
+
+#[test]
+fn a_thermal_output_curve_recorded_at_its_gauge_factor_reads_back_as_recorded() {
+    // Data-sheet convention (from memory): the lot's thermal-output curve is the strain
+    // indicated with the instrument set to the stated gauge factor. A quarter bridge of a grid
+    // whose gauge factor differs (2.10), on the matched material, read with the instrument at
+    // the curve's factor (2.00), shows the curve itself; read at 2.10 it shows the curve
+    // × 2.00 / 2.10.
+    let member = cantilever();
+    let mut gauges = top_bottom();
+    let poly = |t: f64| -40e-6 + 2.5e-6 * t - 0.03e-6 * t * t;
+    for g in &mut gauges {
+        g.spec.gauge_factor = 2.10;
+        g.spec.thermal_output.lot_polynomial = vec![-40e-6, 2.5e-6, -0.03e-6];
+        g.spec.thermal_output.reference_gauge_factor = Some(2.00);
+    }
+    let c = ArmElement::Completion(CompletionResistor {
+        ohm: 350.0,
+        tolerance: 0.0,
+        tcr_per_c: 0.0,
+    });
+    let reading_at = |gf_set: f64, dt: f64| {
+        let mut b = bridge([grid(0, 0), c, c, c], LoadComponent::VerticalForce, 1.0);
+        b.instrument.gauge_factor = gf_set;
+        let model = BridgeModel::new(&setup(&member, &gauges), &b).unwrap();
+        let mut l = LoadVector::ZERO;
+        l[LoadComponent::TemperatureChange] = dt;
+        model.displayed(&l).unwrap()
+    };
+    let (t_ref, dt) = (20.0, 40.0);
+    let recorded = poly(t_ref + dt) - poly(t_ref);
+    // The exact circuit adds the one-arm nonlinearity (≈ GF ε / 2 ≈ 1e-4 relative here).
+    assert_relative_eq!(reading_at(2.00, dt), recorded, max_relative = 2e-4);
+    assert_relative_eq!(
+        reading_at(2.10, dt),
+        recorded * 2.00 / 2.10,
+        max_relative = 2e-4
+    );
+}

@@ -305,6 +305,7 @@ fn evaluate_part(
         }
     }
     let gauges = project.placed_gauges(part);
+    curve_range_findings(project, pi, part, &gauges, findings);
     let setup = Setup {
         member,
         gauges: &gauges,
@@ -387,6 +388,41 @@ fn evaluate_part(
         bridges,
         bridge_indices,
         multi_axis: multi,
+    }
+}
+
+/// Warns where a load case's temperatures leave the range a gauge's thermal-output curve was
+/// measured over: the apparent strain there is an extrapolation of the polynomial.
+fn curve_range_findings(
+    project: &Project,
+    pi: usize,
+    part: &Part,
+    gauges: &[gw_bridge::PlacedGauge],
+    findings: &mut Vec<Finding>,
+) {
+    for (gi, g) in gauges.iter().enumerate() {
+        let Some((lo, hi)) = g.spec.thermal_output.valid_range_c else {
+            continue;
+        };
+        for case in &part.load_cases {
+            let t0 = project.reference_temperature_c + case.temperature_range_c.0;
+            let t1 = project.reference_temperature_c + case.temperature_range_c.1;
+            if !(g.spec.thermal_output.covers(t0) && g.spec.thermal_output.covers(t1)) {
+                findings.push(Finding {
+                    severity: Severity::Warn,
+                    message: format!(
+                        "part \"{}\", gauge {}: its thermal-output curve is given from {lo:.0} to \
+                         {hi:.0} °C, but load case \"{}\" runs from {t0:.0} to {t1:.0} °C; the \
+                         apparent strain outside the curve's range is extrapolated",
+                        part.name, g.id, case.name
+                    ),
+                    target: Target::Gauge {
+                        part: pi,
+                        gauge: gi,
+                    },
+                });
+            }
+        }
     }
 }
 

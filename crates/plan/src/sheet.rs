@@ -622,6 +622,16 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
                 "Measures {}. Excitation {:.2} V. Instrument: gauge factor {:.3}, bridge factor {:.4}, gain {:.0}, input range ±{:.1} V. Expected zero offset within ±{:.3} mV/V from resistance tolerances.",
                 be.wanted.name(), be.excitation_v, be.gauge_factor_setting, be.bridge_factor, plan.signal.gain, plan.signal.input_range_v, be.zero_offset_band_mv_per_v
             ));
+            if let Some(o) = &plan.bridge_factor_override {
+                w.para(
+                    8.5,
+                    false,
+                    &format!(
+                        "The bridge factor is set by hand, not computed from the arrangement: {}",
+                        o.reason
+                    ),
+                );
+            }
             let mut rows = vec![vec![
                 "Load case".to_owned(),
                 "Output".to_owned(),

@@ -101,3 +101,29 @@ fn monte_carlo_is_available_on_request() {
     assert_eq!(u.monte_carlo.trials, 2000);
     assert!(u.monte_carlo.standard_deviation > 0.0);
 }
+
+#[test]
+fn a_load_case_beyond_the_thermal_output_curve_is_reported_at_the_gauge() {
+    use gw_plan::evaluate::{Severity, Target};
+    let mut p = gw_plan::demo::demo_project();
+    let ev = evaluate(&p, &EvalOptions::default());
+    assert!(
+        !ev.findings
+            .iter()
+            .any(|f| f.message.contains("extrapolated"))
+    );
+    // The demo's cases run from −10 to +40 °C about 20 °C, i.e. 10 to 60 °C; a curve measured
+    // from 15 °C up leaves the cold end uncovered.
+    p.gauge_stock[0].spec.thermal_output.valid_range_c = Some((15.0, 120.0));
+    let ev = evaluate(&p, &EvalOptions::default());
+    let f = ev
+        .findings
+        .iter()
+        .find(|f| f.message.contains("extrapolated"))
+        .expect("a finding for the uncovered range");
+    assert_eq!(f.severity, Severity::Warn);
+    assert!(
+        matches!(f.target, Target::Gauge { part: 0, gauge: 0 }),
+        "{f:?}"
+    );
+}
