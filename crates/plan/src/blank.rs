@@ -130,11 +130,17 @@ pub fn default_material() -> Material {
 
 /// A first load case for a member: its first mechanical component at a modest value.
 pub fn first_load_case(member: &Member) -> LoadCase {
-    let component = member
-        .components()
-        .iter()
-        .copied()
-        .find(|c| *c != LoadComponent::TemperatureChange)
+    // The load such a part is usually planned for first.
+    let preferred = [
+        LoadComponent::VerticalForce,
+        LoadComponent::Torque,
+        LoadComponent::InternalPressure,
+        LoadComponent::RemoteStressX,
+        LoadComponent::GivenStateFactor,
+    ];
+    let component = preferred
+        .into_iter()
+        .find(|c| member.components().contains(c))
         .unwrap_or(LoadComponent::TemperatureChange);
     let value = match component {
         LoadComponent::AxialForce | LoadComponent::VerticalForce => 1000.0,

@@ -193,12 +193,13 @@ fn add_bridge(p: &mut Project, part: usize) -> Result<Item, String> {
         .unwrap_or(0)
         + 1;
     let pt = p.parts.get_mut(part).ok_or_else(|| no_part(part))?;
+    // The first mechanical load of the first case, else the first the part carries.
+    let mechanical = |c: &LoadComponent| *c != LoadComponent::TemperatureChange;
     let wanted = pt
-        .member
-        .components()
-        .iter()
-        .copied()
-        .find(|c| *c != LoadComponent::TemperatureChange)
+        .load_cases
+        .first()
+        .and_then(|c| c.loads.iter().map(|(c, _)| *c).find(mechanical))
+        .or_else(|| pt.member.components().iter().copied().find(mechanical))
         .unwrap_or(LoadComponent::TemperatureChange);
     let taken: Vec<&str> = pt.bridges.iter().map(|b| b.name.as_str()).collect();
     let name = unique("Bridge", &taken);
@@ -213,7 +214,9 @@ fn add_bridge(p: &mut Project, part: usize) -> Result<Item, String> {
             ohm_per_m: 0.13,
             tcr_per_c: COPPER_TCR_PER_C,
         },
-        excitation: Excitation::Voltage { volts: 5.0 },
+        // 3 V keeps a 350 Ω grid of a few millimetres within its self-heating limit on
+        // steel (common practice).
+        excitation: Excitation::Voltage { volts: 3.0 },
         amplifier_input_ohm: None,
         gauge_factor_setting: gauge_factor,
         bridge_factor_override: None,

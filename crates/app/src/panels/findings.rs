@@ -40,7 +40,7 @@ impl FindingsPanel {
                     let (word, colour) = match f.severity {
                         Severity::Error => ("Problem", palette::FAIL),
                         Severity::Fail => ("Fails", palette::FAIL),
-                        Severity::Warn => ("Close", palette::WARN),
+                        Severity::Warn => ("Check", palette::WARN),
                     };
                     ui.horizontal(|ui| {
                         ui.colored_label(colour, word);

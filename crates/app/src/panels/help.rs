@@ -8,7 +8,7 @@ use crate::state::DocumentState;
 const METHOD: &[(&str, &str)] = &[
     (
         "Mechanics",
-        "Each part is a textbook model: Euler–Bernoulli beams with transverse shear by τ = VQ/(Ib), round shafts (τ = Tr/J), thin-walled vessels (membrane stresses, valid for mean radius ≥ 10 × wall), thick cylinders (Lamé), and an infinite plate with a circular hole (Kirsch). Strains are those of the free outer surface.",
+        "Each part is a textbook model: Euler–Bernoulli beams (one or several load points) with transverse shear by τ = VQ/(Ib), round shafts (τ = Tr/J), thin-walled vessels (membrane stresses, valid for mean radius ≥ 10 × wall), thick cylinders (Lamé), and an infinite plate with a circular hole (Kirsch). Strains are those of the free outer surface.",
     ),
     (
         "Grids",
@@ -32,6 +32,9 @@ const METHOD: &[(&str, &str)] = &[
     ),
 ];
 
+/// Where the user guide is: the copy beside the sources of this build.
+const GUIDE_URL: &str = concat!("file://", env!("CARGO_MANIFEST_DIR"), "/../../docs/guide.md");
+
 /// Help view state.
 #[derive(Default)]
 pub struct HelpPanel;
@@ -41,6 +44,19 @@ impl HelpPanel {
     pub fn help_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState) {
         let Self = self;
         egui::ScrollArea::vertical().show(ui, |ui| {
+            ui.heading("Getting started");
+            ui.label(
+                "File → New asks for your first part. The plan tree on the left holds the parts, \
+                 their load cases, gauges and bridges, and the project's gauge stock: select an \
+                 item to edit every value of it in the inspector on the right; Add, Duplicate, \
+                 Rename (F2) and Delete sit above the tree, and Edit → Undo takes any change back.",
+            );
+            ui.horizontal_wrapped(|ui| {
+                ui.label("The user guide walks from File → New to the build sheet and lists each model's limits:");
+                ui.hyperlink_to("docs/guide.md", GUIDE_URL)
+                    .on_hover_text("The user guide in the project's documentation folder");
+            });
+            ui.add_space(4.0);
             ui.heading("How Gaugewright computes");
             for (title, text) in METHOD {
                 ui.strong(*title);
