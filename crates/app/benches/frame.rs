@@ -30,6 +30,18 @@ fn bench(c: &mut Criterion) {
         let mut h = harness(tab);
         c.bench_function(&format!("frame/{name}"), |b| b.iter(|| h.step()));
     }
+    // The inspector on a bridge: its field table (arm choices, computed bridge factor) is
+    // built every frame.
+    let mut h = harness(Tab::Bridges);
+    h.state_mut()
+        .doc
+        .apply_all(vec![gw_app::command::Command::Focus(
+            gw_plan::edit::Item::Bridge { part: 0, bridge: 0 },
+        )]);
+    h.run();
+    c.bench_function("frame/bridges_with_bridge_inspector", |b| {
+        b.iter(|| h.step())
+    });
     // An edit: one load change, re-evaluation of the whole plan, and the next frame.
     let mut h = harness(Tab::Results);
     let mut k = 0u32;
@@ -37,13 +49,14 @@ fn bench(c: &mut Criterion) {
         b.iter(|| {
             k += 1;
             let value = 6000.0 + f64::from(k % 100);
+            let mut project = h.state().doc.project.clone();
+            project.parts[0].load_cases[0]
+                .set_value(gw_mechanics::LoadComponent::VerticalForce, value);
             h.state_mut()
                 .doc
-                .apply_all(vec![gw_app::command::Command::SetLoad {
-                    part: 0,
-                    case: 0,
-                    component: gw_mechanics::LoadComponent::VerticalForce,
-                    value,
+                .apply_all(vec![gw_app::command::Command::Edit {
+                    project: Box::new(project),
+                    focus: None,
                 }]);
             h.step();
         })

@@ -237,6 +237,12 @@ impl BridgeModel {
         &self.bridge
     }
 
+    /// Sets the bridge factor the instrument converts with. Only the conversion from output to
+    /// displayed strain depends on it, so the prepared model stays valid.
+    pub fn set_bridge_factor(&mut self, bridge_factor: f64) {
+        self.bridge.instrument.bridge_factor = bridge_factor;
+    }
+
     /// Set excitation expressed as a voltage across an equal-arm bridge, V.
     pub fn nominal_excitation_v(&self) -> f64 {
         match self.bridge.excitation {

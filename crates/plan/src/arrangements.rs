@@ -45,9 +45,15 @@ pub fn bridge_factor_of(
         reference_temperature_c,
         quadrature: QuadratureOrder::default(),
     };
-    let Ok(model) = BridgeModel::new(&setup, bridge) else {
-        return 1.0;
-    };
+    BridgeModel::new(&setup, bridge)
+        .map(|model| bridge_factor_of_model(&model))
+        .unwrap_or(1.0)
+}
+
+/// [`bridge_factor_for`] from a prepared model: Σ±ε / ε(first active grid) per unit of the
+/// wanted load, 1 when the bridge does not respond.
+pub fn bridge_factor_of_model(model: &BridgeModel) -> f64 {
+    let bridge = model.bridge();
     let unit = LoadVector::unit(bridge.wanted);
     let signs = gw_bridge::model::ARM_SIGNS;
     let mut sum = 0.0;

@@ -13,7 +13,7 @@ use serde::Serialize;
 
 use crate::cautions::{Caution, cautions};
 use crate::document::{Part, Project};
-use crate::validate::{bridge_with_factor, expected_magnitudes, validate_part};
+use crate::validate::{bridge_from_plan, bridge_with_factor, expected_magnitudes, validate_part};
 
 /// How much to compute. Default: everything but Monte Carlo.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -332,9 +332,18 @@ fn evaluate_part(
             });
             continue;
         }
-        let result = bridge_with_factor(part, &gauges, plan, project.reference_temperature_c)
+        let result = bridge_from_plan(part, &gauges, plan)
             .map_err(|e| e.to_string())
             .and_then(|b| BridgeModel::new(&setup, &b).map_err(|e| e.to_string()))
+            .map(|mut model| {
+                // One model serves both: the factor only changes the displayed conversion.
+                let factor = match &plan.bridge_factor_override {
+                    Some(o) => o.value,
+                    None => crate::arrangements::bridge_factor_of_model(&model),
+                };
+                model.set_bridge_factor(factor);
+                model
+            })
             .and_then(|model| {
                 evaluate_bridge(project, part, &model, &expected, options, pi, bi, findings)
                     .map(|ev| (ev, model))

@@ -33,7 +33,11 @@ const METHOD: &[(&str, &str)] = &[
 ];
 
 /// Where the user guide is: the copy beside the sources of this build.
-const GUIDE_URL: &str = concat!("file://", env!("CARGO_MANIFEST_DIR"), "/../../docs/guide.md");
+const GUIDE_URL: &str = concat!(
+    "file://",
+    env!("CARGO_MANIFEST_DIR"),
+    "/../../docs/guide.md"
+);
 
 /// Help view state.
 #[derive(Default)]
@@ -46,13 +50,13 @@ impl HelpPanel {
         egui::ScrollArea::vertical().show(ui, |ui| {
             ui.heading("Getting started");
             ui.label(
-                "File → New asks for your first part. The plan tree on the left holds the parts, \
+                "New in the File menu asks for your first part. The plan tree on the left holds the parts, \
                  their load cases, gauges and bridges, and the project's gauge stock: select an \
                  item to edit every value of it in the inspector on the right; Add, Duplicate, \
-                 Rename (F2) and Delete sit above the tree, and Edit → Undo takes any change back.",
+                 Rename (F2) and Delete sit above the tree, and Undo in the Edit menu takes any change back.",
             );
             ui.horizontal_wrapped(|ui| {
-                ui.label("The user guide walks from File → New to the build sheet and lists each model's limits:");
+                ui.label("The user guide walks from a new project to the build sheet and lists each model's limits:");
                 ui.hyperlink_to("docs/guide.md", GUIDE_URL)
                     .on_hover_text("The user guide in the project's documentation folder");
             });

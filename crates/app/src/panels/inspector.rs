@@ -10,10 +10,19 @@ use crate::command::Command;
 use crate::state::DocumentState;
 use crate::units::Units;
 
-/// View state: the last rejected edit (item, field label, reason) and text being typed.
+/// View state: the last rejected edit (item, field label, reason) and the text being typed in
+/// a one-line field (item, field label, text) until it is committed.
 #[derive(Default)]
 pub struct InspectorPanel {
     rejected: Option<(Item, String, String)>,
+    draft: Option<(Item, String, String)>,
+}
+
+/// What the inspector remembers about the fields of the item it shows: the last rejected
+/// value (label, reason) and the text being typed (label, text).
+struct Marks<'a> {
+    rejected: Option<&'a (String, String)>,
+    draft: &'a mut Option<(String, String)>,
 }
 
 /// The result of drawing one group list: the edited copy of the item and the field label.
@@ -57,7 +66,13 @@ fn number_ui<T: Clone>(
     })
 }
 
-fn field_ui<T: Clone>(ui: &mut egui::Ui, f: &Field<T>, item: &T, units: Units) -> Option<T> {
+fn field_ui<T: Clone>(
+    ui: &mut egui::Ui,
+    f: &Field<T>,
+    item: &T,
+    units: Units,
+    draft: &mut Option<(String, String)>,
+) -> Option<T> {
     let label = ui.label(&f.label).on_hover_text(f.help).id;
     match &f.editor {
         Editor::Number { .. } => number_ui(ui, f, item, units, label),
@@ -74,32 +89,28 @@ fn field_ui<T: Clone>(ui: &mut egui::Ui, f: &Field<T>, item: &T, units: Units) -
             })
         }
         Editor::Text {
-            multiline,
+            multiline: true,
             get,
             set,
         } => {
             let mut v = get(item);
-            let edit = if *multiline {
-                egui::TextEdit::multiline(&mut v).desired_rows(3)
-            } else {
-                egui::TextEdit::singleline(&mut v)
-            };
             let r = ui
-                .add(edit.desired_width(200.0))
+                .add(
+                    egui::TextEdit::multiline(&mut v)
+                        .desired_rows(3)
+                        .desired_width(200.0),
+                )
                 .labelled_by(label)
                 .on_hover_text(f.help);
-            // Names are committed when the field loses focus, so a half-typed id is not tried.
-            let commit = if *multiline {
-                r.changed()
-            } else {
-                r.lost_focus() && v != get(item)
-            };
-            commit.then(|| {
+            r.changed().then(|| {
                 let mut copy = item.clone();
                 set(&mut copy, v);
                 copy
             })
         }
+        Editor::Text {
+            multiline: false, ..
+        } => line_ui(ui, f, item, label, draft),
         Editor::Flag { get, set } => {
             let mut v = get(item);
             let r = ui
@@ -147,12 +158,48 @@ fn field_ui<T: Clone>(ui: &mut egui::Ui, f: &Field<T>, item: &T, units: Units) -
     }
 }
 
+/// A one-line text field. Names are committed when the field loses focus, so a half-typed id
+/// is not tried; until then the typed text is kept in `draft`, since the field is drawn
+/// afresh from the project every frame.
+fn line_ui<T: Clone>(
+    ui: &mut egui::Ui,
+    f: &Field<T>,
+    item: &T,
+    label: egui::Id,
+    draft: &mut Option<(String, String)>,
+) -> Option<T> {
+    let Editor::Text { get, set, .. } = &f.editor else {
+        return None;
+    };
+    let stored = get(item);
+    let mut v = match draft.as_ref() {
+        Some((l, text)) if *l == f.label => text.clone(),
+        _ => stored.clone(),
+    };
+    let r = ui
+        .add(egui::TextEdit::singleline(&mut v).desired_width(200.0))
+        .labelled_by(label)
+        .on_hover_text(f.help);
+    if r.has_focus() {
+        *draft = Some((f.label.clone(), v));
+        return None;
+    }
+    if draft.as_ref().is_some_and(|(l, _)| *l == f.label) {
+        *draft = None;
+    }
+    (r.lost_focus() && v != stored).then(|| {
+        let mut copy = item.clone();
+        set(&mut copy, v);
+        copy
+    })
+}
+
 fn groups_ui<T: Clone>(
     ui: &mut egui::Ui,
     groups: &[Group<T>],
     item: &T,
     units: Units,
-    rejected: Option<&(String, String)>,
+    marks: &mut Marks<'_>,
 ) -> Edited<T> {
     let mut edited = None;
     for (gi, group) in groups.iter().enumerate() {
@@ -171,11 +218,11 @@ fn groups_ui<T: Clone>(
                             {
                                 continue;
                             }
-                            if let Some(copy) = field_ui(ui, f, item, units) {
+                            if let Some(copy) = field_ui(ui, f, item, units, marks.draft) {
                                 edited = Some((copy, f.label.clone()));
                             }
                             ui.end_row();
-                            if let Some((label, reason)) = rejected
+                            if let Some((label, reason)) = marks.rejected
                                 && *label == f.label
                             {
                                 ui.label("");
@@ -206,9 +253,17 @@ fn with_item(
 }
 
 impl InspectorPanel {
-    /// Draws the inspector for the selected item.
+    /// Draws the inspector for the selected item, in a region named "Inspector" so a screen
+    /// reader (or a test) can tell its fields from the views' controls of the same name.
     pub fn inspector_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
-        let Self { rejected } = self;
+        ui.scope_builder(
+            egui::UiBuilder::new().accessibility_label("Inspector"),
+            |ui| self.contents_ui(ui, doc, out),
+        );
+    }
+
+    fn contents_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
+        let Self { rejected, draft } = self;
         let item = doc.selection.inspected();
         let project = &doc.project;
         let units = doc.units;
@@ -216,6 +271,15 @@ impl InspectorPanel {
             .as_ref()
             .filter(|(i, _, _)| *i == item)
             .map(|(_, l, r)| (l.clone(), r.clone()));
+        // Text typed for another item is dropped with it.
+        let mut typing = draft
+            .take()
+            .filter(|(i, _, _)| *i == item)
+            .map(|(_, l, t)| (l, t));
+        let mut marks = Marks {
+            rejected: here.as_ref(),
+            draft: &mut typing,
+        };
         let title = match gw_plan::edit::item_name(project, item) {
             Some(name) => format!("{} — {name}", super::capitalise(item.kind_name())),
             None => "Nothing selected".to_owned(),
@@ -231,13 +295,13 @@ impl InspectorPanel {
                         &item_fields::project_groups(),
                         project,
                         units,
-                        here.as_ref(),
+                        &mut marks,
                     )
                     .map(|(p, l)| (Ok(p), l)),
                     Item::Stock(k) => {
                         let s = project.gauge_stock.get(k)?;
                         let (copy, label) =
-                            groups_ui(ui, &item_fields::stock_groups(), s, units, here.as_ref())?;
+                            groups_ui(ui, &item_fields::stock_groups(), s, units, &mut marks)?;
                         Some((
                             with_item(project, |p| {
                                 let new_name = copy.name.clone();
@@ -261,7 +325,7 @@ impl InspectorPanel {
                             &item_fields::part_groups(part),
                             part,
                             units,
-                            here.as_ref(),
+                            &mut marks,
                         )?;
                         Some((
                             with_item(project, |p| {
@@ -279,7 +343,7 @@ impl InspectorPanel {
                             &item_fields::load_case_groups(&pt.member),
                             c,
                             units,
-                            here.as_ref(),
+                            &mut marks,
                         )?;
                         Some((
                             with_item(project, |p| {
@@ -297,7 +361,7 @@ impl InspectorPanel {
                             &item_fields::gauge_groups(project, pt, g),
                             g,
                             units,
-                            here.as_ref(),
+                            &mut marks,
                         )?;
                         Some((
                             with_item(project, |p| {
@@ -323,7 +387,7 @@ impl InspectorPanel {
                             &item_fields::bridge_groups(project, pt, b),
                             b,
                             units,
-                            here.as_ref(),
+                            &mut marks,
                         )?;
                         Some((
                             with_item(project, |p| {
@@ -336,6 +400,7 @@ impl InspectorPanel {
                 }
             })
             .inner;
+        *draft = typing.map(|(l, t)| (item, l, t));
         if let Some((candidate, label)) = candidate {
             match candidate.and_then(|c| check(&c).map(|()| c)) {
                 Ok(candidate) => {

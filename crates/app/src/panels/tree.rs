@@ -125,8 +125,15 @@ fn mark_ui(ui: &mut egui::Ui, mark: Option<Mark>) {
 }
 
 impl TreePanel {
-    /// Draws the tree and the buttons for the selected item.
+    /// Draws the tree and the buttons for the selected item, in a region named "Plan tree".
     pub fn tree_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
+        ui.scope_builder(
+            egui::UiBuilder::new().accessibility_label("Plan tree"),
+            |ui| self.contents_ui(ui, doc, out),
+        );
+    }
+
+    fn contents_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
         let focus = doc.selection.inspected();
         self.toolbar_ui(ui, doc, focus, out);
         ui.separator();
@@ -154,7 +161,7 @@ impl TreePanel {
                     self.part_ui(ui, doc, i, part, out);
                 }
                 if doc.project.parts.is_empty() {
-                    ui.weak("No parts: use Add → Part.");
+                    ui.weak("No parts: use Add, then Part.");
                 }
             });
         self.confirm_ui(ui, doc, out);
@@ -408,7 +415,7 @@ impl TreePanel {
                 if matches!(item, Item::Gauge { .. }) {
                     ui.label("Bridge arms that use it get a completion resistor.");
                 }
-                ui.label("Edit → Undo (Ctrl+Z) brings it back.");
+                ui.label("Undo in the Edit menu (Ctrl+Z) brings it back.");
                 ui.horizontal(|ui| {
                     if ui.button("Delete it").clicked() {
                         let parent = match item {
