@@ -293,3 +293,20 @@ fn raising_the_excitation_shows_a_failing_self_heating_margin_and_clicking_it_se
     h.run();
     assert_eq!(h.state().doc.selection.bridge, Some(0));
 }
+
+#[test]
+fn a_name_committed_by_clicking_another_tree_row_leaves_that_row_selected() {
+    let mut h = harness();
+    h.get_by_role_and_label(Role::TextInput, "Name").focus();
+    h.run();
+    h.get_by_role_and_label(Role::TextInput, "Name")
+        .type_text(" (left)");
+    h.run();
+    pick_in_tree(&mut h, "Rated pull");
+    let doc = &h.state().doc;
+    assert_eq!(doc.project.parts[0].name, "Reaction arm (left)");
+    assert_eq!(
+        doc.selection.focus,
+        Some(gw_plan::edit::Item::LoadCase { part: 0, case: 0 })
+    );
+}

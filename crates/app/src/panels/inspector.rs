@@ -405,9 +405,11 @@ impl InspectorPanel {
             match candidate.and_then(|c| check(&c).map(|()| c)) {
                 Ok(candidate) => {
                     *rejected = None;
+                    // The item is already shown; a text field committed as the user clicks
+                    // elsewhere must not pull the selection back.
                     out.push(Command::Edit {
                         project: Box::new(candidate),
-                        focus: Some(item),
+                        focus: None,
                     });
                 }
                 Err(reason) => *rejected = Some((item, label, reason)),
