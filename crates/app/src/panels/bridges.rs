@@ -26,10 +26,10 @@ use super::item_fields::{arm_choices, arm_text};
 
 /// Draws the four arms as a diamond with what sits in each, the corners' roles and the wiring.
 fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
-    let (resp, painter) = ui.allocate_painter(vec2(460.0, 300.0), egui::Sense::hover());
+    let (resp, painter) = ui.allocate_painter(vec2(460.0, 320.0), egui::Sense::hover());
     let r = resp.rect;
     let c = r.center();
-    let top = pos2(c.x, r.top() + 30.0);
+    let top = pos2(c.x, r.top() + 50.0);
     let bottom = pos2(c.x, r.bottom() - 30.0);
     let left = pos2(r.left() + 70.0, c.y);
     let right = pos2(r.right() - 70.0, c.y);
@@ -73,20 +73,25 @@ fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
             text,
         );
     }
+    let at_gauge = plan
+        .arms
+        .clone()
+        .map(|a| !matches!(a, PlanArm::Completion(_)));
     painter.text(
         r.left_top(),
         egui::Align2::LEFT_TOP,
         format!(
             "{} wiring, {:.1} m leads",
-            plan.wiring.name(),
+            plan.wiring.trade_name(at_gauge),
             plan.lead.length_m
         ),
         egui::FontId::proportional(12.0),
         text,
     );
+    // The legend on its own line below, so a long wiring name never runs into it.
     painter.text(
-        r.right_top(),
-        egui::Align2::RIGHT_TOP,
+        r.left_top() + vec2(0.0, 16.0),
+        egui::Align2::LEFT_TOP,
         "amber: at the gauge   grey: at the instrument",
         egui::FontId::proportional(11.0),
         text,
@@ -149,9 +154,10 @@ impl BridgesPanel {
             });
             let choices = arm_choices(&doc.project, part);
             let placed = doc.project.placed_gauges(part);
-            egui::Grid::new("arms").num_columns(1).show(ui, |ui| {
+            egui::Grid::new("arms").num_columns(2).show(ui, |ui| {
                 for k in 0..4 {
-                    egui::ComboBox::from_label(format!("Arm {}", k + 1))
+                    let label = ui.label(format!("Arm {}", k + 1)).id;
+                    egui::ComboBox::from_id_salt(("bridge view arm", k))
                         .selected_text(arm_text(&plan.arms[k]))
                         .show_ui(ui, |ui| {
                             for choice in &choices {
@@ -161,6 +167,7 @@ impl BridgesPanel {
                             }
                         })
                         .response
+                        .labelled_by(label)
                         .on_hover_text("What sits in this arm: a grid, a dummy grid or a completion resistor");
                     ui.end_row();
                 }
@@ -189,7 +196,7 @@ impl BridgesPanel {
                     {
                         out.push(Command::ApplyCatalogue { part: sel.part, bridge: bi, entry: Box::new(e.clone()) });
                     }
-                    ui.label(&e.description);
+                    ui.add(egui::Label::new(&e.description).truncate()).on_hover_text(&e.description);
                     ui.end_row();
                 }
             });
@@ -244,7 +251,8 @@ impl BridgesPanel {
                                 {
                                     out.push(Command::ApplySuggestion { part: sel.part, bridge: bi, ranked: Box::new(r.clone()) });
                                 }
-                                ui.label(capitalise(&r.reason));
+                                let reason = capitalise(&r.reason);
+                                ui.add(egui::Label::new(&reason).truncate()).on_hover_text(&reason);
                                 ui.end_row();
                             }
                         });
