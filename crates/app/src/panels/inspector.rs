@@ -252,6 +252,110 @@ fn with_item(
     Ok(p)
 }
 
+/// What an edit in the inspector produced: the candidate project (or why the edit cannot
+/// apply) and the label of the field edited.
+type Candidate = Option<(Result<Project, String>, String)>;
+
+/// Draws `groups` for `current` and, on an edit, puts the edited copy into a copy of the
+/// project with `put`.
+fn edit_ui<T: Clone>(
+    ui: &mut egui::Ui,
+    project: &Project,
+    groups: &[Group<T>],
+    current: &T,
+    units: Units,
+    marks: &mut Marks<'_>,
+    put: impl FnOnce(&mut Project, T) -> Result<(), String>,
+) -> Candidate {
+    let (copy, label) = groups_ui(ui, groups, current, units, marks)?;
+    Some((with_item(project, |p| put(p, copy)), label))
+}
+
+/// The fields of the item the inspector shows.
+fn item_ui(
+    ui: &mut egui::Ui,
+    project: &Project,
+    item: Item,
+    units: Units,
+    marks: &mut Marks<'_>,
+) -> Candidate {
+    match item {
+        Item::Project => {
+            let groups = item_fields::project_groups();
+            edit_ui(ui, project, &groups, project, units, marks, |p, copy| {
+                *p = copy;
+                Ok(())
+            })
+        }
+        Item::Stock(k) => {
+            let s = project.gauge_stock.get(k)?;
+            edit_ui(
+                ui,
+                project,
+                &item_fields::stock_groups(),
+                s,
+                units,
+                marks,
+                |p, copy| {
+                    let new_name = copy.name.clone();
+                    p.gauge_stock[k] = gw_plan::StockGauge {
+                        name: s.name.clone(),
+                        ..copy
+                    };
+                    // A new name is carried into every gauge of this type.
+                    if new_name != s.name {
+                        gw_plan::edit::rename(p, item, &new_name)?;
+                    }
+                    Ok(())
+                },
+            )
+        }
+        Item::Part(i) => {
+            let part = project.parts.get(i)?;
+            let groups = item_fields::part_groups(part);
+            edit_ui(ui, project, &groups, part, units, marks, |p, copy| {
+                p.parts[i] = copy;
+                Ok(())
+            })
+        }
+        Item::LoadCase { part, case } => {
+            let pt = project.parts.get(part)?;
+            let c = pt.load_cases.get(case)?;
+            let groups = item_fields::load_case_groups(&pt.member);
+            edit_ui(ui, project, &groups, c, units, marks, |p, copy| {
+                p.parts[part].load_cases[case] = copy;
+                Ok(())
+            })
+        }
+        Item::Gauge { part, gauge } => {
+            let pt = project.parts.get(part)?;
+            let g = pt.gauges.get(gauge)?;
+            let groups = item_fields::gauge_groups(project, pt, g);
+            edit_ui(ui, project, &groups, g, units, marks, |p, copy| {
+                let new_id = copy.id.clone();
+                p.parts[part].gauges[gauge] = gw_plan::PlanGauge {
+                    id: g.id.clone(),
+                    ..copy
+                };
+                // A new id is carried into every arm that uses the gauge.
+                if new_id != g.id {
+                    gw_plan::edit::rename(p, item, &new_id)?;
+                }
+                Ok(())
+            })
+        }
+        Item::Bridge { part, bridge } => {
+            let pt = project.parts.get(part)?;
+            let b = pt.bridges.get(bridge)?;
+            let groups = item_fields::bridge_groups(project, pt, b);
+            edit_ui(ui, project, &groups, b, units, marks, |p, copy| {
+                p.parts[part].bridges[bridge] = copy;
+                Ok(())
+            })
+        }
+    }
+}
+
 impl InspectorPanel {
     /// Draws the inspector for the selected item, in a region named "Inspector" so a screen
     /// reader (or a test) can tell its fields from the views' controls of the same name.
@@ -286,119 +390,9 @@ impl InspectorPanel {
         };
         ui.heading(title);
         ui.separator();
-        let candidate: Option<(Result<Project, String>, String)> = egui::ScrollArea::vertical()
+        let candidate = egui::ScrollArea::vertical()
             .auto_shrink([false, false])
-            .show(ui, |ui| {
-                match item {
-                    Item::Project => groups_ui(
-                        ui,
-                        &item_fields::project_groups(),
-                        project,
-                        units,
-                        &mut marks,
-                    )
-                    .map(|(p, l)| (Ok(p), l)),
-                    Item::Stock(k) => {
-                        let s = project.gauge_stock.get(k)?;
-                        let (copy, label) =
-                            groups_ui(ui, &item_fields::stock_groups(), s, units, &mut marks)?;
-                        Some((
-                            with_item(project, |p| {
-                                let new_name = copy.name.clone();
-                                p.gauge_stock[k] = gw_plan::StockGauge {
-                                    name: s.name.clone(),
-                                    ..copy
-                                };
-                                // A new name is carried into every gauge of this type.
-                                if new_name != s.name {
-                                    gw_plan::edit::rename(p, item, &new_name)?;
-                                }
-                                Ok(())
-                            }),
-                            label,
-                        ))
-                    }
-                    Item::Part(i) => {
-                        let part = project.parts.get(i)?;
-                        let (copy, label) = groups_ui(
-                            ui,
-                            &item_fields::part_groups(part),
-                            part,
-                            units,
-                            &mut marks,
-                        )?;
-                        Some((
-                            with_item(project, |p| {
-                                p.parts[i] = copy;
-                                Ok(())
-                            }),
-                            label,
-                        ))
-                    }
-                    Item::LoadCase { part, case } => {
-                        let pt = project.parts.get(part)?;
-                        let c = pt.load_cases.get(case)?;
-                        let (copy, label) = groups_ui(
-                            ui,
-                            &item_fields::load_case_groups(&pt.member),
-                            c,
-                            units,
-                            &mut marks,
-                        )?;
-                        Some((
-                            with_item(project, |p| {
-                                p.parts[part].load_cases[case] = copy;
-                                Ok(())
-                            }),
-                            label,
-                        ))
-                    }
-                    Item::Gauge { part, gauge } => {
-                        let pt = project.parts.get(part)?;
-                        let g = pt.gauges.get(gauge)?;
-                        let (copy, label) = groups_ui(
-                            ui,
-                            &item_fields::gauge_groups(project, pt, g),
-                            g,
-                            units,
-                            &mut marks,
-                        )?;
-                        Some((
-                            with_item(project, |p| {
-                                let new_id = copy.id.clone();
-                                p.parts[part].gauges[gauge] = gw_plan::PlanGauge {
-                                    id: g.id.clone(),
-                                    ..copy
-                                };
-                                // A new id is carried into every arm that uses the gauge.
-                                if new_id != g.id {
-                                    gw_plan::edit::rename(p, item, &new_id)?;
-                                }
-                                Ok(())
-                            }),
-                            label,
-                        ))
-                    }
-                    Item::Bridge { part, bridge } => {
-                        let pt = project.parts.get(part)?;
-                        let b = pt.bridges.get(bridge)?;
-                        let (copy, label) = groups_ui(
-                            ui,
-                            &item_fields::bridge_groups(project, pt, b),
-                            b,
-                            units,
-                            &mut marks,
-                        )?;
-                        Some((
-                            with_item(project, |p| {
-                                p.parts[part].bridges[bridge] = copy;
-                                Ok(())
-                            }),
-                            label,
-                        ))
-                    }
-                }
-            })
+            .show(ui, |ui| item_ui(ui, project, item, units, &mut marks))
             .inner;
         *draft = typing.map(|(l, t)| (item, l, t));
         if let Some((candidate, label)) = candidate {
