@@ -581,7 +581,7 @@ fn length_row(ui: &mut egui::Ui, units: Units, d: Dimension<'_>) {
     let q = Quantity::Length;
     let label_id = ui.label(d.label).id;
     let mut shown = units.to_display(q, *d.value_m);
-    let speed = (shown.abs() * 0.005).max(0.001);
+    let speed = (shown.abs() * 0.005).max(0.01);
     let changed = ui
         .add(
             egui::DragValue::new(&mut shown)
@@ -744,7 +744,7 @@ fn draw_member(sk: &Sketch, member: &Member, units: Units, area: Rect) {
             );
         }
         Member::ThinSphere(s) => {
-            let views_area = area.with_max_y(views.caption.top());
+            let views_area = area.with_max_y(views.caption.top() - 4.0);
             let inner_m = s.outer_diameter_m - 2.0 * s.wall_m;
             draw_rings(sk, views_area, s.outer_diameter_m, inner_m);
             sk.caption(
@@ -811,8 +811,7 @@ fn draw_beam(sk: &Sketch, beam: &Beam, units: Units, views: &Views) {
     }
     for point in &beam.load_points {
         let x = body.left() + point.position_m as f32 * scale;
-        sk.painter
-            .arrow(pos2(x, body.top() - 20.0), vec2(0.0, 18.0), sk.ink);
+        sk.arrow(pos2(x, body.top() - 20.0), pos2(x, body.top() - 1.0));
     }
     draw_section(sk, &beam.section, views.end.shrink(4.0));
     let text = format!("length {}", length_text(units, beam.length_m));
@@ -997,8 +996,18 @@ impl Sketch {
             } else {
                 (end, start)
             };
-            self.painter.arrow(from, to - from, self.ink);
+            self.arrow(from, to);
         }
+    }
+
+    /// An arrow from `from` to the head at `to`, with a head of fixed size.
+    fn arrow(&self, from: Pos2, to: Pos2) {
+        let stroke = Stroke::new(1.5, self.ink.color);
+        let back = (from - to).normalized() * 7.0;
+        let side = back.rot90() * 0.5;
+        self.painter.line_segment([from, to], stroke);
+        self.painter.line_segment([to, to + back + side], stroke);
+        self.painter.line_segment([to, to + back - side], stroke);
     }
 
     fn caption(&self, rect: Rect, text: &str) {
