@@ -317,13 +317,9 @@ impl GaugewrightApp {
         if save {
             self.save();
         }
-        if delete
-            && let Some(gw_plan::edit::Item::Gauge { gauge: g, .. }) = self.doc.selection.focus
-        {
-            out.push(Command::DeleteGauge {
-                part: self.doc.selection.part,
-                gauge: g,
-            });
+        if delete && let Some(item) = self.doc.selection.focus {
+            // The same confirmation as the tree's Delete button; undo brings it back.
+            self.tree.ask_delete(item);
         }
     }
 
@@ -494,7 +490,11 @@ impl GaugewrightApp {
                         .add(
                             egui::TextEdit::singleline(&mut text)
                                 .desired_width(420.0)
-                                .hint_text("/path/to/project.ron"),
+                                .hint_text(if sheet {
+                                    "/path/to/build_sheet.pdf"
+                                } else {
+                                    "/path/to/project.ron"
+                                }),
                         )
                         .labelled_by(label.id);
                     self.modal = Some(if sheet {

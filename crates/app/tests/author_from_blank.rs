@@ -223,6 +223,7 @@ fn fill_leads_excitation_and_instrument(h: &mut App) {
     set_number(h, "Bandwidth", "100");
     set_number(h, "Excitation accuracy", "0.05");
     set_number(h, "Gain accuracy", "0.1");
+    set_flag(h, "Amplifier input resistance stated", true);
     set_number(h, "Amplifier input", "10");
     choose(h, "Instrument temperature", "stays at the reference");
 }

@@ -310,3 +310,55 @@ fn a_name_committed_by_clicking_another_tree_row_leaves_that_row_selected() {
         Some(gw_plan::edit::Item::LoadCase { part: 0, case: 0 })
     );
 }
+
+#[test]
+fn a_typed_bridge_factor_can_be_set_and_asks_for_its_reason() {
+    let mut h = harness();
+    pick_in_tree(&mut h, "Bridge Arm bending");
+    h.get_by_role_and_label(Role::CheckBox, "Type the bridge factor")
+        .click();
+    h.run();
+    let plan = &h.state().doc.project.parts[0].bridges[0];
+    assert!(plan.bridge_factor_override.is_some(), "ticking applies");
+    h.get_by_label_contains("typed without a reason");
+    set_value(&mut h, "Bridge factor", "3.9");
+    h.get_by_role_and_label(Role::TextInput, "Reason").focus();
+    h.run();
+    h.get_by_role_and_label(Role::TextInput, "Reason")
+        .type_text("checked by a dead-weight calibration");
+    h.run();
+    h.key_press(egui::Key::Enter);
+    h.run();
+    let o = h.state().doc.project.parts[0].bridges[0]
+        .bridge_factor_override
+        .clone()
+        .unwrap();
+    assert!((o.value - 3.9).abs() < 1e-12);
+    assert_eq!(o.reason, "checked by a dead-weight calibration");
+    assert!(
+        h.query_by_label_contains("typed without a reason")
+            .is_none()
+    );
+    let ev = &h.state().doc.evaluation.parts[0].bridges[0];
+    assert!((ev.bridge_factor - 3.9).abs() < 1e-12);
+}
+
+#[test]
+fn the_delete_key_asks_before_deleting_a_gauge() {
+    let mut h = harness();
+    pick_in_tree(&mut h, "Gauge A1 (single grid)");
+    let before = h.state().doc.project.clone();
+    h.key_press(egui::Key::Delete);
+    h.run();
+    assert_eq!(
+        h.state().doc.project,
+        before,
+        "nothing is deleted before the answer"
+    );
+    h.get_by_label("Delete it").click();
+    h.run();
+    assert_eq!(
+        h.state().doc.project.parts[0].gauges.len(),
+        before.parts[0].gauges.len() - 1
+    );
+}

@@ -321,6 +321,19 @@ fn evaluate_part(
             part: pi,
             bridge: bi,
         };
+        if let Some(o) = &plan.bridge_factor_override
+            && o.reason.trim().is_empty()
+        {
+            findings.push(Finding {
+                severity: Severity::Warn,
+                message: format!(
+                    "part \"{}\", bridge \"{}\": the bridge factor {} is typed without a reason; \
+                     say why the computed one is not used",
+                    part.name, plan.name, o.value
+                ),
+                target,
+            });
+        }
         if !plan.is_wired() {
             findings.push(Finding {
                 severity: Severity::Warn,

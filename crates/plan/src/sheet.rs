@@ -481,7 +481,11 @@ fn wiring_diagram(
     );
     let x = MARGIN + 330.0;
     let lines = [
-        format!("Wiring: {}; sense leads {}", be.wiring, colours.sense),
+        if be.wiring.contains("remote sense") {
+            format!("Wiring: {}; sense leads {}", be.wiring, colours.sense)
+        } else {
+            format!("Wiring: {}", be.wiring)
+        },
         format!(
             "Shield: {} (one end only, at the instrument)",
             colours.shield
@@ -628,7 +632,11 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
                     false,
                     &format!(
                         "The bridge factor is set by hand, not computed from the arrangement: {}",
-                        o.reason
+                        if o.reason.trim().is_empty() {
+                            "no reason given"
+                        } else {
+                            o.reason.as_str()
+                        }
                     ),
                 );
             }

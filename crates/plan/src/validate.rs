@@ -177,12 +177,8 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
                     ),
                 ));
             }
-            if o.reason.trim().is_empty() {
-                return Err(invalid(
-                    at,
-                    "a typed bridge factor needs its reason; say why the computed one is not used",
-                ));
-            }
+            // An empty reason is allowed while the engineer types it; the evaluation asks
+            // for it as a finding.
         }
         if !carried.contains(&plan.wanted) {
             return Err(invalid(

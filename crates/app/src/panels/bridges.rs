@@ -114,7 +114,7 @@ impl BridgesPanel {
                         out.push(Command::Select(Selection { bridge: Some(i), ..sel }));
                     }
                 }
-                if ui.button("Add bridge").on_hover_text("Add a bridge copied from the first one").clicked() {
+                if ui.button("Add bridge").on_hover_text("Add a new bridge to this part, not yet wired").clicked() {
                     out.push(Command::AddBridge { part: sel.part });
                 }
             });
@@ -179,9 +179,13 @@ impl BridgesPanel {
                 .and_then(|g| placed.get(g))
                 .map(|g| g.position.x_m)
                 .unwrap_or_else(|| part.member.faces().first().map(|f| (f.x_range_m.0 + f.x_range_m.1) / 4.0).unwrap_or(0.0));
-            let spec = placed
+            // The stock type of the first gauge (without its lot's values): catalogue gauges
+            // are new gauges of that type.
+            let spec = part
+                .gauges
                 .first()
-                .map(|g| g.spec.clone())
+                .and_then(|g| doc.project.stock_entry(&g.stock))
+                .map(|s| s.spec.clone())
                 .unwrap_or_else(|| gw_plan::document::default_gauge_spec(gw_bridge::GaugePattern::SingleGrid));
             let entries: Vec<CatalogueEntry> = catalogue(&part.member, plan.wanted, station, &spec);
             if entries.is_empty() {
@@ -196,7 +200,8 @@ impl BridgesPanel {
                     {
                         out.push(Command::ApplyCatalogue { part: sel.part, bridge: bi, entry: Box::new(e.clone()) });
                     }
-                    ui.add(egui::Label::new(&e.description).truncate()).on_hover_text(&e.description);
+                    // A shortened label shows its whole text on hover by itself.
+                    ui.add(egui::Label::new(&e.description).truncate());
                     ui.end_row();
                 }
             });
@@ -252,7 +257,7 @@ impl BridgesPanel {
                                     out.push(Command::ApplySuggestion { part: sel.part, bridge: bi, ranked: Box::new(r.clone()) });
                                 }
                                 let reason = capitalise(&r.reason);
-                                ui.add(egui::Label::new(&reason).truncate()).on_hover_text(&reason);
+                                ui.add(egui::Label::new(&reason).truncate());
                                 ui.end_row();
                             }
                         });

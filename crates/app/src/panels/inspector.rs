@@ -51,6 +51,8 @@ fn number_ui<T: Clone>(
             egui::DragValue::new(&mut shown)
                 .speed(speed)
                 .max_decimals(6)
+                // A typed number is one edit (one undo step), applied on Enter or leaving.
+                .update_while_editing(false)
                 .suffix(if suffix.is_empty() {
                     String::new()
                 } else {
@@ -79,7 +81,11 @@ fn field_ui<T: Clone>(
         Editor::Whole { range, get, set } => {
             let mut v = get(item);
             let r = ui
-                .add(egui::DragValue::new(&mut v).range(range.0..=range.1))
+                .add(
+                    egui::DragValue::new(&mut v)
+                        .range(range.0..=range.1)
+                        .update_while_editing(false),
+                )
                 .labelled_by(label)
                 .on_hover_text(f.help);
             r.changed().then(|| {

@@ -1713,13 +1713,21 @@ fn signal_fields() -> Vec<Field<BridgePlan>> {
             |p: &BridgePlan| p.signal.gain_accuracy,
             |p, v| p.signal.gain_accuracy = v,
         ),
+        flag(
+            "amplifier_input_ohm.(present)",
+            "Amplifier input resistance stated",
+            "Give the amplifier's differential input resistance; without it the input is taken as ideal (infinite)",
+            |p: &BridgePlan| p.amplifier_input_ohm.is_some(),
+            |p, on| p.amplifier_input_ohm = on.then_some(10e6),
+        ),
+        // Shown only while stated: an absent value reads NaN and the inspector hides it.
         num(
             "amplifier_input_ohm",
             "Amplifier input",
             Unit::Scaled(1e-6, "MΩ"),
-            "Differential input resistance of the amplifier (0 or blank: ideal)",
-            |p: &BridgePlan| p.amplifier_input_ohm.unwrap_or(0.0),
-            |p, v| p.amplifier_input_ohm = (v > 0.0).then_some(v),
+            "Differential input resistance of the amplifier",
+            |p: &BridgePlan| p.amplifier_input_ohm.unwrap_or(f64::NAN),
+            |p, v| p.amplifier_input_ohm = Some(v),
         ),
         pick(
             "instrument_temperature",

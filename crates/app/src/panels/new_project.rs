@@ -586,6 +586,7 @@ fn length_row(ui: &mut egui::Ui, units: Units, d: Dimension<'_>) {
         .add(
             egui::DragValue::new(&mut shown)
                 .speed(speed)
+                .update_while_editing(false)
                 .range(0.0..=f64::MAX)
                 .max_decimals(4)
                 .suffix(format!(" {}", units.label(q))),

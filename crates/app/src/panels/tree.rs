@@ -126,6 +126,13 @@ fn mark_ui(ui: &mut egui::Ui, mark: Option<Mark>) {
 
 impl TreePanel {
     /// Draws the tree and the buttons for the selected item, in a region named "Plan tree".
+    /// Asks to delete `item` (the Delete key): the same confirmation as the Delete button.
+    pub fn ask_delete(&mut self, item: Item) {
+        if !matches!(item, Item::Project) {
+            self.confirm_delete = Some(item);
+        }
+    }
+
     pub fn tree_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
         ui.scope_builder(
             egui::UiBuilder::new().accessibility_label("Plan tree"),
