@@ -24,15 +24,24 @@ pub struct BridgesPanel {
 
 use super::item_fields::{arm_choices, arm_text};
 
+/// What sits in an arm, short enough for the schematic.
+fn short_arm_text(arm: &PlanArm) -> String {
+    match arm {
+        PlanArm::Completion(c) => format!("{} Ω resistor", c.ohm),
+        other => arm_text(other),
+    }
+}
+
 /// Draws the four arms as a diamond with what sits in each, the corners' roles and the wiring.
 fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
-    let (resp, painter) = ui.allocate_painter(vec2(460.0, 320.0), egui::Sense::hover());
+    let width = ui.available_width().clamp(460.0, 620.0);
+    let (resp, painter) = ui.allocate_painter(vec2(width, 320.0), egui::Sense::hover());
     let r = resp.rect;
     let c = r.center();
     let top = pos2(c.x, r.top() + 50.0);
     let bottom = pos2(c.x, r.bottom() - 30.0);
-    let left = pos2(r.left() + 70.0, c.y);
-    let right = pos2(r.right() - 70.0, c.y);
+    let left = pos2(c.x - 140.0, c.y);
+    let right = pos2(c.x + 140.0, c.y);
     let text = ui.visuals().text_color();
     let gauge_site = Color32::from_rgb(200, 120, 40);
     let instrument = Color32::from_rgb(120, 130, 140);
@@ -43,11 +52,25 @@ fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
         let colour = if at_gauge { gauge_site } else { instrument };
         painter.line_segment([*a, *b], Stroke::new(3.0, colour));
         let mid = a.lerp(*b, 0.5);
-        let outward = (mid - c).normalized() * 28.0;
+        // Each label starts beside its arm's midpoint and runs away from the diamond, so it
+        // never crosses an arm.
+        let left_side = mid.x < c.x;
+        let above = mid.y < c.y;
+        let at = mid
+            + vec2(
+                if left_side { -8.0 } else { 8.0 },
+                if above { -8.0 } else { 8.0 },
+            );
+        let align = match (left_side, above) {
+            (true, true) => egui::Align2::RIGHT_BOTTOM,
+            (true, false) => egui::Align2::RIGHT_TOP,
+            (false, true) => egui::Align2::LEFT_BOTTOM,
+            (false, false) => egui::Align2::LEFT_TOP,
+        };
         painter.text(
-            mid + outward,
-            egui::Align2::CENTER_CENTER,
-            format!("arm {}: {}", k + 1, arm_text(&plan.arms[k])),
+            at,
+            align,
+            format!("arm {}: {}", k + 1, short_arm_text(&plan.arms[k])),
             egui::FontId::proportional(12.0),
             text,
         );
