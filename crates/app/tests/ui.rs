@@ -362,3 +362,16 @@ fn the_delete_key_asks_before_deleting_a_gauge() {
         before.parts[0].gauges.len() - 1
     );
 }
+
+#[test]
+fn selecting_a_gauge_in_the_tree_shows_its_face_in_the_layout() {
+    let mut h = harness();
+    // The layout opens on the top face: A2 (bottom face) is not drawn.
+    assert!(
+        h.query_by_role_and_label(Role::Button, "Gauge A2")
+            .is_none()
+    );
+    pick_in_tree(&mut h, "Gauge A2 (single grid)");
+    h.get_by_role_and_label(Role::Button, "Gauge A2");
+    h.get_by_label_contains("A2 on the bottom face");
+}

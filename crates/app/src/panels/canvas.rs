@@ -63,6 +63,8 @@ pub struct CanvasPanel {
     pattern: GaugePattern,
     texture: Option<MapTexture>,
     drag: Option<(usize, SurfacePoint)>,
+    /// The gauge selected when the face was last chosen: selecting another gauge shows its face.
+    followed: Option<(usize, usize)>,
 }
 
 impl Default for CanvasPanel {
@@ -74,6 +76,7 @@ impl Default for CanvasPanel {
             pattern: GaugePattern::SingleGrid,
             texture: None,
             drag: None,
+            followed: None,
         }
     }
 }
@@ -114,12 +117,21 @@ impl CanvasPanel {
             pattern,
             texture,
             drag,
+            followed,
         } = self;
         let sel = doc.selection;
         let Some(part) = doc.project.parts.get(sel.part) else {
             return;
         };
         let placed = doc.project.placed_gauges(part);
+        // A gauge selected anywhere (tree, finding, canvas) brings its face into view.
+        let selected = sel.gauge.map(|g| (sel.part, g));
+        if selected != *followed {
+            *followed = selected;
+            if let Some(g) = sel.gauge.and_then(|g| placed.get(g)) {
+                *face = Some(g.position.face);
+            }
+        }
         let member = &part.member;
         let faces = member.faces();
         let current = face
@@ -128,7 +140,8 @@ impl CanvasPanel {
         *face = Some(current);
         let units = doc.units;
         ui.horizontal_wrapped(|ui| {
-            egui::ComboBox::from_label("Face")
+            let label = ui.label("Face").id;
+            egui::ComboBox::from_id_salt("canvas face")
                 .selected_text(current.name())
                 .show_ui(ui, |ui| {
                     for f in &faces {
@@ -136,8 +149,10 @@ impl CanvasPanel {
                     }
                 })
                 .response
+                .labelled_by(label)
                 .on_hover_text("Which face of the part to show; round faces are unrolled");
-            egui::ComboBox::from_label("Map")
+            let label = ui.label("Map").id;
+            egui::ComboBox::from_id_salt("canvas map")
                 .selected_text(quantity.name())
                 .show_ui(ui, |ui| {
                     for q in MapQuantity::ALL {
@@ -145,14 +160,14 @@ impl CanvasPanel {
                     }
                 })
                 .response
+                .labelled_by(label)
                 .on_hover_text("Surface quantity shown as colour, under the selected load case");
-            ui.add(
-                egui::Slider::new(zoom, 0.5..=40.0)
-                    .logarithmic(true)
-                    .text("Zoom"),
-            )
-            .on_hover_text("Zoom the drawing");
-            egui::ComboBox::from_label("Pattern")
+            let label = ui.label("Zoom").id;
+            ui.add(egui::Slider::new(zoom, 0.5..=40.0).logarithmic(true))
+                .labelled_by(label)
+                .on_hover_text("Zoom the drawing");
+            let label = ui.label("Pattern").id;
+            egui::ComboBox::from_id_salt("canvas pattern")
                 .selected_text(pattern.name())
                 .show_ui(ui, |ui| {
                     for p in GaugePattern::ALL {
@@ -160,6 +175,7 @@ impl CanvasPanel {
                     }
                 })
                 .response
+                .labelled_by(label)
                 .on_hover_text("Grid pattern of the next gauge added");
             if ui
                 .button("Add gauge")
