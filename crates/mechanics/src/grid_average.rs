@@ -82,6 +82,21 @@ pub fn gauss_legendre(n: usize) -> (Vec<f64>, Vec<f64>) {
     (nodes, weights)
 }
 
+/// Orders up to this one keep their nodes and weights after the first use.
+const CACHED_ORDERS: usize = 16;
+
+/// The Gauss–Legendre rule of order `n`, computed once per order (grids are averaged for every
+/// reading of every evaluation).
+fn rule(n: usize) -> std::borrow::Cow<'static, (Vec<f64>, Vec<f64>)> {
+    static RULES: std::sync::OnceLock<Vec<(Vec<f64>, Vec<f64>)>> = std::sync::OnceLock::new();
+    let n = n.max(1);
+    if n > CACHED_ORDERS {
+        return std::borrow::Cow::Owned(gauss_legendre(n));
+    }
+    let rules = RULES.get_or_init(|| (1..=CACHED_ORDERS).map(gauss_legendre).collect());
+    std::borrow::Cow::Borrowed(&rules[n - 1])
+}
+
 impl GridFootprint {
     /// Checks the footprint's numbers.
     pub fn validate(&self) -> Result<()> {
@@ -143,11 +158,12 @@ pub fn grid_average_state(
             ),
         });
     };
-    let (ua, wa) = gauss_legendre(order.along);
-    let (va, wb) = gauss_legendre(order.across);
+    let along = rule(order.along);
+    let across = rule(order.across);
+    let ((ua, wa), (va, wb)) = (along.as_ref(), across.as_ref());
     let mut sum = SurfaceState::default();
-    for (u, wu) in ua.iter().zip(&wa) {
-        for (v, wv) in va.iter().zip(&wb) {
+    for (u, wu) in ua.iter().zip(wa) {
+        for (v, wv) in va.iter().zip(wb) {
             let p = grid.point(u * grid.length_m / 2.0, v * grid.width_m / 2.0);
             let located = extent
                 .locate(&p)

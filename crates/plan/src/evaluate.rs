@@ -306,6 +306,7 @@ fn evaluate_part(
     }
     let gauges = project.placed_gauges(part);
     curve_range_findings(project, pi, part, &gauges, findings);
+    crate::placement::placement_findings(pi, part, &gauges, options.quadrature, findings);
     let setup = Setup {
         member,
         gauges: &gauges,

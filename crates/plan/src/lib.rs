@@ -21,6 +21,7 @@ pub mod edit;
 pub mod evaluate;
 pub mod io;
 pub mod migrate;
+pub mod placement;
 pub mod sheet;
 pub mod validate;
 pub mod wiring;

@@ -72,7 +72,13 @@ fn mark_of(doc: &DocumentState, item: Item) -> Option<Mark> {
                 doc,
                 |t| matches!(t, Target::Gauge { part, gauge } if *part == p && *gauge == g),
             );
-            m.or((!gauge_wired(&doc.project, p, g)).then_some(Mark::NotWired))
+            // A failing margin shows first; then the hollow ring of a gauge in no bridge.
+            if m == Some(Mark::Fails) {
+                return m;
+            }
+            (!gauge_wired(&doc.project, p, g))
+                .then_some(Mark::NotWired)
+                .or(m)
         }
         Item::Bridge { part: p, bridge: b } => {
             let wired = doc
