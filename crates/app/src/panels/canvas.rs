@@ -166,6 +166,8 @@ impl CanvasPanel {
             ui.add(egui::Slider::new(zoom, 0.5..=40.0).logarithmic(true))
                 .labelled_by(label)
                 .on_hover_text("Zoom the drawing");
+            // The gauge tools on their own row, so no label is parted from its control.
+            ui.end_row();
             let label = ui.label("Pattern").id;
             egui::ComboBox::from_id_salt("canvas pattern")
                 .selected_text(pattern.name())
