@@ -28,6 +28,13 @@ struct Marks<'a> {
 /// The result of drawing one group list: the edited copy of the item and the field label.
 type Edited<T> = Option<(T, String)>;
 
+/// A copy of `item` with one field set.
+fn edited<T: Clone, V>(item: &T, set: &dyn Fn(&mut T, V), value: V) -> T {
+    let mut copy = item.clone();
+    set(&mut copy, value);
+    copy
+}
+
 fn number_ui<T: Clone>(
     ui: &mut egui::Ui,
     f: &Field<T>,
@@ -61,11 +68,7 @@ fn number_ui<T: Clone>(
         )
         .labelled_by(label)
         .on_hover_text(f.help);
-    (r.changed() && shown.is_finite()).then(|| {
-        let mut copy = item.clone();
-        set(&mut copy, unit.store(units, shown));
-        copy
-    })
+    (r.changed() && shown.is_finite()).then(|| edited(item, set, unit.store(units, shown)))
 }
 
 fn field_ui<T: Clone>(
@@ -88,11 +91,7 @@ fn field_ui<T: Clone>(
                 )
                 .labelled_by(label)
                 .on_hover_text(f.help);
-            r.changed().then(|| {
-                let mut copy = item.clone();
-                set(&mut copy, v);
-                copy
-            })
+            r.changed().then(|| edited(item, set, v))
         }
         Editor::Text {
             multiline: true,
@@ -108,11 +107,7 @@ fn field_ui<T: Clone>(
                 )
                 .labelled_by(label)
                 .on_hover_text(f.help);
-            r.changed().then(|| {
-                let mut copy = item.clone();
-                set(&mut copy, v);
-                copy
-            })
+            r.changed().then(|| edited(item, set, v))
         }
         Editor::Text {
             multiline: false, ..
@@ -123,11 +118,7 @@ fn field_ui<T: Clone>(
                 .checkbox(&mut v, "")
                 .labelled_by(label)
                 .on_hover_text(f.help);
-            r.changed().then(|| {
-                let mut copy = item.clone();
-                set(&mut copy, v);
-                copy
-            })
+            r.changed().then(|| edited(item, set, v))
         }
         Editor::Choice { options, get, set } => {
             let current = get(item);
@@ -151,11 +142,7 @@ fn field_ui<T: Clone>(
                 .response
                 .labelled_by(label)
                 .on_hover_text(f.help);
-            picked.map(|i| {
-                let mut copy = item.clone();
-                set(&mut copy, i);
-                copy
-            })
+            picked.map(|i| edited(item, set, i))
         }
         Editor::Info(text) => {
             ui.label(text).labelled_by(label).on_hover_text(f.help);
@@ -193,11 +180,7 @@ fn line_ui<T: Clone>(
     if draft.as_ref().is_some_and(|(l, _)| *l == f.label) {
         *draft = None;
     }
-    (r.lost_focus() && v != stored).then(|| {
-        let mut copy = item.clone();
-        set(&mut copy, v);
-        copy
-    })
+    (r.lost_focus() && v != stored).then(|| edited(item, set, v))
 }
 
 fn groups_ui<T: Clone>(
