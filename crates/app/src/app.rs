@@ -323,62 +323,75 @@ impl GaugewrightApp {
         }
     }
 
+    /// The File menu: new, open, demo, recent, save, export.
+    fn file_menu_ui(&mut self, ui: &mut egui::Ui) {
+        if ui
+            .button("New")
+            .on_hover_text("Start a new project (Ctrl+N)")
+            .clicked()
+        {
+            self.guarded(Pending::New);
+        }
+        if ui
+            .button("Open…")
+            .on_hover_text("Open a project file (Ctrl+O)")
+            .clicked()
+        {
+            self.guarded(Pending::PickOpen);
+        }
+        if ui
+            .button("Open the demo")
+            .on_hover_text("Open the bundled demo project")
+            .clicked()
+        {
+            self.guarded(Pending::OpenDemo);
+        }
+        ui.menu_button("Recent", |ui| {
+            ui.label("Projects opened or saved lately:");
+            let recent = self.settings.recent_files.clone();
+            if recent.is_empty() {
+                ui.label("No recent files");
+            }
+            for p in recent {
+                if ui
+                    .button(p.display().to_string())
+                    .on_hover_text("Open this project")
+                    .clicked()
+                {
+                    self.guarded(Pending::Open(p));
+                }
+            }
+        });
+        ui.separator();
+        if ui
+            .button("Save")
+            .on_hover_text("Save (Ctrl+S); the previous version is kept as .bak")
+            .clicked()
+        {
+            self.save();
+        }
+        if ui
+            .button("Save as…")
+            .on_hover_text("Save the project to a new file")
+            .clicked()
+        {
+            self.pick_save();
+        }
+        ui.separator();
+        if ui
+            .button("Export build sheet…")
+            .on_hover_text(
+                "Write the technician's build sheet (PDF) and the channel list (CSV beside it)",
+            )
+            .clicked()
+        {
+            self.pick_sheet();
+        }
+    }
+
     fn menu_ui(&mut self, ui: &mut egui::Ui, out: &mut Vec<Command>) {
         egui::MenuBar::new().ui(ui, |ui| {
-            ui.menu_button("File", |ui| {
-                if ui
-                    .button("New")
-                    .on_hover_text("Start a new project (Ctrl+N)")
-                    .clicked()
-                {
-                    self.guarded(Pending::New);
-                }
-                if ui
-                    .button("Open…")
-                    .on_hover_text("Open a project file (Ctrl+O)")
-                    .clicked()
-                {
-                    self.guarded(Pending::PickOpen);
-                }
-                if ui
-                    .button("Open the demo")
-                    .on_hover_text("Open the bundled demo project")
-                    .clicked()
-                {
-                    self.guarded(Pending::OpenDemo);
-                }
-                ui.menu_button("Recent", |ui| {
-                    ui.label("Projects opened or saved lately:");
-                    let recent = self.settings.recent_files.clone();
-                    if recent.is_empty() {
-                        ui.label("No recent files");
-                    }
-                    for p in recent {
-                        if ui.button(p.display().to_string()).on_hover_text("Open this project").clicked() {
-                            self.guarded(Pending::Open(p));
-                        }
-                    }
-                });
-                ui.separator();
-                if ui
-                    .button("Save")
-                    .on_hover_text("Save (Ctrl+S); the previous version is kept as .bak")
-                    .clicked()
-                {
-                    self.save();
-                }
-                if ui.button("Save as…").on_hover_text("Save the project to a new file").clicked() {
-                    self.pick_save();
-                }
-                ui.separator();
-                if ui
-                    .button("Export build sheet…")
-                    .on_hover_text("Write the technician's build sheet (PDF) and the channel list (CSV beside it)")
-                    .clicked()
-                {
-                    self.pick_sheet();
-                }
-            });
+            ui.menu_button("File", |ui| self.file_menu_ui(ui));
             ui.menu_button("Edit", |ui| {
                 if ui
                     .add_enabled(self.doc.can_undo(), egui::Button::new("Undo"))
@@ -440,28 +453,33 @@ impl GaugewrightApp {
         });
     }
 
+    /// The New project dialog: a created project replaces the open one.
+    fn new_project_modal_ui(&mut self, ui: &mut egui::Ui) {
+        match self.new_project.ui(ui.ctx(), self.doc.units) {
+            Some(NewProjectOutcome::Create(project)) => {
+                self.doc.apply_all(vec![Command::ReplaceProject {
+                    project,
+                    path: None,
+                }]);
+                self.doc.notice = Some(Notice {
+                    is_error: false,
+                    text: "New project: add gauges and bridges from the plan tree (Add), \
+                           edit every value in the inspector on the right."
+                        .into(),
+                });
+                self.modal = None;
+            }
+            Some(NewProjectOutcome::Cancel) => self.modal = None,
+            None => {}
+        }
+    }
+
     fn modal_ui(&mut self, ui: &mut egui::Ui) {
         let Some(modal) = self.modal.clone() else {
             return;
         };
         if modal == Modal::NewProject {
-            match self.new_project.ui(ui.ctx(), self.doc.units) {
-                Some(NewProjectOutcome::Create(project)) => {
-                    self.doc.apply_all(vec![Command::ReplaceProject {
-                        project,
-                        path: None,
-                    }]);
-                    self.doc.notice = Some(Notice {
-                        is_error: false,
-                        text: "New project: add gauges and bridges from the plan tree (Add), \
-                               edit every value in the inspector on the right."
-                            .into(),
-                    });
-                    self.modal = None;
-                }
-                Some(NewProjectOutcome::Cancel) => self.modal = None,
-                None => {}
-            }
+            self.new_project_modal_ui(ui);
             return;
         }
         let mut close = false;
@@ -544,30 +562,7 @@ impl GaugewrightApp {
                     });
                 }
                 Modal::NewProject => {}
-                Modal::Recover(path) => {
-                    ui.label("Gaugewright closed with unsaved work last time. Recover it?");
-                    ui.horizontal(|ui| {
-                        if ui.button("Recover").clicked() {
-                            if let Ok(p) = gw_plan::load_project(&path) {
-                                self.doc.apply_all(vec![Command::ReplaceProject {
-                                    project: Box::new(p),
-                                    path: None,
-                                }]);
-                                self.doc.dirty = true;
-                            } else {
-                                self.doc.notice = Some(Notice {
-                                    is_error: true,
-                                    text: "The recovery file could not be read.".into(),
-                                });
-                            }
-                            close = true;
-                        }
-                        if ui.button("Discard it").clicked() {
-                            let _ = std::fs::remove_file(&path);
-                            close = true;
-                        }
-                    });
-                }
+                Modal::Recover(path) => close = self.recover_ui(ui, &path),
             });
         if close {
             self.modal = None;
@@ -576,6 +571,34 @@ impl GaugewrightApp {
             self.doc.dirty = false;
             self.run_pending(p);
         }
+    }
+
+    /// The offer to recover unsaved work; true when answered.
+    fn recover_ui(&mut self, ui: &mut egui::Ui, path: &std::path::Path) -> bool {
+        let mut close = false;
+        ui.label("Gaugewright closed with unsaved work last time. Recover it?");
+        ui.horizontal(|ui| {
+            if ui.button("Recover").clicked() {
+                if let Ok(p) = gw_plan::load_project(path) {
+                    self.doc.apply_all(vec![Command::ReplaceProject {
+                        project: Box::new(p),
+                        path: None,
+                    }]);
+                    self.doc.dirty = true;
+                } else {
+                    self.doc.notice = Some(Notice {
+                        is_error: true,
+                        text: "The recovery file could not be read.".into(),
+                    });
+                }
+                close = true;
+            }
+            if ui.button("Discard it").clicked() {
+                let _ = std::fs::remove_file(path);
+                close = true;
+            }
+        });
+        close
     }
 
     /// One frame of the whole app.

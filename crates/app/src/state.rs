@@ -274,26 +274,8 @@ impl DocumentState {
     /// Performs an edit on the project; false if it did not apply.
     fn edit(&mut self, command: Command) -> bool {
         match command {
-            Command::Edit { project, focus } => {
-                if gw_plan::validate::validate_project(&project).is_err() {
-                    return false;
-                }
-                self.project = *project;
-                if let Some(item) = focus {
-                    self.selection = Selection::of(item, self.selection);
-                }
-                true
-            }
-            Command::SetDatum { part, x_m, s_m } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                if !(x_m.is_finite() && s_m.is_finite()) {
-                    return false;
-                }
-                p.datum_m = (x_m, s_m);
-                true
-            }
+            Command::Edit { project, focus } => self.replace_edited(*project, focus),
+            Command::SetDatum { part, x_m, s_m } => self.set_datum(part, x_m, s_m),
             Command::AddGauge {
                 part,
                 pattern,
@@ -304,38 +286,12 @@ impl DocumentState {
                 part,
                 gauge,
                 position,
-            } => {
-                let Some(p) = self.project.parts.get_mut(part) else {
-                    return false;
-                };
-                if p.member.locate(&position).is_err() {
-                    return false;
-                }
-                let Some(g) = p.gauges.get_mut(gauge) else {
-                    return false;
-                };
-                g.position = position;
-                true
-            }
+            } => self.move_gauge(part, gauge, position),
             Command::SetGaugeAngle {
                 part,
                 gauge,
                 angle_rad,
-            } => {
-                let Some(g) = self
-                    .project
-                    .parts
-                    .get_mut(part)
-                    .and_then(|p| p.gauges.get_mut(gauge))
-                else {
-                    return false;
-                };
-                if !angle_rad.is_finite() {
-                    return false;
-                }
-                g.angle_rad = angle_rad;
-                true
-            }
+            } => self.turn_gauge(part, gauge, angle_rad),
             Command::DeleteGauge { part, gauge } => {
                 let ok =
                     gw_plan::edit::delete(&mut self.project, Item::Gauge { part, gauge }).is_ok();
@@ -348,38 +304,15 @@ impl DocumentState {
                 bridge,
                 arm,
                 element,
-            } => {
-                let Some(b) = self
-                    .project
-                    .parts
-                    .get_mut(part)
-                    .and_then(|p| p.bridges.get_mut(bridge))
-                else {
-                    return false;
-                };
-                if arm > 3 {
-                    return false;
-                }
-                b.arms[arm] = element;
-                b.arrangement = "Custom".into();
-                gw_plan::validate::validate_project(&self.project).is_ok()
-            }
+            } => self.set_arm(part, bridge, arm, element),
             Command::SetWiring {
                 part,
                 bridge,
                 wiring,
-            } => {
-                let Some(b) = self
-                    .project
-                    .parts
-                    .get_mut(part)
-                    .and_then(|p| p.bridges.get_mut(bridge))
-                else {
-                    return false;
-                };
-                b.wiring = wiring;
-                true
-            }
+            } => self
+                .bridge_mut(part, bridge)
+                .map(|b| b.wiring = wiring)
+                .is_some(),
             Command::AddBridge { part } => {
                 match gw_plan::edit::add(&mut self.project, gw_plan::edit::ItemKind::Bridge, part) {
                     Ok(item) => {
@@ -423,6 +356,89 @@ impl DocumentState {
             | Command::Focus(_)
             | Command::ReplaceProject { .. } => false,
         }
+    }
+
+    /// Takes an edited copy of the project (inspector, tree), if it is valid.
+    fn replace_edited(&mut self, project: Project, focus: Option<Item>) -> bool {
+        if gw_plan::validate::validate_project(&project).is_err() {
+            return false;
+        }
+        self.project = project;
+        if let Some(item) = focus {
+            self.selection = Selection::of(item, self.selection);
+        }
+        true
+    }
+
+    fn set_datum(&mut self, part: usize, x_m: f64, s_m: f64) -> bool {
+        let Some(p) = self.project.parts.get_mut(part) else {
+            return false;
+        };
+        if !(x_m.is_finite() && s_m.is_finite()) {
+            return false;
+        }
+        p.datum_m = (x_m, s_m);
+        true
+    }
+
+    fn move_gauge(
+        &mut self,
+        part: usize,
+        gauge: usize,
+        position: gw_mechanics::SurfacePoint,
+    ) -> bool {
+        let Some(p) = self.project.parts.get_mut(part) else {
+            return false;
+        };
+        if p.member.locate(&position).is_err() {
+            return false;
+        }
+        let Some(g) = p.gauges.get_mut(gauge) else {
+            return false;
+        };
+        g.position = position;
+        true
+    }
+
+    fn turn_gauge(&mut self, part: usize, gauge: usize, angle_rad: f64) -> bool {
+        let Some(g) = self
+            .project
+            .parts
+            .get_mut(part)
+            .and_then(|p| p.gauges.get_mut(gauge))
+        else {
+            return false;
+        };
+        if !angle_rad.is_finite() {
+            return false;
+        }
+        g.angle_rad = angle_rad;
+        true
+    }
+
+    fn bridge_mut(&mut self, part: usize, bridge: usize) -> Option<&mut gw_plan::BridgePlan> {
+        self.project
+            .parts
+            .get_mut(part)
+            .and_then(|p| p.bridges.get_mut(bridge))
+    }
+
+    fn set_arm(
+        &mut self,
+        part: usize,
+        bridge: usize,
+        arm: usize,
+        element: gw_plan::PlanArm,
+    ) -> bool {
+        let Some(b) = self.bridge_mut(part, bridge) else {
+            return false;
+        };
+        if arm > 3 {
+            return false;
+        }
+        b.arms[arm] = element;
+        b.arrangement = "Custom".into();
+        gw_plan::validate::validate_project(&self.project).is_ok()
     }
 
     fn add_gauge(

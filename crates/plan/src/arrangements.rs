@@ -73,6 +73,61 @@ pub fn bridge_factor_of_model(model: &BridgeModel) -> f64 {
     }
 }
 
+/// The gauge type catalogue entries are placed with: the stock type of the part's first gauge
+/// (without its lot's values), or the default single grid.
+pub fn catalogue_spec(project: &crate::Project, part: &Part) -> gw_bridge::GaugeSpec {
+    part.gauges
+        .first()
+        .and_then(|g| project.stock_entry(&g.stock))
+        .map(|s| s.spec.clone())
+        .unwrap_or_else(|| crate::document::default_gauge_spec(gw_bridge::GaugePattern::SingleGrid))
+}
+
+/// Every assignment of the part's placed grids to the arms of bridge `bridge`, ranked for the
+/// load it measures against the others the part's load cases carry (largest magnitudes), over
+/// the first load case's temperature range.
+pub fn suggest(
+    project: &crate::Project,
+    part: &Part,
+    bridge: usize,
+) -> Result<Vec<RankedArrangement>, String> {
+    use gw_bridge::chooser::{ChooserRequest, choose};
+    use gw_mechanics::LoadComponent;
+    let plan = part.bridges.get(bridge).ok_or("there is no such bridge")?;
+    let expected = crate::validate::expected_magnitudes(part);
+    let magnitude = expected
+        .iter()
+        .find(|(c, _)| *c == plan.wanted)
+        .map(|(_, m)| *m)
+        .unwrap_or(1.0);
+    let unwanted = expected
+        .iter()
+        .filter(|(c, _)| *c != plan.wanted && *c != LoadComponent::TemperatureChange)
+        .copied()
+        .collect();
+    let range = part
+        .load_cases
+        .first()
+        .map(|c| c.temperature_range_c)
+        .unwrap_or((-20.0, 40.0));
+    let spec = catalogue_spec(project, part);
+    let request = ChooserRequest {
+        wanted: plan.wanted,
+        wanted_magnitude: magnitude.max(1e-12),
+        unwanted,
+        temperature_range_c: range,
+        reference_temperature_c: project.reference_temperature_c,
+        completion: gw_bridge::CompletionResistor {
+            ohm: spec.resistance_ohm,
+            tolerance: 0.0005,
+            tcr_per_c: 5e-6,
+        },
+        keep: 8,
+    };
+    let gauges = project.placed_gauges(part);
+    choose(&part.member, &gauges, &request, QuadratureOrder::default()).map_err(|e| e.to_string())
+}
+
 /// Adds the entry's gauges to the part (with new ids, their data in the project's gauge stock)
 /// and sets the bridge's arms and arrangement name. The bridge factor follows from the part.
 pub fn apply_catalogue_entry(

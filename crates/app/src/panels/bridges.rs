@@ -2,12 +2,10 @@
 //! the automatic chooser.
 
 use egui::{Color32, Pos2, Stroke, pos2, vec2};
+use gw_bridge::LeadWiring;
 use gw_bridge::arrangement::{CatalogueEntry, catalogue};
-use gw_bridge::chooser::{ChooserRequest, RankedArrangement, choose};
-use gw_bridge::{CompletionResistor, LeadWiring};
-use gw_mechanics::{LoadComponent, QuadratureOrder};
-use gw_plan::validate::expected_magnitudes;
-use gw_plan::{BridgePlan, PlanArm};
+use gw_bridge::chooser::RankedArrangement;
+use gw_plan::{BridgePlan, Part, PlanArm};
 
 use crate::command::Command;
 use crate::panels::capitalise;
@@ -176,7 +174,6 @@ impl BridgesPanel {
                 }
             });
             let choices = arm_choices(&doc.project, part);
-            let placed = doc.project.placed_gauges(part);
             egui::Grid::new("arms").num_columns(2).show(ui, |ui| {
                 for k in 0..4 {
                     let label = ui.label(format!("Arm {}", k + 1)).id;
@@ -197,96 +194,128 @@ impl BridgesPanel {
             });
             ui.separator();
             ui.strong("Arrangements for this part");
-            let station = sel
-                .gauge
-                .and_then(|g| placed.get(g))
-                .map(|g| g.position.x_m)
-                .unwrap_or_else(|| part.member.faces().first().map(|f| (f.x_range_m.0 + f.x_range_m.1) / 4.0).unwrap_or(0.0));
-            // The stock type of the first gauge (without its lot's values): catalogue gauges
-            // are new gauges of that type.
-            let spec = part
-                .gauges
-                .first()
-                .and_then(|g| doc.project.stock_entry(&g.stock))
-                .map(|s| s.spec.clone())
-                .unwrap_or_else(|| gw_plan::document::default_gauge_spec(gw_bridge::GaugePattern::SingleGrid));
-            let entries: Vec<CatalogueEntry> = catalogue(&part.member, plan.wanted, station, &spec);
-            if entries.is_empty() {
-                ui.label("No standard arrangement measures this load on this part.");
-            }
-            egui::Grid::new("catalogue").num_columns(2).striped(true).show(ui, |ui| {
-                for e in entries {
-                    if ui
-                        .button(format!("Apply {}", e.name))
-                        .on_hover_text(format!("{} — adds its gauges and rewires this bridge", e.description))
-                        .clicked()
-                    {
-                        out.push(Command::ApplyCatalogue { part: sel.part, bridge: bi, entry: Box::new(e.clone()) });
-                    }
-                    // A shortened label shows its whole text on hover by itself.
-                    ui.add(egui::Label::new(&e.description).truncate());
-                    ui.end_row();
-                }
-            });
+            catalogue_ui(ui, doc, part, bi, out);
             ui.separator();
-            ui.horizontal(|ui| {
-                ui.strong("Suggest");
+            suggestions_ui(ui, doc, part, bi, suggestions, out);
+        });
+    }
+}
+
+/// The standard arrangements for this part and load, each with an Apply button.
+fn catalogue_ui(
+    ui: &mut egui::Ui,
+    doc: &DocumentState,
+    part: &Part,
+    bi: usize,
+    out: &mut Vec<Command>,
+) {
+    let sel = doc.selection;
+    let Some(plan) = part.bridges.get(bi) else {
+        return;
+    };
+    let placed = doc.project.placed_gauges(part);
+    let station = sel
+        .gauge
+        .and_then(|g| placed.get(g))
+        .map(|g| g.position.x_m)
+        .unwrap_or_else(|| {
+            part.member
+                .faces()
+                .first()
+                .map(|f| (f.x_range_m.0 + f.x_range_m.1) / 4.0)
+                .unwrap_or(0.0)
+        });
+    let spec = gw_plan::arrangements::catalogue_spec(&doc.project, part);
+    let entries: Vec<CatalogueEntry> = catalogue(&part.member, plan.wanted, station, &spec);
+    if entries.is_empty() {
+        ui.label("No standard arrangement measures this load on this part.");
+    }
+    egui::Grid::new("catalogue")
+        .num_columns(2)
+        .striped(true)
+        .show(ui, |ui| {
+            for e in entries {
                 if ui
-                    .button("Suggest arrangements")
-                    .on_hover_text("Search every assignment of the placed grids to the four arms and rank them")
+                    .button(format!("Apply {}", e.name))
+                    .on_hover_text(format!(
+                        "{} — adds its gauges and rewires this bridge",
+                        e.description
+                    ))
                     .clicked()
                 {
-                    let expected = expected_magnitudes(part);
-                    let magnitude = expected.iter().find(|(c, _)| *c == plan.wanted).map(|(_, m)| *m).unwrap_or(1.0);
-                    let unwanted = expected
-                        .iter()
-                        .filter(|(c, _)| *c != plan.wanted && *c != LoadComponent::TemperatureChange)
-                        .copied()
-                        .collect();
-                    let range = part.load_cases.first().map(|c| c.temperature_range_c).unwrap_or((-20.0, 40.0));
-                    let request = ChooserRequest {
-                        wanted: plan.wanted,
-                        wanted_magnitude: magnitude.max(1e-12),
-                        unwanted,
-                        temperature_range_c: range,
-                        reference_temperature_c: doc.project.reference_temperature_c,
-                        completion: CompletionResistor { ohm: spec.resistance_ohm, tolerance: 0.0005, tcr_per_c: 5e-6 },
-                        keep: 8,
-                    };
-                    let result = choose(&part.member, &placed, &request, QuadratureOrder::default()).map_err(|e| e.to_string());
-                    *suggestions = Some((doc.evaluations, sel.part, bi, result));
+                    out.push(Command::ApplyCatalogue {
+                        part: sel.part,
+                        bridge: bi,
+                        entry: Box::new(e.clone()),
+                    });
                 }
-            });
-            if let Some((n, p, b, result)) = suggestions.as_ref()
-                && *n == doc.evaluations
-                && *p == sel.part
-                && *b == bi
-            {
-                match result {
-                    Err(e) => {
-                        ui.colored_label(super::palette::FAIL, e);
-                    }
-                    Ok(list) if list.is_empty() => {
-                        ui.label("No arrangement of the placed grids responds to this load; place grids first.");
-                    }
-                    Ok(list) => {
-                        egui::Grid::new("suggestions").num_columns(2).striped(true).show(ui, |ui| {
-                            for (i, r) in list.iter().enumerate() {
-                                if ui
-                                    .button(format!("Apply suggestion {}", i + 1))
-                                    .on_hover_text("Rewire this bridge to this arrangement")
-                                    .clicked()
-                                {
-                                    out.push(Command::ApplySuggestion { part: sel.part, bridge: bi, ranked: Box::new(r.clone()) });
-                                }
-                                let reason = capitalise(&r.reason);
-                                ui.add(egui::Label::new(&reason).truncate());
-                                ui.end_row();
-                            }
-                        });
-                    }
-                }
+                // A shortened label shows its whole text on hover by itself.
+                ui.add(egui::Label::new(&e.description).truncate());
+                ui.end_row();
             }
         });
+}
+
+/// The Suggest button and the ranked list it produced for this bridge.
+fn suggestions_ui(
+    ui: &mut egui::Ui,
+    doc: &DocumentState,
+    part: &Part,
+    bi: usize,
+    suggestions: &mut Option<Suggestions>,
+    out: &mut Vec<Command>,
+) {
+    let sel = doc.selection;
+    ui.horizontal(|ui| {
+        ui.strong("Suggest");
+        if ui
+            .button("Suggest arrangements")
+            .on_hover_text(
+                "Search every assignment of the placed grids to the four arms and rank them",
+            )
+            .clicked()
+        {
+            let result = gw_plan::arrangements::suggest(&doc.project, part, bi);
+            *suggestions = Some((doc.evaluations, sel.part, bi, result));
+        }
+    });
+    let Some((n, p, b, result)) = suggestions.as_ref() else {
+        return;
+    };
+    if *n != doc.evaluations || *p != sel.part || *b != bi {
+        return;
+    }
+    match result {
+        Err(e) => {
+            ui.colored_label(super::palette::FAIL, e);
+        }
+        Ok(list) if list.is_empty() => {
+            ui.label(
+                "No arrangement of the placed grids responds to this load; place grids first.",
+            );
+        }
+        Ok(list) => {
+            egui::Grid::new("suggestions")
+                .num_columns(2)
+                .striped(true)
+                .show(ui, |ui| {
+                    for (i, r) in list.iter().enumerate() {
+                        if ui
+                            .button(format!("Apply suggestion {}", i + 1))
+                            .on_hover_text("Rewire this bridge to this arrangement")
+                            .clicked()
+                        {
+                            out.push(Command::ApplySuggestion {
+                                part: sel.part,
+                                bridge: bi,
+                                ranked: Box::new(r.clone()),
+                            });
+                        }
+                        let reason = capitalise(&r.reason);
+                        ui.add(egui::Label::new(&reason).truncate());
+                        ui.end_row();
+                    }
+                });
+        }
     }
 }

@@ -21,124 +21,134 @@ pub fn project_groups() -> Vec<Group<Project>> {
     vec![
         Group {
             title: "Project",
-            fields: vec![
-                text(
-                    "name",
-                    "Name",
-                    "Project name, printed on every page of the build sheet",
-                    |p: &Project| p.name.clone(),
-                    |p, v| p.name = v,
-                ),
-                text(
-                    "revision",
-                    "Revision",
-                    "Revision label of this plan",
-                    |p: &Project| p.revision.clone(),
-                    |p, v| p.revision = v,
-                ),
-                text(
-                    "date",
-                    "Date",
-                    "Date of this revision",
-                    |p: &Project| p.date.clone(),
-                    |p, v| p.date = v,
-                ),
-                text(
-                    "prepared_by",
-                    "Prepared by",
-                    "Who prepared the plan",
-                    |p: &Project| p.prepared_by.clone(),
-                    |p, v| p.prepared_by = v,
-                ),
-                text(
-                    "checked_by",
-                    "Checked by",
-                    "Who checked the plan",
-                    |p: &Project| p.checked_by.clone(),
-                    |p, v| p.checked_by = v,
-                ),
-                pick(
-                    "paper",
-                    "Paper",
-                    "Paper size of the build sheet",
-                    &[(PaperSize::A4, "A4"), (PaperSize::Letter, "Letter")],
-                    |p: &Project| p.paper,
-                    |p, v| p.paper = v,
-                ),
-                num(
-                    "reference_temperature_c",
-                    "Reference temperature",
-                    Unit::Of(Quantity::Temperature),
-                    "Temperature at which bridges are zeroed and gauge data apply",
-                    |p: &Project| p.reference_temperature_c,
-                    |p, v| p.reference_temperature_c = v,
-                ),
-                num(
-                    "warn_utilisation",
-                    "Warn above",
-                    PERCENT,
-                    "Utilisation of a limit above which a margin warns",
-                    |p: &Project| p.warn_utilisation,
-                    |p, v| p.warn_utilisation = v,
-                ),
-                Field {
-                    path: "notes",
-                    label: "Notes".into(),
-                    help: "Free notes",
-                    editor: Editor::Text {
-                        multiline: true,
-                        get: Box::new(|p: &Project| p.notes.clone()),
-                        set: Box::new(|p, v| p.notes = v),
-                    },
-                },
-            ],
+            fields: header_fields(),
         },
         Group {
             title: "Lead colours (the project's own scheme; edit to the site's practice)",
-            fields: vec![
-                text(
-                    "lead_colours.excitation_pos",
-                    "Excitation +",
-                    "Colour of the excitation + lead",
-                    |p: &Project| p.lead_colours.excitation_pos.clone(),
-                    |p, v| p.lead_colours.excitation_pos = v,
-                ),
-                text(
-                    "lead_colours.excitation_neg",
-                    "Excitation −",
-                    "Colour of the excitation − lead",
-                    |p: &Project| p.lead_colours.excitation_neg.clone(),
-                    |p, v| p.lead_colours.excitation_neg = v,
-                ),
-                text(
-                    "lead_colours.output_pos",
-                    "Output +",
-                    "Colour of the output + lead",
-                    |p: &Project| p.lead_colours.output_pos.clone(),
-                    |p, v| p.lead_colours.output_pos = v,
-                ),
-                text(
-                    "lead_colours.output_neg",
-                    "Output −",
-                    "Colour of the output − lead",
-                    |p: &Project| p.lead_colours.output_neg.clone(),
-                    |p, v| p.lead_colours.output_neg = v,
-                ),
-                text(
-                    "lead_colours.sense",
-                    "Sense",
-                    "Colour of sense leads",
-                    |p: &Project| p.lead_colours.sense.clone(),
-                    |p, v| p.lead_colours.sense = v,
-                ),
-                text(
-                    "lead_colours.shield",
-                    "Shield",
-                    "Shield or drain wire",
-                    |p: &Project| p.lead_colours.shield.clone(),
-                    |p, v| p.lead_colours.shield = v,
-                ),
-            ],
+            fields: lead_colour_fields(),
+        },
+    ]
+}
+
+/// The lead colour of each conductor role.
+fn lead_colour_fields() -> Vec<Field<Project>> {
+    vec![
+        text(
+            "lead_colours.excitation_pos",
+            "Excitation +",
+            "Colour of the excitation + lead",
+            |p: &Project| p.lead_colours.excitation_pos.clone(),
+            |p, v| p.lead_colours.excitation_pos = v,
+        ),
+        text(
+            "lead_colours.excitation_neg",
+            "Excitation −",
+            "Colour of the excitation − lead",
+            |p: &Project| p.lead_colours.excitation_neg.clone(),
+            |p, v| p.lead_colours.excitation_neg = v,
+        ),
+        text(
+            "lead_colours.output_pos",
+            "Output +",
+            "Colour of the output + lead",
+            |p: &Project| p.lead_colours.output_pos.clone(),
+            |p, v| p.lead_colours.output_pos = v,
+        ),
+        text(
+            "lead_colours.output_neg",
+            "Output −",
+            "Colour of the output − lead",
+            |p: &Project| p.lead_colours.output_neg.clone(),
+            |p, v| p.lead_colours.output_neg = v,
+        ),
+        text(
+            "lead_colours.sense",
+            "Sense",
+            "Colour of sense leads",
+            |p: &Project| p.lead_colours.sense.clone(),
+            |p, v| p.lead_colours.sense = v,
+        ),
+        text(
+            "lead_colours.shield",
+            "Shield",
+            "Shield or drain wire",
+            |p: &Project| p.lead_colours.shield.clone(),
+            |p, v| p.lead_colours.shield = v,
+        ),
+    ]
+}
+
+/// The project header, reference temperature, warning level and notes.
+fn header_fields() -> Vec<Field<Project>> {
+    vec![
+        text(
+            "name",
+            "Name",
+            "Project name, printed on every page of the build sheet",
+            |p: &Project| p.name.clone(),
+            |p, v| p.name = v,
+        ),
+        text(
+            "revision",
+            "Revision",
+            "Revision label of this plan",
+            |p: &Project| p.revision.clone(),
+            |p, v| p.revision = v,
+        ),
+        text(
+            "date",
+            "Date",
+            "Date of this revision",
+            |p: &Project| p.date.clone(),
+            |p, v| p.date = v,
+        ),
+        text(
+            "prepared_by",
+            "Prepared by",
+            "Who prepared the plan",
+            |p: &Project| p.prepared_by.clone(),
+            |p, v| p.prepared_by = v,
+        ),
+        text(
+            "checked_by",
+            "Checked by",
+            "Who checked the plan",
+            |p: &Project| p.checked_by.clone(),
+            |p, v| p.checked_by = v,
+        ),
+        pick(
+            "paper",
+            "Paper",
+            "Paper size of the build sheet",
+            &[(PaperSize::A4, "A4"), (PaperSize::Letter, "Letter")],
+            |p: &Project| p.paper,
+            |p, v| p.paper = v,
+        ),
+        num(
+            "reference_temperature_c",
+            "Reference temperature",
+            Unit::Of(Quantity::Temperature),
+            "Temperature at which bridges are zeroed and gauge data apply",
+            |p: &Project| p.reference_temperature_c,
+            |p, v| p.reference_temperature_c = v,
+        ),
+        num(
+            "warn_utilisation",
+            "Warn above",
+            PERCENT,
+            "Utilisation of a limit above which a margin warns",
+            |p: &Project| p.warn_utilisation,
+            |p, v| p.warn_utilisation = v,
+        ),
+        Field {
+            path: "notes",
+            label: "Notes".into(),
+            help: "Free notes",
+            editor: Editor::Text {
+                multiline: true,
+                get: Box::new(|p: &Project| p.notes.clone()),
+                set: Box::new(|p, v| p.notes = v),
+            },
         },
     ]
 }
@@ -277,116 +287,11 @@ pub fn stock_groups() -> Vec<Group<StockGauge>> {
     vec![
         Group {
             title: "Gauge type",
-            fields: vec![
-                text(
-                    "name",
-                    "Name",
-                    "Name the placed gauges refer to",
-                    |s: &StockGauge| s.name.clone(),
-                    |s, v| s.name = v,
-                ),
-                pick(
-                    "spec.pattern",
-                    "Pattern",
-                    "Layout of the grids",
-                    &PATTERNS,
-                    |s: &StockGauge| s.spec.pattern,
-                    |s, v| s.spec.pattern = v,
-                ),
-                num(
-                    "spec.grid_length_m",
-                    "Grid length",
-                    LENGTH,
-                    "Active grid length",
-                    |s: &StockGauge| s.spec.grid_length_m,
-                    |s, v| s.spec.grid_length_m = v,
-                ),
-                num(
-                    "spec.grid_width_m",
-                    "Grid width",
-                    LENGTH,
-                    "Active grid width",
-                    |s: &StockGauge| s.spec.grid_width_m,
-                    |s, v| s.spec.grid_width_m = v,
-                ),
-                num(
-                    "spec.resistance_ohm",
-                    "Resistance",
-                    OHM,
-                    "Nominal grid resistance (120, 350, 1000 Ω or any)",
-                    |s: &StockGauge| s.spec.resistance_ohm,
-                    |s, v| s.spec.resistance_ohm = v,
-                ),
-                num(
-                    "spec.resistance_tolerance",
-                    "Resistance tolerance",
-                    PERCENT,
-                    "± tolerance of the grid resistance",
-                    |s: &StockGauge| s.spec.resistance_tolerance,
-                    |s, v| s.spec.resistance_tolerance = v,
-                ),
-                num(
-                    "spec.gauge_factor",
-                    "Gauge factor",
-                    PLAIN,
-                    "Gauge factor at the reference temperature",
-                    |s: &StockGauge| s.spec.gauge_factor,
-                    |s, v| s.spec.gauge_factor = v,
-                ),
-                num(
-                    "spec.gauge_factor_tolerance",
-                    "Gauge-factor tolerance",
-                    PERCENT,
-                    "± tolerance of the gauge factor",
-                    |s: &StockGauge| s.spec.gauge_factor_tolerance,
-                    |s, v| s.spec.gauge_factor_tolerance = v,
-                ),
-                num(
-                    "spec.transverse_sensitivity",
-                    "Transverse sensitivity",
-                    PERCENT,
-                    "Kt of the grid",
-                    |s: &StockGauge| s.spec.transverse_sensitivity,
-                    |s, v| s.spec.transverse_sensitivity = v,
-                ),
-                num(
-                    "spec.gauge_factor_temp_coeff_per_c",
-                    "Gauge-factor drift",
-                    PPM_PER_C,
-                    "Relative change of the gauge factor per °C",
-                    |s: &StockGauge| s.spec.gauge_factor_temp_coeff_per_c,
-                    |s, v| s.spec.gauge_factor_temp_coeff_per_c = v,
-                ),
-            ],
+            fields: stock_type_fields(),
         },
         Group {
             title: "Limits",
-            fields: vec![
-                num(
-                    "spec.strain_limit",
-                    "Strain limit",
-                    MICROSTRAIN,
-                    "Largest strain the grid survives once",
-                    |s: &StockGauge| s.spec.strain_limit,
-                    |s, v| s.spec.strain_limit = v,
-                ),
-                num(
-                    "spec.fatigue_strain_limit",
-                    "Fatigue strain limit",
-                    MICROSTRAIN,
-                    "Strain amplitude the grid survives for the rated cycles",
-                    |s: &StockGauge| s.spec.fatigue_strain_limit,
-                    |s, v| s.spec.fatigue_strain_limit = v,
-                ),
-                num(
-                    "spec.max_power_density_w_m2",
-                    "Allowed power density",
-                    Unit::Scaled(1e-3, "kW/m²"),
-                    "Self-heating limit; depends on the part's heat sinking (common practice: about 3 kW/m² on thick steel)",
-                    |s: &StockGauge| s.spec.max_power_density_w_m2,
-                    |s, v| s.spec.max_power_density_w_m2 = v,
-                ),
-            ],
+            fields: stock_limit_fields(),
         },
         Group {
             title: "Thermal output",
@@ -401,6 +306,121 @@ pub fn stock_groups() -> Vec<Group<StockGauge>> {
                 f_mut,
             ),
         },
+    ]
+}
+
+/// Strain, fatigue and self-heating limits of a stock type.
+fn stock_limit_fields() -> Vec<Field<StockGauge>> {
+    vec![
+        num(
+            "spec.strain_limit",
+            "Strain limit",
+            MICROSTRAIN,
+            "Largest strain the grid survives once",
+            |s: &StockGauge| s.spec.strain_limit,
+            |s, v| s.spec.strain_limit = v,
+        ),
+        num(
+            "spec.fatigue_strain_limit",
+            "Fatigue strain limit",
+            MICROSTRAIN,
+            "Strain amplitude the grid survives for the rated cycles",
+            |s: &StockGauge| s.spec.fatigue_strain_limit,
+            |s, v| s.spec.fatigue_strain_limit = v,
+        ),
+        num(
+            "spec.max_power_density_w_m2",
+            "Allowed power density",
+            Unit::Scaled(1e-3, "kW/m²"),
+            "Self-heating limit; depends on the part's heat sinking (common practice: about 3 kW/m² on thick steel)",
+            |s: &StockGauge| s.spec.max_power_density_w_m2,
+            |s, v| s.spec.max_power_density_w_m2 = v,
+        ),
+    ]
+}
+
+/// Pattern, grid, resistance and gauge factor of a stock type.
+fn stock_type_fields() -> Vec<Field<StockGauge>> {
+    vec![
+        text(
+            "name",
+            "Name",
+            "Name the placed gauges refer to",
+            |s: &StockGauge| s.name.clone(),
+            |s, v| s.name = v,
+        ),
+        pick(
+            "spec.pattern",
+            "Pattern",
+            "Layout of the grids",
+            &PATTERNS,
+            |s: &StockGauge| s.spec.pattern,
+            |s, v| s.spec.pattern = v,
+        ),
+        num(
+            "spec.grid_length_m",
+            "Grid length",
+            LENGTH,
+            "Active grid length",
+            |s: &StockGauge| s.spec.grid_length_m,
+            |s, v| s.spec.grid_length_m = v,
+        ),
+        num(
+            "spec.grid_width_m",
+            "Grid width",
+            LENGTH,
+            "Active grid width",
+            |s: &StockGauge| s.spec.grid_width_m,
+            |s, v| s.spec.grid_width_m = v,
+        ),
+        num(
+            "spec.resistance_ohm",
+            "Resistance",
+            OHM,
+            "Nominal grid resistance (120, 350, 1000 Ω or any)",
+            |s: &StockGauge| s.spec.resistance_ohm,
+            |s, v| s.spec.resistance_ohm = v,
+        ),
+        num(
+            "spec.resistance_tolerance",
+            "Resistance tolerance",
+            PERCENT,
+            "± tolerance of the grid resistance",
+            |s: &StockGauge| s.spec.resistance_tolerance,
+            |s, v| s.spec.resistance_tolerance = v,
+        ),
+        num(
+            "spec.gauge_factor",
+            "Gauge factor",
+            PLAIN,
+            "Gauge factor at the reference temperature",
+            |s: &StockGauge| s.spec.gauge_factor,
+            |s, v| s.spec.gauge_factor = v,
+        ),
+        num(
+            "spec.gauge_factor_tolerance",
+            "Gauge-factor tolerance",
+            PERCENT,
+            "± tolerance of the gauge factor",
+            |s: &StockGauge| s.spec.gauge_factor_tolerance,
+            |s, v| s.spec.gauge_factor_tolerance = v,
+        ),
+        num(
+            "spec.transverse_sensitivity",
+            "Transverse sensitivity",
+            PERCENT,
+            "Kt of the grid",
+            |s: &StockGauge| s.spec.transverse_sensitivity,
+            |s, v| s.spec.transverse_sensitivity = v,
+        ),
+        num(
+            "spec.gauge_factor_temp_coeff_per_c",
+            "Gauge-factor drift",
+            PPM_PER_C,
+            "Relative change of the gauge factor per °C",
+            |s: &StockGauge| s.spec.gauge_factor_temp_coeff_per_c,
+            |s, v| s.spec.gauge_factor_temp_coeff_per_c = v,
+        ),
     ]
 }
 
@@ -728,177 +748,202 @@ const ENDS: [(VesselEnds, &str); 2] = [
 fn model_fields(m: &Member) -> Vec<Field<Part>> {
     match m {
         Member::Beam(b) => beam_fields(b),
-        Member::Shaft(_) => vec![
-            dim(
-                "member.Shaft.length_m",
-                "Length",
-                "Length of shaft available for gauges",
-                shaft,
-                shaft_mut,
-                |s| s.length_m,
-                |s, v| s.length_m = v,
-            ),
-            dim(
-                "member.Shaft.outer_diameter_m",
-                "Outer diameter",
-                "Outer diameter",
-                shaft,
-                shaft_mut,
-                |s| s.outer_diameter_m,
-                |s, v| s.outer_diameter_m = v,
-            ),
-            dim(
-                "member.Shaft.inner_diameter_m",
-                "Bore diameter",
-                "Bore; 0 for a solid shaft",
-                shaft,
-                shaft_mut,
-                |s| s.inner_diameter_m,
-                |s, v| s.inner_diameter_m = v,
-            ),
-        ],
-        Member::ThinCylinder(_) => vec![
-            dim(
-                "member.ThinCylinder.length_m",
-                "Length",
-                "Length of the shell shown",
-                thin,
-                thin_mut,
-                |s| s.length_m,
-                |s, v| s.length_m = v,
-            ),
-            dim(
-                "member.ThinCylinder.outer_diameter_m",
-                "Outer diameter",
-                "Outer diameter",
-                thin,
-                thin_mut,
-                |s| s.outer_diameter_m,
-                |s, v| s.outer_diameter_m = v,
-            ),
-            dim(
-                "member.ThinCylinder.wall_m",
-                "Wall thickness",
-                "Thin-wall formulas need mean radius ≥ 10 × wall",
-                thin,
-                thin_mut,
-                |s| s.wall_m,
-                |s, v| s.wall_m = v,
-            ),
-            pick(
-                "member.ThinCylinder.ends",
-                "Ends",
-                "Whether pressure on end caps loads the wall axially",
-                &ENDS,
-                |p: &Part| thin(&p.member).map(|c| c.ends).unwrap_or_default(),
-                |p, v| {
-                    if let Some(c) = thin_mut(&mut p.member) {
-                        c.ends = v
-                    }
-                },
-            ),
-        ],
-        Member::ThinSphere(_) => vec![
-            dim(
-                "member.ThinSphere.outer_diameter_m",
-                "Outer diameter",
-                "Outer diameter",
-                sphere,
-                sphere_mut,
-                |s| s.outer_diameter_m,
-                |s, v| s.outer_diameter_m = v,
-            ),
-            dim(
-                "member.ThinSphere.wall_m",
-                "Wall thickness",
-                "Wall thickness",
-                sphere,
-                sphere_mut,
-                |s| s.wall_m,
-                |s, v| s.wall_m = v,
-            ),
-        ],
-        Member::ThickCylinder(_) => vec![
-            dim(
-                "member.ThickCylinder.length_m",
-                "Length",
-                "Length shown",
-                thick,
-                thick_mut,
-                |s| s.length_m,
-                |s, v| s.length_m = v,
-            ),
-            dim(
-                "member.ThickCylinder.outer_diameter_m",
-                "Outer diameter",
-                "Outer diameter",
-                thick,
-                thick_mut,
-                |s| s.outer_diameter_m,
-                |s, v| s.outer_diameter_m = v,
-            ),
-            dim(
-                "member.ThickCylinder.inner_diameter_m",
-                "Inner diameter",
-                "Bore diameter",
-                thick,
-                thick_mut,
-                |s| s.inner_diameter_m,
-                |s, v| s.inner_diameter_m = v,
-            ),
-            pick(
-                "member.ThickCylinder.ends",
-                "Ends",
-                "Whether pressure on end caps loads the wall axially",
-                &ENDS,
-                |p: &Part| thick(&p.member).map(|c| c.ends).unwrap_or_default(),
-                |p, v| {
-                    if let Some(c) = thick_mut(&mut p.member) {
-                        c.ends = v
-                    }
-                },
-            ),
-        ],
-        Member::PlateWithHole(_) => vec![
-            dim(
-                "member.PlateWithHole.hole_diameter_m",
-                "Hole diameter",
-                "Diameter of the circular hole",
-                plate,
-                plate_mut,
-                |s| s.hole_diameter_m,
-                |s, v| s.hole_diameter_m = v,
-            ),
-            dim(
-                "member.PlateWithHole.width_m",
-                "Plate width",
-                "Width along x",
-                plate,
-                plate_mut,
-                |s| s.width_m,
-                |s, v| s.width_m = v,
-            ),
-            dim(
-                "member.PlateWithHole.height_m",
-                "Plate height",
-                "Height along y",
-                plate,
-                plate_mut,
-                |s| s.height_m,
-                |s, v| s.height_m = v,
-            ),
-            dim(
-                "member.PlateWithHole.thickness_m",
-                "Plate thickness",
-                "Thickness",
-                plate,
-                plate_mut,
-                |s| s.thickness_m,
-                |s, v| s.thickness_m = v,
-            ),
-        ],
+        Member::Shaft(_) => shaft_fields(),
+        Member::ThinCylinder(_) => thin_cylinder_fields(),
+        Member::ThinSphere(_) => thin_sphere_fields(),
+        Member::ThickCylinder(_) => thick_cylinder_fields(),
+        Member::PlateWithHole(_) => plate_fields(),
         Member::GivenState(g) => given_fields(g),
     }
+}
+
+/// A plate with a hole: its sizes.
+fn plate_fields() -> Vec<Field<Part>> {
+    vec![
+        dim(
+            "member.PlateWithHole.hole_diameter_m",
+            "Hole diameter",
+            "Diameter of the circular hole",
+            plate,
+            plate_mut,
+            |s| s.hole_diameter_m,
+            |s, v| s.hole_diameter_m = v,
+        ),
+        dim(
+            "member.PlateWithHole.width_m",
+            "Plate width",
+            "Width along x",
+            plate,
+            plate_mut,
+            |s| s.width_m,
+            |s, v| s.width_m = v,
+        ),
+        dim(
+            "member.PlateWithHole.height_m",
+            "Plate height",
+            "Height along y",
+            plate,
+            plate_mut,
+            |s| s.height_m,
+            |s, v| s.height_m = v,
+        ),
+        dim(
+            "member.PlateWithHole.thickness_m",
+            "Plate thickness",
+            "Thickness",
+            plate,
+            plate_mut,
+            |s| s.thickness_m,
+            |s, v| s.thickness_m = v,
+        ),
+    ]
+}
+
+/// A thick-walled cylinder's sizes and ends.
+fn thick_cylinder_fields() -> Vec<Field<Part>> {
+    vec![
+        dim(
+            "member.ThickCylinder.length_m",
+            "Length",
+            "Length shown",
+            thick,
+            thick_mut,
+            |s| s.length_m,
+            |s, v| s.length_m = v,
+        ),
+        dim(
+            "member.ThickCylinder.outer_diameter_m",
+            "Outer diameter",
+            "Outer diameter",
+            thick,
+            thick_mut,
+            |s| s.outer_diameter_m,
+            |s, v| s.outer_diameter_m = v,
+        ),
+        dim(
+            "member.ThickCylinder.inner_diameter_m",
+            "Inner diameter",
+            "Bore diameter",
+            thick,
+            thick_mut,
+            |s| s.inner_diameter_m,
+            |s, v| s.inner_diameter_m = v,
+        ),
+        pick(
+            "member.ThickCylinder.ends",
+            "Ends",
+            "Whether pressure on end caps loads the wall axially",
+            &ENDS,
+            |p: &Part| thick(&p.member).map(|c| c.ends).unwrap_or_default(),
+            |p, v| {
+                if let Some(c) = thick_mut(&mut p.member) {
+                    c.ends = v
+                }
+            },
+        ),
+    ]
+}
+
+/// A thin-walled sphere's sizes.
+fn thin_sphere_fields() -> Vec<Field<Part>> {
+    vec![
+        dim(
+            "member.ThinSphere.outer_diameter_m",
+            "Outer diameter",
+            "Outer diameter",
+            sphere,
+            sphere_mut,
+            |s| s.outer_diameter_m,
+            |s, v| s.outer_diameter_m = v,
+        ),
+        dim(
+            "member.ThinSphere.wall_m",
+            "Wall thickness",
+            "Wall thickness",
+            sphere,
+            sphere_mut,
+            |s| s.wall_m,
+            |s, v| s.wall_m = v,
+        ),
+    ]
+}
+
+/// A thin-walled cylinder's sizes and ends.
+fn thin_cylinder_fields() -> Vec<Field<Part>> {
+    vec![
+        dim(
+            "member.ThinCylinder.length_m",
+            "Length",
+            "Length of the shell shown",
+            thin,
+            thin_mut,
+            |s| s.length_m,
+            |s, v| s.length_m = v,
+        ),
+        dim(
+            "member.ThinCylinder.outer_diameter_m",
+            "Outer diameter",
+            "Outer diameter",
+            thin,
+            thin_mut,
+            |s| s.outer_diameter_m,
+            |s, v| s.outer_diameter_m = v,
+        ),
+        dim(
+            "member.ThinCylinder.wall_m",
+            "Wall thickness",
+            "Thin-wall formulas need mean radius ≥ 10 × wall",
+            thin,
+            thin_mut,
+            |s| s.wall_m,
+            |s, v| s.wall_m = v,
+        ),
+        pick(
+            "member.ThinCylinder.ends",
+            "Ends",
+            "Whether pressure on end caps loads the wall axially",
+            &ENDS,
+            |p: &Part| thin(&p.member).map(|c| c.ends).unwrap_or_default(),
+            |p, v| {
+                if let Some(c) = thin_mut(&mut p.member) {
+                    c.ends = v
+                }
+            },
+        ),
+    ]
+}
+
+/// A round shaft's sizes.
+fn shaft_fields() -> Vec<Field<Part>> {
+    vec![
+        dim(
+            "member.Shaft.length_m",
+            "Length",
+            "Length of shaft available for gauges",
+            shaft,
+            shaft_mut,
+            |s| s.length_m,
+            |s, v| s.length_m = v,
+        ),
+        dim(
+            "member.Shaft.outer_diameter_m",
+            "Outer diameter",
+            "Outer diameter",
+            shaft,
+            shaft_mut,
+            |s| s.outer_diameter_m,
+            |s, v| s.outer_diameter_m = v,
+        ),
+        dim(
+            "member.Shaft.inner_diameter_m",
+            "Bore diameter",
+            "Bore; 0 for a solid shaft",
+            shaft,
+            shaft_mut,
+            |s| s.inner_diameter_m,
+            |s, v| s.inner_diameter_m = v,
+        ),
+    ]
 }
 
 fn given_fields(g: &gw_mechanics::GivenState) -> Vec<Field<Part>> {
@@ -1141,94 +1186,104 @@ pub fn part_groups(part: &Part) -> Vec<Group<Part>> {
         },
         Group {
             title: "Requirements and datum",
-            fields: vec![
-                num(
-                    "required_resolution_strain",
-                    "Required resolution",
-                    MICROSTRAIN,
-                    "Smallest strain change the measurement must resolve",
-                    |p: &Part| p.required_resolution_strain,
-                    |p, v| p.required_resolution_strain = v,
-                ),
-                num(
-                    "datum_m",
-                    "Datum x",
-                    LENGTH,
-                    "Dimension datum on drawings, along the member",
-                    |p: &Part| p.datum_m.0,
-                    |p, v| p.datum_m.0 = v,
-                ),
-                num(
-                    "datum_m",
-                    "Datum s",
-                    LENGTH,
-                    "Dimension datum on drawings, across the face",
-                    |p: &Part| p.datum_m.1,
-                    |p, v| p.datum_m.1 = v,
-                ),
-            ],
+            fields: requirement_fields(),
         },
         Group {
             title: "How well the installation is known",
-            fields: vec![
-                num(
-                    "tolerances.misalignment_rad",
-                    "Misalignment",
-                    DEGREES,
-                    "Standard uncertainty of a grid's direction",
-                    |p: &Part| p.tolerances.misalignment_rad,
-                    |p, v| p.tolerances.misalignment_rad = v,
-                ),
-                num(
-                    "tolerances.position_m",
-                    "Position",
-                    LENGTH,
-                    "Standard uncertainty of a gauge's position",
-                    |p: &Part| p.tolerances.position_m,
-                    |p, v| p.tolerances.position_m = v,
-                ),
-                num(
-                    "tolerances.transverse_sensitivity",
-                    "Transverse sensitivity",
-                    PERCENT,
-                    "Standard uncertainty of Kt",
-                    |p: &Part| p.tolerances.transverse_sensitivity,
-                    |p, v| p.tolerances.transverse_sensitivity = v,
-                ),
-                num(
-                    "tolerances.lead_resistance_fraction",
-                    "Lead resistance",
-                    PERCENT,
-                    "Standard uncertainty of the lead resistance, fraction of it",
-                    |p: &Part| p.tolerances.lead_resistance_fraction,
-                    |p, v| p.tolerances.lead_resistance_fraction = v,
-                ),
-                num(
-                    "tolerances.temperature_c",
-                    "Temperature",
-                    Unit::Of(Quantity::TemperatureChange),
-                    "Standard uncertainty of the part's temperature",
-                    |p: &Part| p.tolerances.temperature_c,
-                    |p, v| p.tolerances.temperature_c = v,
-                ),
-                whole(
-                    "tolerances.monte_carlo_trials",
-                    "Monte Carlo trials",
-                    (1000, 2_000_000),
-                    "Trials of the Monte Carlo check (JCGM 101)",
-                    |p: &Part| p.tolerances.monte_carlo_trials as u64,
-                    |p, v| p.tolerances.monte_carlo_trials = v as usize,
-                ),
-                whole(
-                    "tolerances.seed",
-                    "Random seed",
-                    (0, u64::MAX),
-                    "Seed of the Monte Carlo sampler (same seed, same result)",
-                    |p: &Part| p.tolerances.seed,
-                    |p, v| p.tolerances.seed = v,
-                ),
-            ],
+            fields: tolerance_fields(),
         },
+    ]
+}
+
+/// Standard uncertainties of the installation and the Monte Carlo settings.
+fn tolerance_fields() -> Vec<Field<Part>> {
+    vec![
+        num(
+            "tolerances.misalignment_rad",
+            "Misalignment",
+            DEGREES,
+            "Standard uncertainty of a grid's direction",
+            |p: &Part| p.tolerances.misalignment_rad,
+            |p, v| p.tolerances.misalignment_rad = v,
+        ),
+        num(
+            "tolerances.position_m",
+            "Position",
+            LENGTH,
+            "Standard uncertainty of a gauge's position",
+            |p: &Part| p.tolerances.position_m,
+            |p, v| p.tolerances.position_m = v,
+        ),
+        num(
+            "tolerances.transverse_sensitivity",
+            "Transverse sensitivity",
+            PERCENT,
+            "Standard uncertainty of Kt",
+            |p: &Part| p.tolerances.transverse_sensitivity,
+            |p, v| p.tolerances.transverse_sensitivity = v,
+        ),
+        num(
+            "tolerances.lead_resistance_fraction",
+            "Lead resistance",
+            PERCENT,
+            "Standard uncertainty of the lead resistance, fraction of it",
+            |p: &Part| p.tolerances.lead_resistance_fraction,
+            |p, v| p.tolerances.lead_resistance_fraction = v,
+        ),
+        num(
+            "tolerances.temperature_c",
+            "Temperature",
+            Unit::Of(Quantity::TemperatureChange),
+            "Standard uncertainty of the part's temperature",
+            |p: &Part| p.tolerances.temperature_c,
+            |p, v| p.tolerances.temperature_c = v,
+        ),
+        whole(
+            "tolerances.monte_carlo_trials",
+            "Monte Carlo trials",
+            (1000, 2_000_000),
+            "Trials of the Monte Carlo check (JCGM 101)",
+            |p: &Part| p.tolerances.monte_carlo_trials as u64,
+            |p, v| p.tolerances.monte_carlo_trials = v as usize,
+        ),
+        whole(
+            "tolerances.seed",
+            "Random seed",
+            (0, u64::MAX),
+            "Seed of the Monte Carlo sampler (same seed, same result)",
+            |p: &Part| p.tolerances.seed,
+            |p, v| p.tolerances.seed = v,
+        ),
+    ]
+}
+
+/// Required resolution and the drawing datum.
+fn requirement_fields() -> Vec<Field<Part>> {
+    vec![
+        num(
+            "required_resolution_strain",
+            "Required resolution",
+            MICROSTRAIN,
+            "Smallest strain change the measurement must resolve",
+            |p: &Part| p.required_resolution_strain,
+            |p, v| p.required_resolution_strain = v,
+        ),
+        num(
+            "datum_m",
+            "Datum x",
+            LENGTH,
+            "Dimension datum on drawings, along the member",
+            |p: &Part| p.datum_m.0,
+            |p, v| p.datum_m.0 = v,
+        ),
+        num(
+            "datum_m",
+            "Datum s",
+            LENGTH,
+            "Dimension datum on drawings, across the face",
+            |p: &Part| p.datum_m.1,
+            |p, v| p.datum_m.1 = v,
+        ),
     ]
 }
 
@@ -1443,70 +1498,77 @@ pub fn gauge_groups(project: &Project, part: &Part, gauge: &PlanGauge) -> Vec<Gr
         },
     )];
     if gauge.lot.is_some() {
-        lot.push(text(
-            "lot.lot_number",
-            "Lot number",
-            "Lot number on the packet",
-            |g: &PlanGauge| {
-                g.lot
-                    .as_ref()
-                    .map(|l| l.lot_number.clone())
-                    .unwrap_or_default()
-            },
-            |g, v| {
-                if let Some(l) = &mut g.lot {
-                    l.lot_number = v
-                }
-            },
-        ));
-        lot.push(lot_num(
-            "lot.resistance_ohm",
-            "Resistance",
-            OHM,
-            "Nominal resistance of the lot",
-            |l| l.resistance_ohm,
-            |l, v| l.resistance_ohm = v,
-        ));
-        lot.push(lot_num(
-            "lot.gauge_factor",
-            "Gauge factor",
-            PLAIN,
-            "Gauge factor of the lot",
-            |l| l.gauge_factor,
-            |l, v| l.gauge_factor = v,
-        ));
-        lot.push(lot_num(
-            "lot.gauge_factor_tolerance",
-            "Gauge-factor tolerance",
-            PERCENT,
-            "± tolerance of the lot's gauge factor",
-            |l| l.gauge_factor_tolerance,
-            |l, v| l.gauge_factor_tolerance = v,
-        ));
-        lot.push(lot_num(
-            "lot.transverse_sensitivity",
-            "Transverse sensitivity",
-            PERCENT,
-            "Kt of the lot",
-            |l| l.transverse_sensitivity,
-            |l, v| l.transverse_sensitivity = v,
-        ));
-        lot.extend(thermal_fields(
-            &[
-                "lot.thermal_output.matched_cte_per_c",
-                "lot.thermal_output.lot_polynomial",
-                "lot.thermal_output.reference_gauge_factor",
-                "lot.thermal_output.valid_range_c",
-            ],
-            lot_thermal,
-            lot_thermal_mut,
-        ));
+        lot.extend(lot_value_fields());
     }
     groups.push(Group {
         title: "Lot",
         fields: lot,
     });
     groups
+}
+
+/// The values of a gauge's own lot (shown while the gauge has one).
+fn lot_value_fields() -> Vec<Field<PlanGauge>> {
+    let mut out = Vec::new();
+    out.push(text(
+        "lot.lot_number",
+        "Lot number",
+        "Lot number on the packet",
+        |g: &PlanGauge| {
+            g.lot
+                .as_ref()
+                .map(|l| l.lot_number.clone())
+                .unwrap_or_default()
+        },
+        |g, v| {
+            if let Some(l) = &mut g.lot {
+                l.lot_number = v
+            }
+        },
+    ));
+    out.push(lot_num(
+        "lot.resistance_ohm",
+        "Resistance",
+        OHM,
+        "Nominal resistance of the lot",
+        |l| l.resistance_ohm,
+        |l, v| l.resistance_ohm = v,
+    ));
+    out.push(lot_num(
+        "lot.gauge_factor",
+        "Gauge factor",
+        PLAIN,
+        "Gauge factor of the lot",
+        |l| l.gauge_factor,
+        |l, v| l.gauge_factor = v,
+    ));
+    out.push(lot_num(
+        "lot.gauge_factor_tolerance",
+        "Gauge-factor tolerance",
+        PERCENT,
+        "± tolerance of the lot's gauge factor",
+        |l| l.gauge_factor_tolerance,
+        |l, v| l.gauge_factor_tolerance = v,
+    ));
+    out.push(lot_num(
+        "lot.transverse_sensitivity",
+        "Transverse sensitivity",
+        PERCENT,
+        "Kt of the lot",
+        |l| l.transverse_sensitivity,
+        |l, v| l.transverse_sensitivity = v,
+    ));
+    out.extend(thermal_fields(
+        &[
+            "lot.thermal_output.matched_cte_per_c",
+            "lot.thermal_output.lot_polynomial",
+            "lot.thermal_output.reference_gauge_factor",
+            "lot.thermal_output.valid_range_c",
+        ],
+        lot_thermal,
+        lot_thermal_mut,
+    ));
+    out
 }
 
 /// What can go in an arm of a bridge on `part`: each grid, a dummy like each gauge's first
@@ -1996,32 +2058,7 @@ pub fn bridge_groups(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<G
         },
         Group {
             title: "Leads",
-            fields: vec![
-                num(
-                    "lead.length_m",
-                    "Lead length",
-                    Unit::Scaled(1.0, "m"),
-                    "Length of each lead wire",
-                    |p: &BridgePlan| p.lead.length_m,
-                    |p, v| p.lead.length_m = v,
-                ),
-                num(
-                    "lead.ohm_per_m",
-                    "Lead resistance",
-                    Unit::Scaled(1.0, "Ω/m"),
-                    "Resistance per metre of one lead",
-                    |p: &BridgePlan| p.lead.ohm_per_m,
-                    |p, v| p.lead.ohm_per_m = v,
-                ),
-                num(
-                    "lead.tcr_per_c",
-                    "Lead drift",
-                    PPM_PER_C,
-                    "Temperature coefficient of the lead resistance (copper about 3900 ppm/°C, from memory)",
-                    |p: &BridgePlan| p.lead.tcr_per_c,
-                    |p, v| p.lead.tcr_per_c = v,
-                ),
-            ],
+            fields: lead_fields(),
         },
         Group {
             title: "Excitation",
@@ -2039,5 +2076,35 @@ pub fn bridge_groups(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<G
             title: "Shunt calibration",
             fields: shunt_fields(plan),
         },
+    ]
+}
+
+/// Length, resistance and drift of the lead wires.
+fn lead_fields() -> Vec<Field<BridgePlan>> {
+    vec![
+        num(
+            "lead.length_m",
+            "Lead length",
+            Unit::Scaled(1.0, "m"),
+            "Length of each lead wire",
+            |p: &BridgePlan| p.lead.length_m,
+            |p, v| p.lead.length_m = v,
+        ),
+        num(
+            "lead.ohm_per_m",
+            "Lead resistance",
+            Unit::Scaled(1.0, "Ω/m"),
+            "Resistance per metre of one lead",
+            |p: &BridgePlan| p.lead.ohm_per_m,
+            |p, v| p.lead.ohm_per_m = v,
+        ),
+        num(
+            "lead.tcr_per_c",
+            "Lead drift",
+            PPM_PER_C,
+            "Temperature coefficient of the lead resistance (copper about 3900 ppm/°C, from memory)",
+            |p: &BridgePlan| p.lead.tcr_per_c,
+            |p, v| p.lead.tcr_per_c = v,
+        ),
     ]
 }
