@@ -493,8 +493,9 @@ fn wiring_diagram(
         "Thick arms: grids at the gauge site; thin: in the instrument.".to_owned(),
         format!("Part: {}", part.name),
     ];
+    // Above the level of arm 3's label, which runs to the right towards this column.
     for (i, s) in lines.iter().enumerate() {
-        w.text_at(x, top + 30.0 + 12.0 * i as f32, 7.5, false, s.clone());
+        w.text_at(x, top + 8.0 + 11.0 * i as f32, 7.5, false, s.clone());
     }
     w.y = top + 185.0;
 }
@@ -672,7 +673,7 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
                 );
             }
             let mut rows = vec![vec![
-                "Between connector pins (gauges and leads, instrument disconnected)".to_owned(),
+                "Pin pair (instrument disconnected)".to_owned(),
                 "Expect".to_owned(),
             ]];
             for (name, r) in &be.pin_resistances {
