@@ -23,7 +23,8 @@ fn harness(tab: Tab) -> Harness<'static, GaugewrightApp> {
 
 fn bench(c: &mut Criterion) {
     for (name, tab) in [
-        ("layout", Tab::Layout),
+        ("part", Tab::Part),
+        ("face", Tab::Face),
         ("bridges", Tab::Bridges),
         ("results", Tab::Results),
     ] {

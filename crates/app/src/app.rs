@@ -4,11 +4,13 @@ use std::path::PathBuf;
 
 use crate::command::Command;
 use crate::panels::bridges::BridgesPanel;
-use crate::panels::canvas::CanvasPanel;
+use crate::panels::face_view::FaceView;
 use crate::panels::findings::FindingsPanel;
 use crate::panels::help::HelpPanel;
 use crate::panels::inspector::InspectorPanel;
+use crate::panels::map::MapSettings;
 use crate::panels::new_project::{NewProjectDialog, NewProjectOutcome};
+use crate::panels::part_view::PartView;
 use crate::panels::plots::PlotsPanel;
 use crate::panels::tree::TreePanel;
 use crate::screenshot::ScreenshotRequest;
@@ -19,8 +21,10 @@ use crate::units::Units;
 /// The central tabs.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Tab {
-    /// The part with its colour map and gauges.
-    Layout,
+    /// The whole part in 3-D: supports, loads, axes, the colour map and the gauges.
+    Part,
+    /// One face to scale, where gauges are placed, moved and turned.
+    Face,
     /// Bridges: schematic, arms, arrangements, suggestions.
     Bridges,
     /// Plots and tables.
@@ -85,7 +89,10 @@ pub struct GaugewrightApp {
     tree: TreePanel,
     inspector: InspectorPanel,
     new_project: NewProjectDialog,
-    canvas: CanvasPanel,
+    /// What the colour maps show (shared by the part and face views).
+    pub map: MapSettings,
+    part_view: PartView,
+    face_view: FaceView,
     bridges: BridgesPanel,
     plots: PlotsPanel,
     findings: FindingsPanel,
@@ -130,13 +137,15 @@ impl GaugewrightApp {
     ) -> Self {
         Self {
             doc,
-            tab: Tab::Layout,
+            tab: Tab::Part,
             modal: None,
             dialogs: FileDialogs::default(),
             tree: TreePanel::default(),
             inspector: InspectorPanel::default(),
             new_project: NewProjectDialog::default(),
-            canvas: CanvasPanel::default(),
+            map: MapSettings::default(),
+            part_view: PartView::default(),
+            face_view: FaceView::default(),
             bridges: BridgesPanel::default(),
             plots: PlotsPanel::default(),
             findings: FindingsPanel,
@@ -146,6 +155,24 @@ impl GaugewrightApp {
             screenshot,
             last_title: String::new(),
             last_autosave_s: 0.0,
+        }
+    }
+
+    /// Selects part `index` (0-based) if the project has it; otherwise says which parts exist.
+    pub fn show_part(&mut self, index: usize) {
+        let count = self.doc.project.parts.len();
+        if index < count {
+            self.doc
+                .apply_all(vec![Command::Focus(gw_plan::edit::Item::Part(index))]);
+        } else {
+            self.doc.notice = Some(Notice {
+                is_error: true,
+                text: format!(
+                    "There is no part {} in this project: it has {count} part{}; showing part 1.",
+                    index + 1,
+                    if count == 1 { "" } else { "s" }
+                ),
+            });
         }
     }
 
@@ -427,9 +454,14 @@ impl GaugewrightApp {
             ui.separator();
             for (t, name, help) in [
                 (
-                    Tab::Layout,
-                    "Layout",
-                    "The part, its colour map and the gauges",
+                    Tab::Part,
+                    "Part",
+                    "The whole part in 3-D with supports, loads, the colour map and the gauges",
+                ),
+                (
+                    Tab::Face,
+                    "Face",
+                    "One face to scale: place, move and turn gauges",
                 ),
                 (
                     Tab::Bridges,
@@ -636,7 +668,18 @@ impl GaugewrightApp {
                 self.inspector.inspector_ui(ui, &self.doc, &mut out);
             });
         egui::CentralPanel::default().show(ui, |ui| match self.tab {
-            Tab::Layout => self.canvas.canvas_ui(ui, &self.doc, &mut out),
+            Tab::Part => {
+                if let Some(face) = self
+                    .part_view
+                    .part_ui(ui, &self.doc, &mut self.map, &mut out)
+                {
+                    self.face_view.show_face(face);
+                    self.tab = Tab::Face;
+                }
+            }
+            Tab::Face => self
+                .face_view
+                .face_ui(ui, &self.doc, &mut self.map, &mut out),
             Tab::Bridges => self.bridges.bridges_ui(ui, &self.doc, &mut out),
             Tab::Results => self.plots.plots_ui(ui, &self.doc),
             Tab::Help => self.help.help_ui(ui, &self.doc),

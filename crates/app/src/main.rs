@@ -18,7 +18,7 @@ use clap::{CommandFactory, FromArgMatches, Parser};
 #[command(
     name = "gaugewright",
     version,
-    override_usage = "gaugewright [--view <VIEW>] [--screenshot <PATH>] [FILE]\n       \
+    override_usage = "gaugewright [--view <VIEW>] [--part <N>] [--screenshot <PATH>] [FILE]\n       \
                       gaugewright <COMMAND>",
     after_help = "Exit status of the subcommands: 0 when nothing fails, 1 when a margin fails or \
                   something could not be computed, 2 when the project file is broken or an \
@@ -43,8 +43,11 @@ struct Cli {
     #[arg(long, value_name = "PATH")]
     screenshot: Option<PathBuf>,
     /// Which view to show first.
-    #[arg(long, value_name = "VIEW", value_enum, default_value_t = View::Layout)]
+    #[arg(long, value_name = "VIEW", value_enum, default_value_t = View::Part)]
     view: View,
+    /// Which part to show first, counted from 1 in the plan tree's order.
+    #[arg(long, value_name = "N", value_parser = clap::value_parser!(u32).range(1..))]
+    part: Option<u32>,
     #[command(subcommand)]
     command: Option<Command>,
 }
@@ -70,8 +73,11 @@ fn project_file(path: PathBuf) -> Result<PathBuf, String> {
 /// The views `--view` can open on. Each maps to one tab of the app.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
 enum View {
-    /// The part with its colour map and gauges.
-    Layout,
+    /// The whole part in 3-D with supports, loads, the colour map and the gauges.
+    Part,
+    /// One face to scale, where gauges are placed (also accepted as `layout`).
+    #[value(alias = "layout")]
+    Face,
     /// Bridges: schematic, arms, arrangements, suggestions.
     Bridges,
     /// Plots and tables.
@@ -83,7 +89,8 @@ enum View {
 impl View {
     fn tab(self) -> Tab {
         match self {
-            View::Layout => Tab::Layout,
+            View::Part => Tab::Part,
+            View::Face => Tab::Face,
             View::Bridges => Tab::Bridges,
             View::Results => Tab::Results,
             View::Help => Tab::Help,
@@ -189,6 +196,7 @@ fn parse() -> Cli {
         for (id, shown) in [
             ("file", "a project FILE"),
             ("view", "--view"),
+            ("part", "--part"),
             ("screenshot", "--screenshot"),
         ] {
             if matches.value_source(id) == Some(ValueSource::CommandLine) {
@@ -235,6 +243,7 @@ fn main() -> ExitCode {
         ..Default::default()
     };
     let tab = cli.view.tab();
+    let part = cli.part.map(|n| n as usize - 1);
     let file = cli.file;
     let screenshot = cli.screenshot.map(screenshot::ScreenshotRequest::new);
     let outcome = screenshot.as_ref().map(|r| r.outcome());
@@ -252,6 +261,9 @@ fn main() -> ExitCode {
                 app.open_path(path);
             }
             app.tab = tab;
+            if let Some(part) = part {
+                app.show_part(part);
+            }
             Ok(Box::new(app))
         }),
     );

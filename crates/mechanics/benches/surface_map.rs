@@ -69,6 +69,7 @@ fn bench(c: &mut Criterion) {
                     face,
                     black_box(&loads),
                     SurfaceQuantity::StrainAlong(0.3),
+                    StrainBasis::Mechanical,
                     256,
                     128,
                 )

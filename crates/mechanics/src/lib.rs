@@ -32,6 +32,7 @@ pub mod section;
 mod section_resultants;
 pub mod shaft;
 pub mod surface;
+pub mod surface_geometry;
 pub mod surface_map;
 pub mod surface_state;
 pub mod thick_cylinder;
@@ -52,7 +53,10 @@ pub use section::Section;
 pub use section_resultants::Resultants;
 pub use shaft::Shaft;
 pub use surface::{Face, FaceExtent, SurfacePoint};
-pub use surface_map::{Sampling, SurfaceMap, SurfaceQuantity, sample_face, surface_map};
+pub use surface_geometry::SurfaceFrame;
+pub use surface_map::{
+    Sampling, StrainBasis, SurfaceMap, SurfaceQuantity, quantity_of, sample_face, surface_map,
+};
 pub use surface_state::{Principal, SurfaceState, SurfaceStrain, SurfaceStress};
 pub use thick_cylinder::ThickCylinder;
 pub use thin_cylinder::{ThinCylinder, VesselEnds};

@@ -199,7 +199,7 @@ impl Member {
     /// `n × n` grid of nodes (edges included) on every face, plus the hole edge of a plate, Pa,
     /// and where it occurs.
     pub fn peak_von_mises(&self, loads: &LoadVector, n: usize) -> Result<(f64, SurfacePoint)> {
-        use crate::surface_map::{Sampling, SurfaceQuantity, sample_face};
+        use crate::surface_map::{Sampling, StrainBasis, SurfaceQuantity, sample_face};
         let n = n.max(2);
         let material = self.material();
         let mut best: Option<(f64, SurfacePoint)> = None;
@@ -213,9 +213,8 @@ impl Member {
                 self,
                 f.face,
                 loads,
-                SurfaceQuantity::VonMisesStress,
-                n,
-                n,
+                (SurfaceQuantity::VonMisesStress, StrainBasis::Mechanical),
+                (n, n),
                 Sampling::NodesWithEdges,
             )?;
             for (j, s) in map.s_m.iter().enumerate() {

@@ -22,6 +22,20 @@ pub enum SurfaceQuantity {
     VonMisesStress,
 }
 
+/// Which strain a strain quantity counts. Default: [`StrainBasis::Mechanical`].
+///
+/// A free thermal expansion α·ΔT stretches the part without stress; counting it hides the
+/// load's own pattern (a shaft's neutral axis, a vessel's hoop-to-axial ratio) under one
+/// uniform shift, so maps show the mechanical strain unless asked otherwise.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+pub enum StrainBasis {
+    /// Total minus free thermal strain: the part of the strain that carries stress.
+    #[default]
+    Mechanical,
+    /// Total strain, free thermal expansion included.
+    WithFreeThermal,
+}
+
 /// Values on a regular `nx × ns` grid of a face; `None` where the point is off the part
 /// (inside a hole). Row-major: `values[j * nx + i]` is at `x[i]`, `s[j]`.
 #[derive(Debug, Clone, PartialEq)]
@@ -64,20 +78,47 @@ pub fn surface_map(
     face: Face,
     loads: &LoadVector,
     quantity: SurfaceQuantity,
+    basis: StrainBasis,
     nx: usize,
     ns: usize,
 ) -> Result<SurfaceMap> {
-    sample_face(member, face, loads, quantity, nx, ns, Sampling::CellCentres)
+    sample_face(
+        member,
+        face,
+        loads,
+        (quantity, basis),
+        (nx, ns),
+        Sampling::CellCentres,
+    )
 }
 
-/// Samples `quantity` over `face` with the chosen sampling.
+/// One surface quantity of a state, on the chosen strain basis; `None` when not finite.
+pub fn quantity_of(
+    state: &SurfaceState,
+    material: &crate::Material,
+    quantity: SurfaceQuantity,
+    basis: StrainBasis,
+) -> Option<f64> {
+    let strain = match basis {
+        StrainBasis::Mechanical => state.mechanical_strain(),
+        StrainBasis::WithFreeThermal => state.strain,
+    };
+    let v = match quantity {
+        SurfaceQuantity::StrainAlong(angle) => strain.along(angle),
+        SurfaceQuantity::MaxPrincipalStrain => strain.principal().max,
+        SurfaceQuantity::MinPrincipalStrain => strain.principal().min,
+        SurfaceQuantity::VonMisesStress => state.von_mises_pa(material),
+    };
+    v.is_finite().then_some(v)
+}
+
+/// Samples `quantity` on `basis` over `face` on an `nx × ns` grid with the chosen sampling.
 pub fn sample_face(
     member: &Member,
     face: Face,
     loads: &LoadVector,
-    quantity: SurfaceQuantity,
-    nx: usize,
-    ns: usize,
+    (quantity, basis): (SurfaceQuantity, StrainBasis),
+    (nx, ns): (usize, usize),
     sampling: Sampling,
 ) -> Result<SurfaceMap> {
     if let Some((c, value)) = loads.first_non_finite() {
@@ -113,15 +154,19 @@ pub fn sample_face(
         _ => (0.0, 1.0),
     };
     let value_of = |state: &SurfaceState| -> Option<f64> {
+        let strain = match basis {
+            StrainBasis::Mechanical => state.mechanical_strain(),
+            StrainBasis::WithFreeThermal => state.strain,
+        };
         let v = match quantity {
             SurfaceQuantity::StrainAlong(_) => {
-                let e = &state.strain;
+                let e = &strain;
                 e.normal_x * (1.0 + c2) / 2.0
                     + e.normal_y * (1.0 - c2) / 2.0
                     + e.shear_xy * s2 / 2.0
             }
-            SurfaceQuantity::MaxPrincipalStrain => state.strain.principal().max,
-            SurfaceQuantity::MinPrincipalStrain => state.strain.principal().min,
+            SurfaceQuantity::MaxPrincipalStrain => strain.principal().max,
+            SurfaceQuantity::MinPrincipalStrain => strain.principal().min,
             SurfaceQuantity::VonMisesStress => state.von_mises_pa(material),
         };
         v.is_finite().then_some(v)
@@ -217,6 +262,7 @@ mod tests {
                 face,
                 &loads,
                 SurfaceQuantity::StrainAlong(angle),
+                StrainBasis::WithFreeThermal,
                 16,
                 8,
             )
@@ -233,5 +279,57 @@ mod tests {
                 }
             }
         }
+    }
+
+    #[test]
+    fn mechanical_map_leaves_out_free_expansion() {
+        // A free, uniform temperature change stretches the part without stress (Timoshenko &
+        // Goodier, Theory of Elasticity, §150: a free body uniformly heated is stress-free), so
+        // the mechanical strain of a shaft in bending is zero on its neutral axis whatever ΔT,
+        // and a heated, unpressurised vessel shows no mechanical strain at all.
+        let shaft = Member::Shaft(Shaft::new(0.05, 0.0, 0.3, steel()).unwrap());
+        let loads = LoadVector::from_pairs(&[
+            (LoadComponent::BendingMomentY, 400.0),
+            (LoadComponent::TemperatureChange, 30.0),
+        ]);
+        let map = |basis| {
+            surface_map(
+                &shaft,
+                Face::Round,
+                &loads,
+                SurfaceQuantity::StrainAlong(0.0),
+                basis,
+                4,
+                4,
+            )
+            .unwrap()
+        };
+        // Cell centres of 4 rows over ±π r sit at ±π r/4 and ±3π r/4: use the exact neutral
+        // axis by a pointwise state instead.
+        let r = 0.025;
+        let p = SurfacePoint::on_round(0.1, std::f64::consts::FRAC_PI_2, r);
+        let st = shaft.state(&p, &loads).unwrap();
+        assert!(st.mechanical_strain().normal_x.abs() < 1e-15);
+        assert!((st.strain.normal_x - 12e-6 * 30.0).abs() < 1e-15);
+        let mech = map(StrainBasis::Mechanical);
+        let total = map(StrainBasis::WithFreeThermal);
+        for (m, t) in mech.values.iter().zip(&total.values) {
+            assert!((t.unwrap() - m.unwrap() - 12e-6 * 30.0).abs() < 1e-15);
+        }
+        let vessel = Member::ThinCylinder(
+            crate::ThinCylinder::new(0.2, 0.004, 0.5, crate::VesselEnds::Closed, steel()).unwrap(),
+        );
+        let heat = LoadVector::from_pairs(&[(LoadComponent::TemperatureChange, 40.0)]);
+        let m = surface_map(
+            &vessel,
+            Face::Round,
+            &heat,
+            SurfaceQuantity::MaxPrincipalStrain,
+            StrainBasis::Mechanical,
+            3,
+            3,
+        )
+        .unwrap();
+        assert!(m.values.iter().all(|v| v.unwrap().abs() < 1e-18));
     }
 }

@@ -17,6 +17,7 @@ pub mod channel_list;
 pub mod cli;
 pub mod demo;
 pub mod document;
+pub mod drawing;
 pub mod edit;
 pub mod evaluate;
 pub mod io;

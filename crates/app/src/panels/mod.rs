@@ -1,13 +1,15 @@
 //! The panels. Each holds only view state and emits [`crate::command::Command`]s.
 
 pub mod bridges;
-pub mod canvas;
+pub mod face_view;
 pub mod fields;
 pub mod findings;
 pub mod help;
 pub mod inspector;
 pub mod item_fields;
+pub mod map;
 pub mod new_project;
+pub mod part_view;
 pub mod plots;
 pub mod tree;
 

@@ -4,61 +4,21 @@
 
 use egui::{Color32, Pos2, Rect, Sense, Stroke, TextureHandle, Vec2, pos2, vec2};
 use gw_bridge::GaugePattern;
-use gw_mechanics::{Face, SurfacePoint, SurfaceQuantity, surface_map};
+use gw_mechanics::{Face, SurfacePoint, surface_map};
 
+use super::map::MapSettings;
 use super::palette;
 use crate::command::Command;
 use crate::state::{DocumentState, Selection};
-use crate::units::{Quantity, microstrain};
-
-/// Which quantity the colour map shows.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum MapQuantity {
-    /// Strain along the member axis (local x).
-    StrainAlongAxis,
-    /// Strain across (local y: hoop on round parts).
-    StrainAcross,
-    /// Larger principal strain.
-    MaxPrincipal,
-    /// Von Mises stress.
-    VonMises,
-}
-
-impl MapQuantity {
-    const ALL: [MapQuantity; 4] = [
-        MapQuantity::StrainAlongAxis,
-        MapQuantity::StrainAcross,
-        MapQuantity::MaxPrincipal,
-        MapQuantity::VonMises,
-    ];
-
-    fn name(self) -> &'static str {
-        match self {
-            MapQuantity::StrainAlongAxis => "Strain along the axis",
-            MapQuantity::StrainAcross => "Strain across (hoop on round parts)",
-            MapQuantity::MaxPrincipal => "Larger principal strain",
-            MapQuantity::VonMises => "Von Mises stress",
-        }
-    }
-
-    fn surface(self) -> SurfaceQuantity {
-        match self {
-            MapQuantity::StrainAlongAxis => SurfaceQuantity::StrainAlong(0.0),
-            MapQuantity::StrainAcross => SurfaceQuantity::StrainAlong(std::f64::consts::FRAC_PI_2),
-            MapQuantity::MaxPrincipal => SurfaceQuantity::MaxPrincipalStrain,
-            MapQuantity::VonMises => SurfaceQuantity::VonMisesStress,
-        }
-    }
-}
+use crate::units::Quantity;
 
 /// The colour-map texture with what it was made for: evaluation count, face, quantity,
 /// selection, and the value range.
-type MapTexture = (u64, Face, MapQuantity, Selection, TextureHandle, (f64, f64));
+type MapTexture = (u64, Face, MapSettings, Selection, TextureHandle, (f64, f64));
 
-/// View state of the canvas.
-pub struct CanvasPanel {
+/// View state of the face view.
+pub struct FaceView {
     face: Option<Face>,
-    quantity: MapQuantity,
     zoom: f32,
     pattern: GaugePattern,
     texture: Option<MapTexture>,
@@ -67,11 +27,10 @@ pub struct CanvasPanel {
     followed: Option<(usize, usize)>,
 }
 
-impl Default for CanvasPanel {
+impl Default for FaceView {
     fn default() -> Self {
         Self {
             face: None,
-            quantity: MapQuantity::StrainAlongAxis,
             zoom: 1.0,
             pattern: GaugePattern::SingleGrid,
             texture: None,
@@ -84,35 +43,22 @@ impl Default for CanvasPanel {
 const MAP_NX: usize = 192;
 const MAP_NS: usize = 96;
 
-/// Our diverging colour scale: deep blue for compression through a pale neutral to deep
-/// amber for tension.
-fn diverging(t: f64) -> Color32 {
-    let t = t.clamp(-1.0, 1.0) as f32;
-    let neutral = [235.0, 235.0, 228.0];
-    let (end, k) = if t < 0.0 {
-        ([40.0, 90.0, 170.0], -t)
-    } else {
-        ([200.0, 110.0, 30.0], t)
-    };
-    let mix = |i: usize| (neutral[i] + (end[i] - neutral[i]) * k) as u8;
-    Color32::from_rgb(mix(0), mix(1), mix(2))
-}
+impl FaceView {
+    /// Shows `face` next time the view draws.
+    pub fn show_face(&mut self, face: Face) {
+        self.face = Some(face);
+    }
 
-/// Our sequential scale for stress: pale to deep plum.
-fn sequential(t: f64) -> Color32 {
-    let t = t.clamp(0.0, 1.0) as f32;
-    let a = [240.0, 238.0, 230.0];
-    let b = [110.0, 40.0, 90.0];
-    let mix = |i: usize| (a[i] + (b[i] - a[i]) * t) as u8;
-    Color32::from_rgb(mix(0), mix(1), mix(2))
-}
-
-impl CanvasPanel {
-    /// Draws the canvas.
-    pub fn canvas_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
+    /// Draws the face view.
+    pub fn face_ui(
+        &mut self,
+        ui: &mut egui::Ui,
+        doc: &DocumentState,
+        quantity: &mut MapSettings,
+        out: &mut Vec<Command>,
+    ) {
         let Self {
             face,
-            quantity,
             zoom,
             pattern,
             texture,
@@ -151,17 +97,7 @@ impl CanvasPanel {
                 .response
                 .labelled_by(label)
                 .on_hover_text("Which face of the part to show; round faces are unrolled");
-            let label = ui.label("Map").id;
-            egui::ComboBox::from_id_salt("canvas map")
-                .selected_text(quantity.name())
-                .show_ui(ui, |ui| {
-                    for q in MapQuantity::ALL {
-                        ui.selectable_value(quantity, q, q.name());
-                    }
-                })
-                .response
-                .labelled_by(label)
-                .on_hover_text("Surface quantity shown as colour, under the selected load case");
+            quantity.controls_ui(ui, false);
             let label = ui.label("Zoom").id;
             ui.add(egui::Slider::new(zoom, 0.5..=40.0).logarithmic(true))
                 .labelled_by(label)
@@ -246,21 +182,25 @@ impl CanvasPanel {
                 && s.case == sel.case
         });
         if !key_ok
-            && let Ok(map) =
-                surface_map(member, current, &loads, quantity.surface(), MAP_NX, MAP_NS)
+            && let Ok(map) = surface_map(
+                member,
+                current,
+                &loads,
+                quantity.surface(),
+                quantity.basis,
+                MAP_NX,
+                MAP_NS,
+            )
         {
             let (lo, hi) = map.range().unwrap_or((0.0, 0.0));
-            let span = lo.abs().max(hi.abs()).max(1e-300);
+            let range = quantity.scale_range((lo, hi));
             let mut pixels = Vec::with_capacity(MAP_NX * MAP_NS);
             // Image rows run top to bottom; s increases upward.
             for j in (0..MAP_NS).rev() {
                 for i in 0..MAP_NX {
                     pixels.push(match map.values[j * MAP_NX + i] {
                         None => Color32::from_gray(40),
-                        Some(v) if *quantity == MapQuantity::VonMises => {
-                            sequential(v / hi.max(1e-300))
-                        }
-                        Some(v) => diverging(v / span),
+                        Some(v) => quantity.colour(v, range),
                     });
                 }
             }
@@ -427,15 +367,15 @@ impl CanvasPanel {
                 let (x, s) = to_world(h);
                 if face_rect.contains(h) {
                     let p = SurfacePoint::new(current, x, s);
-                    if let Ok(st) = member.state(&p, &loads) {
-                        let value = match quantity {
-                            MapQuantity::VonMises => {
-                                units.format_stress(st.von_mises_pa(member.material()))
-                            }
-                            MapQuantity::StrainAlongAxis => microstrain(st.strain.normal_x),
-                            MapQuantity::StrainAcross => microstrain(st.strain.normal_y),
-                            MapQuantity::MaxPrincipal => microstrain(st.strain.principal().max),
-                        };
+                    if let Ok(st) = member.state(&p, &loads)
+                        && let Some(v) = gw_mechanics::quantity_of(
+                            &st,
+                            member.material(),
+                            quantity.surface(),
+                            quantity.basis,
+                        )
+                    {
+                        let value = quantity.format(v, units);
                         painter.text(
                             h + vec2(14.0, 14.0),
                             egui::Align2::LEFT_TOP,
@@ -453,43 +393,8 @@ impl CanvasPanel {
             }
         });
         // Legend.
-        if let Some((_, _, q, _, _, (lo, hi))) = texture.as_ref() {
-            ui.horizontal(|ui| {
-                ui.label("Legend:");
-                let (rect, _) = ui.allocate_exact_size(Vec2::new(200.0, 14.0), Sense::hover());
-                let painter = ui.painter();
-                let n = 40;
-                for k in 0..n {
-                    let t = k as f64 / (n - 1) as f64;
-                    let c = if *q == MapQuantity::VonMises {
-                        sequential(t)
-                    } else {
-                        diverging(2.0 * t - 1.0)
-                    };
-                    let x = rect.left() + rect.width() * k as f32 / n as f32;
-                    painter.rect_filled(
-                        Rect::from_min_size(
-                            pos2(x, rect.top()),
-                            vec2(rect.width() / n as f32 + 1.0, rect.height()),
-                        ),
-                        0.0,
-                        c,
-                    );
-                }
-                let span = lo.abs().max(hi.abs());
-                let text = if *q == MapQuantity::VonMises {
-                    format!("0 … {}", units.format_stress(*hi))
-                } else {
-                    format!(
-                        "{} … {} (range on face {} to {})",
-                        microstrain(-span),
-                        microstrain(span),
-                        microstrain(*lo),
-                        microstrain(*hi)
-                    )
-                };
-                ui.label(text);
-            });
+        if let Some((_, _, q, _, _, found)) = texture.as_ref() {
+            q.legend_ui(ui, *found, units);
         }
         if let Some(g) = sel.gauge.and_then(|g| part.gauges.get(g)) {
             let (dx, ds) = part.datum_m;

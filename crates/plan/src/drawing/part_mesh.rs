@@ -1,0 +1,1 @@
+//! The part as a triangle mesh in space (filled in below).
