@@ -3,4 +3,5 @@
 //! scale. Pure geometry: no egui, no PDF.
 
 pub mod contour;
+pub mod load_glyphs;
 pub mod part_mesh;
