@@ -3,5 +3,7 @@
 //! scale. Pure geometry: no egui, no PDF.
 
 pub mod contour;
+pub mod face_layout;
 pub mod load_glyphs;
 pub mod part_mesh;
+pub mod probe;
