@@ -1,0 +1,130 @@
+//! Under the canvas: what the cursor is over (the map value, and what a grid of the chosen
+//! pattern would read there, averaged over its area), the legend, and the selected gauge.
+
+use egui::{Label, RichText};
+use gw_bridge::GaugePattern;
+use gw_mechanics::{SurfacePoint, quantity_of};
+use gw_plan::drawing::face_layout::normalised_deg;
+use gw_plan::drawing::probe::{probe_readings, probe_spec};
+
+use super::{FaceView, Scene, View};
+use crate::panels::map::MapSettings;
+use crate::units::microstrain;
+
+impl FaceView {
+    /// The two readout lines, the legend and the selection line, each on one line that is
+    /// cut short rather than wrapped or run out of the panel.
+    pub(super) fn readout_ui(
+        &self,
+        ui: &mut egui::Ui,
+        scene: &Scene,
+        settings: &MapSettings,
+        view: View,
+        response: &egui::Response,
+    ) {
+        let face_rect = view.face_rect(&scene.bounds).intersect(view.area);
+        // Over the canvas or over a gauge on it.
+        let over_canvas = response.contains_pointer() || response.hovered();
+        let hover = ui
+            .input(|i| i.pointer.hover_pos())
+            .filter(|p| over_canvas && face_rect.contains(*p))
+            .map(|p| view.face_point(p));
+        let (first, second) = match hover {
+            Some((x, s)) => self.readout_lines(scene, settings, x, s),
+            None => (
+                "Point at the face to read the map and what a grid would read there.".to_owned(),
+                String::new(),
+            ),
+        };
+        ui.add(Label::new(first).truncate());
+        ui.add(Label::new(RichText::new(second)).truncate());
+        if let Some(layer) = &self.map {
+            settings.legend_ui(ui, layer.found, scene.units);
+        }
+        let line = self.selection_line(scene);
+        ui.add(Label::new(line).truncate());
+    }
+
+    /// Where the cursor is with the map value, and what a grid would read there.
+    fn readout_lines(
+        &self,
+        scene: &Scene,
+        settings: &MapSettings,
+        x: f64,
+        s: f64,
+    ) -> (String, String) {
+        let member = &scene.part.member;
+        let Ok(point) = member.locate(&SurfacePoint::new(scene.face, x, s)) else {
+            return ("Off the part.".to_owned(), String::new());
+        };
+        let place = match scene.radius_m() {
+            Some(r) => format!(
+                "x {}, {:.1}° from the top line (arc {})",
+                scene.length(point.x_m),
+                normalised_deg((point.s_m / r).to_degrees()),
+                scene.length(point.s_m)
+            ),
+            None => format!(
+                "x {}, s {}",
+                scene.length(point.x_m),
+                scene.length(point.s_m)
+            ),
+        };
+        let value = member
+            .state(&point, &scene.loads)
+            .ok()
+            .and_then(|st| quantity_of(&st, member.material(), settings.surface(), settings.basis))
+            .map_or_else(
+                || "no value".to_owned(),
+                |v| settings.format(v, scene.units),
+            );
+        let first = format!(
+            "{place}: {} {value}",
+            settings.quantity.name().to_lowercase()
+        );
+        let spec = probe_spec(&scene.doc.project, self.pattern);
+        let second = match probe_readings(member, &scene.loads, &spec, point, 0.0, settings.basis) {
+            Some(r) if self.pattern == GaugePattern::SingleGrid => format!(
+                "A {} mm single grid along the axis here reads {} (averaged over its grid)",
+                trim(spec.grid_length_m * 1e3),
+                r.first()
+                    .map_or_else(String::new, |g| microstrain(g.strain))
+            ),
+            Some(r) => {
+                let parts: Vec<String> = r
+                    .iter()
+                    .map(|g| format!("{:.0}°: {}", g.angle_deg, microstrain(g.strain)))
+                    .collect();
+                format!(
+                    "A {} here, reference along the axis, reads {} (grid averages)",
+                    self.pattern.name(),
+                    parts.join(", ")
+                )
+            }
+            None => format!("A {} does not fit on the face here.", self.pattern.name()),
+        };
+        (first, second)
+    }
+
+    /// The selected gauge, from the datum.
+    fn selection_line(&self, scene: &Scene) -> String {
+        let Some(g) = scene.sel.gauge.and_then(|g| scene.part.gauges.get(g)) else {
+            return "No gauge selected: click one, or add one with the chosen pattern.".to_owned();
+        };
+        let (dx, ds) = scene.part.datum_m;
+        format!(
+            "{} on the {}: {} along, {} across from the datum, grid at {:.1}°",
+            g.id,
+            g.position.face.name(),
+            scene.length(g.position.x_m - dx),
+            scene.length(g.position.s_m - ds),
+            g.angle_rad.to_degrees()
+        )
+    }
+}
+
+/// "3", "1.5": a short number.
+fn trim(v: f64) -> String {
+    let s = format!("{v:.2}");
+    s.trim_end_matches('0').trim_end_matches('.').to_owned()
+}
