@@ -125,6 +125,7 @@ fn changing_a_load_changes_the_displayed_output_by_the_amount_the_plan_predicts(
 #[test]
 fn add_move_and_rotate_a_gauge() {
     let mut h = harness();
+    open_view(&mut h, "Face");
     let before = h.state().doc.project.parts[0].gauges.len();
     h.get_by_label("Add gauge").click();
     h.run();
@@ -366,6 +367,7 @@ fn the_delete_key_asks_before_deleting_a_gauge() {
 #[test]
 fn selecting_a_gauge_in_the_tree_shows_its_face_in_the_layout() {
     let mut h = harness();
+    open_view(&mut h, "Face");
     // The layout opens on the top face: A2 (bottom face) is not drawn.
     assert!(
         h.query_by_role_and_label(Role::Button, "Gauge A2")

@@ -172,8 +172,10 @@ impl MapSettings {
         let range = self.scale_range(found);
         ui.horizontal(|ui| {
             ui.label(self.quantity.name());
-            let (rect, _) = ui.allocate_exact_size(vec2(240.0, 30.0), Sense::hover());
-            let bar = Rect::from_min_size(rect.min, vec2(rect.width(), 12.0));
+            // Room beyond the bar for half of its last tick label, so that label never runs
+            // into the text after the legend.
+            let (rect, _) = ui.allocate_exact_size(vec2(240.0 + 24.0, 30.0), Sense::hover());
+            let bar = Rect::from_min_size(rect.min, vec2(240.0, 12.0));
             let painter = ui.painter();
             let n = 60;
             for k in 0..n {
@@ -202,7 +204,7 @@ impl MapSettings {
                 let label = tick_label(*t, self.is_stress(), units);
                 let galley = painter.layout_no_wrap(label, font.clone(), text);
                 let left = x - galley.size().x / 2.0;
-                if left > last_right + 4.0 && x + galley.size().x / 2.0 <= rect.right() + 30.0 {
+                if left > last_right + 4.0 && x + galley.size().x / 2.0 <= rect.right() {
                     last_right = left + galley.size().x;
                     painter.galley(pos2(left, bar.bottom() + 3.0), galley, text);
                 }
