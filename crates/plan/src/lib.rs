@@ -20,6 +20,7 @@ pub mod document;
 pub mod drawing;
 pub mod edit;
 pub mod evaluate;
+pub mod gallery;
 pub mod io;
 pub mod migrate;
 pub mod placement;

@@ -35,8 +35,22 @@ pub struct PartMesh {
     pub triangles: Vec<[u32; 3]>,
     /// What each triangle belongs to.
     pub regions: Vec<Region>,
-    /// Edges of each patch (face outlines, section corners) as closed vertex loops.
-    pub outlines: Vec<Vec<u32>>,
+    /// Feature edges (face outlines, section corners, end rings) as vertex polylines, with
+    /// the region each belongs to.
+    pub edges: Vec<(Region, Vec<u32>)>,
+}
+
+/// Which borders of a patch are edges of the part.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Edges {
+    /// The whole border (a flat face).
+    Loop,
+    /// The first and last rows of nodes (rings of an end face or a hole).
+    Rows,
+    /// The first and last columns (the end rings of a round face).
+    Columns,
+    /// None (a closed surface such as a sphere).
+    Neither,
 }
 
 /// Divisions of the gaugeable faces. The mesh has about `2 × along × around` triangles on a
@@ -129,9 +143,9 @@ impl PartMesh {
     /// A patch of `us × vs` nodes; `at(u, v)` gives position, normal and surface point.
     fn patch(
         &mut self,
-        us: &[f64],
-        vs: &[f64],
+        (us, vs): (&[f64], &[f64]),
         region: Region,
+        edges: Edges,
         at: impl Fn(f64, f64) -> ([f64; 3], [f64; 3], Option<SurfacePoint>),
     ) {
         let base = self.positions.len() as u32;
@@ -149,22 +163,50 @@ impl PartMesh {
             self.regions.push(region);
         }
         let idx = |i: usize, j: usize| base + (j * nu + i) as u32;
-        let mut outline: Vec<u32> = (0..nu).map(|i| idx(i, 0)).collect();
-        outline.extend((1..nv).map(|j| idx(nu - 1, j)));
-        outline.extend((0..nu - 1).rev().map(|i| idx(i, nv - 1)));
-        outline.extend((1..nv - 1).rev().map(|j| idx(0, j)));
-        self.outlines.push(outline);
+        let row = |j: usize| (0..nu).map(|i| idx(i, j)).collect::<Vec<u32>>();
+        let column = |i: usize| (0..nv).map(|j| idx(i, j)).collect::<Vec<u32>>();
+        let lines = match edges {
+            Edges::Loop => {
+                let mut outline = row(0);
+                outline.extend((1..nv).map(|j| idx(nu - 1, j)));
+                outline.extend((0..nu - 1).rev().map(|i| idx(i, nv - 1)));
+                outline.extend((0..nv - 1).rev().map(|j| idx(0, j)));
+                vec![outline]
+            }
+            Edges::Rows => vec![row(0), row(nv - 1)],
+            Edges::Columns => vec![column(0), column(nu - 1)],
+            Edges::Neither => Vec::new(),
+        };
+        self.edges.extend(lines.into_iter().map(|l| (region, l)));
     }
 
     /// A flat quad from corner `a` spanned by `du` and `dv`.
     fn quad(&mut self, a: [f64; 3], du: [f64; 3], dv: [f64; 3], normal: [f64; 3], region: Region) {
-        self.patch(&[0.0, 1.0], &[0.0, 1.0], region, |u, v| {
-            (
-                std::array::from_fn(|k| a[k] + u * du[k] + v * dv[k]),
-                normal,
-                None,
-            )
-        });
+        self.strip(a, (du, dv), normal, region, 1);
+    }
+
+    /// A flat quad cut into `n` strips along `du`. Long body faces are cut so that sorting
+    /// triangles by depth sees them where they are, not at one far-away centre.
+    fn strip(
+        &mut self,
+        a: [f64; 3],
+        (du, dv): ([f64; 3], [f64; 3]),
+        normal: [f64; 3],
+        region: Region,
+        n: usize,
+    ) {
+        self.patch(
+            (&nodes((0.0, 1.0), n), &[0.0, 1.0]),
+            region,
+            Edges::Loop,
+            |u, v| {
+                (
+                    std::array::from_fn(|k| a[k] + u * du[k] + v * dv[k]),
+                    normal,
+                    None,
+                )
+            },
+        );
     }
 
     /// A gaugeable face, finely divided.
@@ -181,7 +223,12 @@ impl PartMesh {
         };
         let xs = nodes(xr, along);
         let ss = nodes(sr, across);
-        self.patch(&xs, &ss, Region::Face(face), |x, s| {
+        let edges = match member {
+            Member::ThinSphere(_) => Edges::Neither,
+            _ if face == Face::Round => Edges::Columns,
+            _ => Edges::Loop,
+        };
+        self.patch((&xs, &ss), Region::Face(face), edges, |x, s| {
             let p = SurfacePoint::new(face, x, s);
             let f = member.surface_frame(&p);
             let (pos, n) = f.map_or(([x, s, 0.0], [0.0, 0.0, 1.0]), |f| (f.position, f.normal));
@@ -206,10 +253,11 @@ impl PartMesh {
         let d = [hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2]];
         let (ex, ey, ez) = ([d[0], 0.0, 0.0], [0.0, d[1], 0.0], [0.0, 0.0, d[2]]);
         let body = Region::Body;
-        self.quad(lo, ey, ez, [-1.0, 0.0, 0.0], body);
-        self.quad([hi[0], lo[1], lo[2]], ey, ez, [1.0, 0.0, 0.0], body);
-        self.quad(lo, ex, ez, [0.0, -1.0, 0.0], body);
-        self.quad([lo[0], hi[1], lo[2]], ex, ez, [0.0, 1.0, 0.0], body);
+        let n = ALONG / 6;
+        self.strip(lo, (ey, ez), [-1.0, 0.0, 0.0], body, n);
+        self.strip([hi[0], lo[1], lo[2]], (ey, ez), [1.0, 0.0, 0.0], body, n);
+        self.strip(lo, (ex, ez), [0.0, -1.0, 0.0], body, n);
+        self.strip([lo[0], hi[1], lo[2]], (ex, ez), [0.0, 1.0, 0.0], body, n);
         if bottom {
             self.quad(lo, ex, ey, [0.0, 0.0, -1.0], body);
         }
@@ -233,7 +281,7 @@ impl PartMesh {
                 }
             }
             for (a, dv, n) in hidden_sides(&beam.section) {
-                self.quad(a, [l, 0.0, 0.0], dv, n, Region::Body);
+                self.strip(a, ([l, 0.0, 0.0], dv), n, Region::Body, ALONG / 4);
             }
         }
         let (w, h) = (beam.section.width_m(), beam.section.height_m());
@@ -288,11 +336,16 @@ impl PartMesh {
         );
         for (y, n) in [(-hw, -1.0), (hw, 1.0)] {
             // A triangle as a quad with two corners together.
-            self.patch(&[0.0, 1.0], &[0.0, 1.0], Region::Fixture, |u, v| {
-                let base = [x - half + 2.0 * half * u, y, zb];
-                let p = [base[0] + v * (x - base[0]), y, zb + v * size];
-                (p, [0.0, n, 0.0], None)
-            });
+            self.patch(
+                (&[0.0, 1.0], &[0.0, 1.0]),
+                Region::Fixture,
+                Edges::Loop,
+                |u, v| {
+                    let base = [x - half + 2.0 * half * u, y, zb];
+                    let p = [base[0] + v * (x - base[0]), y, zb + v * size];
+                    (p, [0.0, n, 0.0], None)
+                },
+            );
         }
     }
 
@@ -301,15 +354,20 @@ impl PartMesh {
         let angles = nodes((0.0, std::f64::consts::TAU), AROUND);
         let radii = [ri, ro];
         for (x, n) in [(0.0, -1.0), (length_m, 1.0)] {
-            self.patch(&angles, &radii, Region::Body, |t, r| {
+            self.patch((&angles, &radii), Region::Body, Edges::Rows, |t, r| {
                 ([x, r * t.sin(), r * t.cos()], [n, 0.0, 0.0], None)
             });
         }
         if ri > 0.0 {
-            self.patch(&[0.0, length_m], &angles, Region::Body, |x, t| {
-                let (s, c) = t.sin_cos();
-                ([x, ri * s, ri * c], [0.0, -s, -c], None)
-            });
+            self.patch(
+                (&[0.0, length_m], &angles),
+                Region::Body,
+                Edges::Columns,
+                |x, t| {
+                    let (s, c) = t.sin_cos();
+                    ([x, ri * s, ri * c], [0.0, -s, -c], None)
+                },
+            );
         }
     }
 
@@ -341,17 +399,22 @@ impl PartMesh {
             let k = a + r * (reach - a);
             (k * c, k * s)
         };
-        self.patch(&angles, &radial, Region::Face(Face::Plate), |t, r| {
-            let (x, y) = plan(t, r);
-            let p = SurfacePoint::new(Face::Plate, x, y);
-            let pos = member.surface_frame(&p).map_or([x, y, ht], |f| f.position);
-            (pos, [0.0, 0.0, 1.0], Some(p))
-        });
-        self.patch(&angles, &radial, Region::Body, |t, r| {
+        self.patch(
+            (&angles, &radial),
+            Region::Face(Face::Plate),
+            Edges::Rows,
+            |t, r| {
+                let (x, y) = plan(t, r);
+                let p = SurfacePoint::new(Face::Plate, x, y);
+                let pos = member.surface_frame(&p).map_or([x, y, ht], |f| f.position);
+                (pos, [0.0, 0.0, 1.0], Some(p))
+            },
+        );
+        self.patch((&angles, &radial), Region::Body, Edges::Rows, |t, r| {
             let (x, y) = plan(t, r);
             ([x, y, -ht], [0.0, 0.0, -1.0], None)
         });
-        self.patch(&angles, &[-ht, ht], Region::Body, |t, z| {
+        self.patch((&angles, &[-ht, ht]), Region::Body, Edges::Rows, |t, z| {
             let (s, c) = t.sin_cos();
             ([a * c, a * s, z], [-c, -s, 0.0], None)
         });

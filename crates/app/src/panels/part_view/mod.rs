@@ -1,0 +1,373 @@
+//! The part view: the whole part in 3-D, drawn on the CPU (projected, shaded and sorted far to
+//! near into one egui mesh, no GPU needed), with its supports, the loads of the selected case,
+//! the colour map, contour lines, the gauges and the axes. Drag to turn, right-drag or
+//! Shift-drag to slide, scroll to zoom at the cursor; click a face to open it in the face
+//! view, click a gauge to select it.
+
+mod camera;
+mod overlays;
+mod scene;
+
+use egui::{Color32, Pos2, Rect, Sense, Shape, Vec2, vec2};
+use gw_mechanics::{Face, Member};
+use gw_plan::drawing::part_mesh::Region;
+
+pub use camera::{Camera, Preset};
+use overlays::Labels;
+use scene::{Projection, Scene, SceneKey};
+
+use super::map::MapSettings;
+use crate::command::Command;
+use crate::state::{DocumentState, Selection};
+
+/// View state of the part view.
+#[derive(Default)]
+pub struct PartView {
+    camera: Camera,
+    /// The part the camera was fitted to (index, name, kind), so a new part is fitted anew.
+    fitted: Option<(usize, String, &'static str)>,
+    /// A fit asked for by a button, done once the view's size is known.
+    fit_pending: bool,
+    scene: Option<Scene>,
+    projection: Option<Projection>,
+    generation: u64,
+}
+
+/// What the user did in the canvas this frame.
+struct CanvasActions {
+    open_face: Option<Face>,
+}
+
+impl PartView {
+    /// The camera (tests turn it and read it).
+    pub fn camera_mut(&mut self) -> &mut Camera {
+        &mut self.camera
+    }
+
+    /// Draws the part view; returns a face the user clicked, to open in the face view.
+    pub fn part_ui(
+        &mut self,
+        ui: &mut egui::Ui,
+        doc: &DocumentState,
+        map: &mut MapSettings,
+        out: &mut Vec<Command>,
+    ) -> Option<Face> {
+        let sel = doc.selection;
+        let part = doc.project.parts.get(sel.part)?;
+        let identity = (sel.part, part.name.clone(), part.member.kind_name());
+        if self.fitted.as_ref() != Some(&identity) {
+            self.fitted = Some(identity);
+            self.fit_pending = true;
+        }
+        self.toolbar_ui(ui, doc, map);
+        let key = SceneKey {
+            evaluations: doc.evaluations,
+            part: sel.part,
+            case: sel.case,
+            map: *map,
+        };
+        if self.scene.as_ref().is_none_or(|s| s.key != key) {
+            let loads = part
+                .load_cases
+                .get(sel.case)
+                .map(|c| c.load_vector())
+                .unwrap_or_default();
+            self.generation += 1;
+            self.scene = Some(Scene::build(key, &part.member, &loads, self.generation));
+        }
+        let legend_height = 40.0;
+        let size = ui.available_size() - vec2(0.0, legend_height);
+        let (resp, painter) =
+            ui.allocate_painter(size.max(vec2(100.0, 100.0)), Sense::click_and_drag());
+        resp.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Image, true, "Part view"));
+        let actions = self.canvas_ui(ui, &resp, &painter, doc, out);
+        if let Some(found) = self.scene.as_ref().and_then(|s| s.found) {
+            map.legend_ui(ui, found, doc.units);
+        }
+        actions.open_face
+    }
+
+    /// Preset views, fit and zoom to selection, and the map choice, on rows that keep their
+    /// layout whatever is chosen.
+    fn toolbar_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, map: &mut MapSettings) {
+        ui.horizontal(|ui| {
+            ui.label("View");
+            for p in Preset::ALL {
+                if ui
+                    .button(p.name())
+                    .on_hover_text(format!(
+                        "Look at the part from the {} view",
+                        p.name().to_lowercase()
+                    ))
+                    .clicked()
+                {
+                    self.camera.set_preset(p);
+                    self.fit_pending = true;
+                }
+            }
+            ui.separator();
+            if ui
+                .button("Fit part")
+                .on_hover_text("Show the whole part")
+                .clicked()
+            {
+                self.fit_pending = true;
+            }
+            let has_gauge = doc.selection.gauge.is_some();
+            if ui
+                .add_enabled(has_gauge, egui::Button::new("Zoom to selection"))
+                .on_hover_text("Centre on the selected gauge and zoom in on it")
+                .on_disabled_hover_text("Select a gauge first (in the plan tree or by clicking it)")
+                .clicked()
+            {
+                self.zoom_to_gauge(doc, ui.available_rect_before_wrap());
+            }
+        });
+        ui.horizontal(|ui| map.controls_ui(ui, false));
+    }
+
+    fn zoom_to_gauge(&mut self, doc: &DocumentState, rect: Rect) {
+        let sel = doc.selection;
+        let Some(part) = doc.project.parts.get(sel.part) else {
+            return;
+        };
+        let placed = doc.project.placed_gauges(part);
+        let Some(g) = sel.gauge.and_then(|i| placed.get(i)) else {
+            return;
+        };
+        let Some(frame) = part.member.surface_frame(&g.position) else {
+            return;
+        };
+        self.camera.target = frame.position;
+        let reach = (4.0 * g.spec.grid_length_m.max(g.spec.grid_width_m)).max(0.004);
+        self.camera.scale = f64::from(rect.width().min(rect.height()).max(200.0)) / (2.0 * reach);
+    }
+
+    /// The drawing and what the pointer does in it.
+    fn canvas_ui(
+        &mut self,
+        ui: &egui::Ui,
+        resp: &egui::Response,
+        painter: &egui::Painter,
+        doc: &DocumentState,
+        out: &mut Vec<Command>,
+    ) -> CanvasActions {
+        let mut actions = CanvasActions { open_face: None };
+        let rect = resp.rect;
+        self.pointer_ui(ui, resp);
+        let Some(scene) = self.scene.as_ref() else {
+            return actions;
+        };
+        if self.fit_pending {
+            self.fit_pending = false;
+            self.camera.fit(scene.bounds(), rect);
+        }
+        let key = (self.camera, rect, scene.generation);
+        if self.projection.as_ref().is_none_or(|p| p.key != key) {
+            self.projection = Some(Projection::build(scene, &self.camera, rect));
+        }
+        let Some(proj) = self.projection.as_ref() else {
+            return actions;
+        };
+        let sel = doc.selection;
+        let Some(part) = doc.project.parts.get(sel.part) else {
+            return actions;
+        };
+        let member = &part.member;
+        let painter = painter.with_clip_rect(rect);
+        painter.rect_filled(rect, 0.0, ui.visuals().extreme_bg_color);
+        painter.add(Shape::mesh(proj.mesh.clone()));
+        let camera = self.camera;
+        let centre = rect.center();
+        let (_, _, eye) = camera.basis();
+        let hover = resp
+            .hover_pos()
+            .and_then(|p| proj.pick(scene, p).map(|hit| (p, hit)));
+        let hovered_face = hover.and_then(|(_, (t, _))| match scene.mesh.regions[t] {
+            Region::Face(f) => Some(f),
+            _ => None,
+        });
+        if scene.key.map.contours {
+            overlays::contours(&painter, scene, &camera, centre, eye);
+        }
+        overlays::edges(&painter, scene, proj, eye, hovered_face);
+        let mut labels = Labels::default();
+        labels.reserve(Rect::from_min_size(
+            rect.left_bottom() - vec2(0.0, 92.0),
+            vec2(92.0, 92.0),
+        ));
+        let info = case_text(doc);
+        let info_rect = painter.text(
+            rect.left_top() + vec2(8.0, 6.0),
+            egui::Align2::LEFT_TOP,
+            info,
+            egui::FontId::proportional(13.0),
+            ui.visuals().strong_text_color(),
+        );
+        labels.reserve(info_rect.expand(4.0));
+        let (lo, hi) = scene.mesh.bounds();
+        let size = (0..3).map(|i| hi[i] - lo[i]).fold(0.0, f64::max);
+        self.gauges_ui(ui, &painter, (scene, proj), doc, size, &mut labels, out);
+        overlays::loads(
+            &painter,
+            (&camera, centre, proj),
+            scene,
+            doc.units,
+            &mut labels,
+        );
+        overlays::supports(&painter, &camera, centre, member, &mut labels);
+        overlays::datum(
+            &painter,
+            (member, &camera, centre),
+            part.datum_m,
+            size,
+            &mut labels,
+        );
+        overlays::axes(&painter, &camera, rect);
+        if let Some((p, (t, w))) = hover {
+            hover_note(ui, &painter, scene, (p, t, w), doc);
+        }
+        if resp.clicked()
+            && let Some(f) = hovered_face
+        {
+            actions.open_face = Some(f);
+        }
+        actions
+    }
+
+    /// Turn, slide and zoom from the pointer.
+    fn pointer_ui(&mut self, ui: &egui::Ui, resp: &egui::Response) {
+        let (shift, scroll) = ui.input(|i| (i.modifiers.shift, i.smooth_scroll_delta.y));
+        if resp.dragged_by(egui::PointerButton::Primary) && !shift {
+            self.camera.orbit(resp.drag_delta());
+        } else if resp.dragged_by(egui::PointerButton::Secondary)
+            || resp.dragged_by(egui::PointerButton::Middle)
+            || (resp.dragged_by(egui::PointerButton::Primary) && shift)
+        {
+            self.camera.pan(resp.drag_delta());
+        }
+        if let Some(p) = resp.hover_pos()
+            && scroll != 0.0
+        {
+            self.camera
+                .zoom_at(f64::from(scroll * 0.004).exp(), p, resp.rect.center());
+        }
+    }
+
+    /// Every gauge on the side facing the viewer, each a clickable handle.
+    #[allow(clippy::too_many_arguments)]
+    fn gauges_ui(
+        &self,
+        ui: &egui::Ui,
+        painter: &egui::Painter,
+        (scene, proj): (&Scene, &Projection),
+        doc: &DocumentState,
+        size: f64,
+        labels: &mut Labels,
+        out: &mut Vec<Command>,
+    ) {
+        let sel = doc.selection;
+        let Some(part) = doc.project.parts.get(sel.part) else {
+            return;
+        };
+        let centre = proj.key.1.center();
+        let ctx = (&part.member, &self.camera, centre, scene, proj);
+        for (gi, g) in doc.project.placed_gauges(part).iter().enumerate() {
+            let selected = sel.gauge == Some(gi);
+            let Some(drawn) = overlays::gauge(painter, ctx, g, 0.004 * size, selected) else {
+                continue;
+            };
+            let colour = if selected {
+                super::palette::SELECTED
+            } else {
+                Color32::from_rgb(235, 235, 228)
+            };
+            labels.place(painter, drawn.centre, &g.id, colour, selected);
+            let reach = (drawn.length_px * 0.6).max(9.0);
+            let handle = ui.interact(
+                Rect::from_center_size(drawn.centre, Vec2::splat(2.0 * reach)),
+                ui.unique_id().with(("part view gauge", gi)),
+                Sense::click(),
+            );
+            let id = g.id.clone();
+            handle.widget_info(|| {
+                egui::WidgetInfo::labeled(egui::Role::Button, true, format!("Gauge {id}"))
+            });
+            if handle
+                .on_hover_text(format!("{}: click to select", g.id))
+                .clicked()
+            {
+                out.push(Command::Select(Selection {
+                    gauge: Some(gi),
+                    ..sel
+                }));
+            }
+        }
+    }
+}
+
+/// The load case and any uniform temperature change, in words.
+fn case_text(doc: &DocumentState) -> String {
+    let sel = doc.selection;
+    let Some(part) = doc.project.parts.get(sel.part) else {
+        return String::new();
+    };
+    let Some(case) = part.load_cases.get(sel.case) else {
+        return format!("{}: no load case", part.name);
+    };
+    let mut text = format!("{}, load case: {}", part.name, case.name);
+    let dt = case.value(gw_mechanics::LoadComponent::TemperatureChange);
+    if dt != 0.0 {
+        text += &format!(
+            "\nPart {} from the reference temperature",
+            doc.units
+                .format(crate::units::Quantity::TemperatureChange, dt)
+        );
+    }
+    if let Member::GivenState(_) = part.member {
+        let k = case.value(gw_mechanics::LoadComponent::GivenStateFactor);
+        text += &format!("\nGiven state × {k:.3}");
+    }
+    text
+}
+
+/// The face and map value under the cursor, and what a click does.
+fn hover_note(
+    ui: &egui::Ui,
+    painter: &egui::Painter,
+    scene: &Scene,
+    (p, t, w): (Pos2, usize, [f32; 3]),
+    doc: &DocumentState,
+) {
+    let Region::Face(face) = scene.mesh.regions[t] else {
+        return;
+    };
+    let tri = scene.mesh.triangles[t];
+    let value: Option<f64> = tri
+        .iter()
+        .zip(w)
+        .map(|(&k, w)| scene.values[k as usize].map(|v| v * f64::from(w)))
+        .sum();
+    let mut text = crate::panels::capitalise(face.name());
+    if let Some(v) = value {
+        text += &format!(": {}", scene.key.map.format(v, doc.units));
+    }
+    text += "\nClick to open it in the Face view";
+    let galley = painter.layout_no_wrap(
+        text,
+        egui::FontId::proportional(12.5),
+        ui.visuals().strong_text_color(),
+    );
+    let size = galley.size() + vec2(8.0, 4.0);
+    let clip = painter.clip_rect();
+    let mut at = p + vec2(16.0, 16.0);
+    if at.x + size.x > clip.right() {
+        at.x = p.x - 16.0 - size.x;
+    }
+    if at.y + size.y > clip.bottom() {
+        at.y = p.y - 16.0 - size.y;
+    }
+    let r = Rect::from_min_size(at, size);
+    painter.rect_filled(r, 3.0, Color32::from_black_alpha(190));
+    painter.galley(r.min + vec2(4.0, 2.0), galley, Color32::WHITE);
+}
