@@ -158,6 +158,11 @@ impl GaugewrightApp {
         }
     }
 
+    /// Turns the part view to a preset view.
+    pub fn look_from(&mut self, preset: crate::panels::part_view::Preset) {
+        self.part_view.look_from(preset);
+    }
+
     /// Selects part `index` (0-based) if the project has it; otherwise says which parts exist.
     pub fn show_part(&mut self, index: usize) {
         let count = self.doc.project.parts.len();

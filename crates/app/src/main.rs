@@ -1,5 +1,6 @@
 //! The `gaugewright` binary: the desktop app, and the command line for scripts.
 
+use gw_app::panels::part_view::Preset;
 use gw_app::{GaugewrightApp, app::Tab, screenshot, settings::AppPaths};
 
 use std::io::Write;
@@ -18,7 +19,7 @@ use clap::{CommandFactory, FromArgMatches, Parser};
 #[command(
     name = "gaugewright",
     version,
-    override_usage = "gaugewright [--view <VIEW>] [--part <N>] [--screenshot <PATH>] [FILE]\n       \
+    override_usage = "gaugewright [--view <VIEW>] [--part <N>] [--camera <FROM>] [--screenshot <PATH>] [FILE]\n       \
                       gaugewright <COMMAND>",
     after_help = "Exit status of the subcommands: 0 when nothing fails, 1 when a margin fails or \
                   something could not be computed, 2 when the project file is broken or an \
@@ -45,6 +46,9 @@ struct Cli {
     /// Which view to show first.
     #[arg(long, value_name = "VIEW", value_enum, default_value_t = View::Part)]
     view: View,
+    /// The direction the part view looks from at first.
+    #[arg(long, value_name = "FROM", value_enum, default_value_t = Camera::Isometric)]
+    camera: Camera,
     /// Which part to show first, counted from 1 in the plan tree's order.
     #[arg(long, value_name = "N", value_parser = clap::value_parser!(u32).range(1..))]
     part: Option<u32>,
@@ -98,6 +102,30 @@ impl View {
     }
 }
 
+/// Where the part view looks from.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+enum Camera {
+    /// Front, above and the far end.
+    Isometric,
+    /// The front face (from −y).
+    Front,
+    /// From above (+z).
+    Top,
+    /// The x = L end (from +x).
+    End,
+}
+
+impl Camera {
+    fn preset(self) -> Preset {
+        match self {
+            Camera::Isometric => Preset::Isometric,
+            Camera::Front => Preset::Front,
+            Camera::Top => Preset::Top,
+            Camera::End => Preset::End,
+        }
+    }
+}
+
 #[derive(Debug, clap::Subcommand)]
 enum Command {
     /// Validate a project and print readings, margins and findings (exit status 1 if a margin
@@ -130,10 +158,14 @@ enum Command {
         #[arg(long)]
         csv: Option<PathBuf>,
     },
-    /// Write the bundled demo project.
+    /// Write the bundled demo project (or, with --gallery, one part of every model kind and
+    /// beam section).
     Demo {
         /// Where to write it.
         out: PathBuf,
+        /// Write the model gallery instead of the demo.
+        #[arg(long)]
+        gallery: bool,
     },
 }
 
@@ -197,6 +229,7 @@ fn parse() -> Cli {
             ("file", "a project FILE"),
             ("view", "--view"),
             ("part", "--part"),
+            ("camera", "--camera"),
             ("screenshot", "--screenshot"),
         ] {
             if matches.value_source(id) == Some(ValueSource::CommandLine) {
@@ -229,7 +262,13 @@ fn main() -> ExitCode {
                 gw_plan::cli::eval_summary(&file, monte_carlo)
             });
         }
-        Some(Command::Demo { out }) => return finish(gw_plan::cli::write_demo(&out)),
+        Some(Command::Demo { out, gallery }) => {
+            return finish(if gallery {
+                gw_plan::cli::write_gallery(&out)
+            } else {
+                gw_plan::cli::write_demo(&out)
+            });
+        }
         Some(Command::Sheet { file, output, csv }) => {
             return finish(gw_plan::cli::sheet(&file, &output, csv.as_deref()));
         }
@@ -244,6 +283,7 @@ fn main() -> ExitCode {
     };
     let tab = cli.view.tab();
     let part = cli.part.map(|n| n as usize - 1);
+    let preset = cli.camera.preset();
     let file = cli.file;
     let screenshot = cli.screenshot.map(screenshot::ScreenshotRequest::new);
     let outcome = screenshot.as_ref().map(|r| r.outcome());
@@ -261,6 +301,7 @@ fn main() -> ExitCode {
                 app.open_path(path);
             }
             app.tab = tab;
+            app.look_from(preset);
             if let Some(part) = part {
                 app.show_part(part);
             }

@@ -311,10 +311,19 @@ pub fn eval_json(path: &Path, monte_carlo: bool) -> CliOutput {
 
 /// `gaugewright demo OUT`: writes the bundled demo project.
 pub fn write_demo(path: &Path) -> CliOutput {
-    match save_project(&demo_project(), path) {
+    write_example(path, &demo_project(), "the demo project")
+}
+
+/// `gaugewright demo --gallery OUT`: one part of every model kind and beam section.
+pub fn write_gallery(path: &Path) -> CliOutput {
+    write_example(path, &crate::gallery::model_gallery(), "the model gallery")
+}
+
+fn write_example(path: &Path, project: &crate::Project, what: &str) -> CliOutput {
+    match save_project(project, path) {
         Ok(()) => CliOutput {
             code: 0,
-            stdout: format!("wrote the demo project to {}\n", path.display()),
+            stdout: format!("wrote {what} to {}\n", path.display()),
             stderr: String::new(),
         },
         Err(e) => broken(path, &e),

@@ -275,10 +275,11 @@ fn plate_glyphs(
         }
         _ => return Vec::new(),
     };
-    let Some(first) = arrows.first() else {
+    // The label at the outer end of the last arrow, off the plate.
+    let Some(last) = arrows.last() else {
         return Vec::new();
     };
-    let at = first[0];
+    let at = if sign > 0.0 { last[1] } else { last[0] };
     vec![LoadGlyph {
         component,
         value,

@@ -113,19 +113,26 @@ impl Camera {
         )
     }
 
-    /// Centres and scales the view so that the box from `lo` to `hi` fills `rect` with a margin.
-    pub fn fit(&mut self, (lo, hi): (V3, V3), rect: Rect) {
-        self.target = std::array::from_fn(|i| (lo[i] + hi[i]) / 2.0);
-        let (right, up, _) = self.basis();
-        let (mut w, mut h) = (0.0f64, 0.0f64);
-        for k in 0..8 {
-            let c: V3 = std::array::from_fn(|i| if k >> i & 1 == 1 { hi[i] } else { lo[i] });
-            let d: V3 = std::array::from_fn(|i| c[i] - self.target[i]);
-            w = w.max(dot(d, right).abs());
-            h = h.max(dot(d, up).abs());
+    /// Centres and scales the view so that `points` fill `rect` with a margin: the part's own
+    /// outline, not its bounding box, so a slender part seen at an angle still fills the view.
+    pub fn fit(&mut self, points: impl IntoIterator<Item = V3>, rect: Rect) {
+        let (right, up, eye) = self.basis();
+        let mut lo = [f64::INFINITY; 3];
+        let mut hi = [f64::NEG_INFINITY; 3];
+        for p in points {
+            for (k, axis) in [right, up, eye].iter().enumerate() {
+                let c = dot(p, *axis);
+                lo[k] = lo[k].min(c);
+                hi[k] = hi[k].max(c);
+            }
         }
-        let sx = 0.5 * f64::from(rect.width()) * 0.86 / w.max(1e-9);
-        let sy = 0.5 * f64::from(rect.height()) * 0.86 / h.max(1e-9);
+        if !lo.iter().chain(&hi).all(|c| c.is_finite()) {
+            return;
+        }
+        let mid: V3 = std::array::from_fn(|k| (lo[k] + hi[k]) / 2.0);
+        self.target = std::array::from_fn(|i| mid[0] * right[i] + mid[1] * up[i] + mid[2] * eye[i]);
+        let sx = f64::from(rect.width()) * 0.9 / (hi[0] - lo[0]).max(1e-9);
+        let sy = f64::from(rect.height()) * 0.9 / (hi[1] - lo[1]).max(1e-9);
         self.scale = sx.min(sy).clamp(1e-3, 1e9);
     }
 

@@ -26,11 +26,20 @@ pub struct PartView {
     camera: Camera,
     /// The part the camera was fitted to (index, name, kind), so a new part is fitted anew.
     fitted: Option<(usize, String, &'static str)>,
-    /// A fit asked for by a button, done once the view's size is known.
-    fit_pending: bool,
+    /// A fit or zoom asked for by a button, done once the view's size is known.
+    pending: Option<Framing>,
     scene: Option<Scene>,
     projection: Option<Projection>,
     generation: u64,
+}
+
+/// A change of framing waiting for the view's size.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Framing {
+    /// The whole part and its loads.
+    Fit,
+    /// The selected gauge at the middle, about a sixth of the view across.
+    Selection,
 }
 
 /// What the user did in the canvas this frame.
@@ -39,9 +48,10 @@ struct CanvasActions {
 }
 
 impl PartView {
-    /// The camera (tests turn it and read it).
-    pub fn camera_mut(&mut self) -> &mut Camera {
-        &mut self.camera
+    /// Turns to a preset view and fits the part into it.
+    pub fn look_from(&mut self, preset: Preset) {
+        self.camera.set_preset(preset);
+        self.pending = Some(Framing::Fit);
     }
 
     /// Draws the part view; returns a face the user clicked, to open in the face view.
@@ -57,7 +67,7 @@ impl PartView {
         let identity = (sel.part, part.name.clone(), part.member.kind_name());
         if self.fitted.as_ref() != Some(&identity) {
             self.fitted = Some(identity);
-            self.fit_pending = true;
+            self.pending = Some(Framing::Fit);
         }
         self.toolbar_ui(ui, doc, map);
         let key = SceneKey {
@@ -102,7 +112,7 @@ impl PartView {
                     .clicked()
                 {
                     self.camera.set_preset(p);
-                    self.fit_pending = true;
+                    self.pending = Some(Framing::Fit);
                 }
             }
             ui.separator();
@@ -111,7 +121,7 @@ impl PartView {
                 .on_hover_text("Show the whole part")
                 .clicked()
             {
-                self.fit_pending = true;
+                self.pending = Some(Framing::Fit);
             }
             let has_gauge = doc.selection.gauge.is_some();
             if ui
@@ -120,7 +130,7 @@ impl PartView {
                 .on_disabled_hover_text("Select a gauge first (in the plan tree or by clicking it)")
                 .clicked()
             {
-                self.zoom_to_gauge(doc, ui.available_rect_before_wrap());
+                self.pending = Some(Framing::Selection);
             }
         });
         ui.horizontal(|ui| map.controls_ui(ui, false));
@@ -139,8 +149,8 @@ impl PartView {
             return;
         };
         self.camera.target = frame.position;
-        let reach = (4.0 * g.spec.grid_length_m.max(g.spec.grid_width_m)).max(0.004);
-        self.camera.scale = f64::from(rect.width().min(rect.height()).max(200.0)) / (2.0 * reach);
+        let reach = (3.0 * g.spec.grid_length_m.max(g.spec.grid_width_m)).max(0.003);
+        self.camera.scale = f64::from(rect.width().min(rect.height()).max(100.0)) / (2.0 * reach);
     }
 
     /// The drawing and what the pointer does in it.
@@ -155,12 +165,15 @@ impl PartView {
         let mut actions = CanvasActions { open_face: None };
         let rect = resp.rect;
         self.pointer_ui(ui, resp);
+        let pending = self.pending.take();
+        if pending == Some(Framing::Selection) {
+            self.zoom_to_gauge(doc, rect);
+        }
         let Some(scene) = self.scene.as_ref() else {
             return actions;
         };
-        if self.fit_pending {
-            self.fit_pending = false;
-            self.camera.fit(scene.bounds(), rect);
+        if pending == Some(Framing::Fit) {
+            self.camera.fit(scene.extent_points(), rect);
         }
         let key = (self.camera, rect, scene.generation);
         if self.projection.as_ref().is_none_or(|p| p.key != key) {

@@ -55,27 +55,21 @@ const BODY: Color32 = Color32::from_rgb(196, 198, 200);
 const FIXTURE: Color32 = Color32::from_rgb(112, 118, 128);
 
 impl Scene {
-    /// The box round the part and its load arrows, for fitting the view.
-    pub fn bounds(&self) -> ([f64; 3], [f64; 3]) {
-        let (mut lo, mut hi) = self.mesh.bounds();
-        let mut grow = |p: [f64; 3]| {
-            for k in 0..3 {
-                lo[k] = lo[k].min(p[k]);
-                hi[k] = hi[k].max(p[k]);
-            }
-        };
+    /// Points of the part and its load arrows, for fitting the view.
+    pub fn extent_points(&self) -> Vec<[f64; 3]> {
+        let mut points = self.mesh.positions.clone();
         for g in &self.glyphs {
             match &g.shape {
-                GlyphShape::Arrows(list) => list.iter().flatten().for_each(|p| grow(*p)),
+                GlyphShape::Arrows(list) => points.extend(list.iter().flatten()),
                 GlyphShape::Couple {
                     centre, radius_m, ..
                 } => {
-                    grow(centre.map(|c| c - radius_m));
-                    grow(centre.map(|c| c + radius_m));
+                    points.push(centre.map(|c| c - radius_m));
+                    points.push(centre.map(|c| c + radius_m));
                 }
             }
         }
-        (lo, hi)
+        points
     }
 
     /// Builds the scene of `member` under `loads`.
