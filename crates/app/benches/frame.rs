@@ -8,11 +8,12 @@ use gw_app::settings::AppPaths;
 use gw_app::state::DocumentState;
 
 fn harness(tab: Tab) -> Harness<'static, GaugewrightApp> {
-    let mut app = GaugewrightApp::with_document(
-        DocumentState::new(gw_plan::demo::demo_project(), None),
-        AppPaths::default(),
-        None,
-    );
+    harness_on(gw_plan::demo::demo_project(), tab)
+}
+
+fn harness_on(project: gw_plan::Project, tab: Tab) -> Harness<'static, GaugewrightApp> {
+    let mut app =
+        GaugewrightApp::with_document(DocumentState::new(project, None), AppPaths::default(), None);
     app.tab = tab;
     let mut h = Harness::builder()
         .with_size(egui::vec2(1440.0, 900.0))
@@ -31,6 +32,18 @@ fn bench(c: &mut Criterion) {
         let mut h = harness(tab);
         c.bench_function(&format!("frame/{name}"), |b| b.iter(|| h.step()));
     }
+    // The part view while the part is being turned: every frame projects, shades and sorts
+    // the whole mesh again. The gallery's round tube has the finest mesh of any part (outer
+    // face, bore and end rings: about 24 000 triangles).
+    let mut h = harness_on(gw_plan::gallery::model_gallery(), Tab::Part);
+    h.state_mut().show_part(2);
+    h.run();
+    c.bench_function("frame/part_turning_finest_mesh", |b| {
+        b.iter(|| {
+            h.state_mut().turn_part_view(egui::vec2(3.0, 0.0));
+            h.step();
+        })
+    });
     // The inspector on a bridge: its field table (arm choices, computed bridge factor) is
     // built every frame.
     let mut h = harness(Tab::Bridges);

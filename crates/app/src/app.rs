@@ -158,6 +158,11 @@ impl GaugewrightApp {
         }
     }
 
+    /// Turns the part view as a drag of `delta` pixels would.
+    pub fn turn_part_view(&mut self, delta: egui::Vec2) {
+        self.part_view.turn(delta);
+    }
+
     /// Turns the part view to a preset view.
     pub fn look_from(&mut self, preset: crate::panels::part_view::Preset) {
         self.part_view.look_from(preset);

@@ -48,6 +48,11 @@ struct CanvasActions {
 }
 
 impl PartView {
+    /// Turns the part as a drag of `delta` pixels would (the arrow keys use it too).
+    pub fn turn(&mut self, delta: Vec2) {
+        self.camera.orbit(delta);
+    }
+
     /// Turns to a preset view and fits the part into it.
     pub fn look_from(&mut self, preset: Preset) {
         self.camera.set_preset(preset);
@@ -264,6 +269,22 @@ impl PartView {
         {
             self.camera
                 .zoom_at(f64::from(scroll * 0.004).exp(), p, resp.rect.center());
+        }
+        // Arrow keys turn the part by 5° while the pointer is over it and no field has the
+        // keyboard.
+        let free = ui.memory(|m| m.focused().is_none());
+        if resp.hovered() && free {
+            let step = 5f32.to_radians() / 0.008;
+            let turn = ui.input(|i| {
+                let k = |key| if i.key_pressed(key) { 1.0 } else { 0.0 };
+                Vec2::new(
+                    k(egui::Key::ArrowLeft) - k(egui::Key::ArrowRight),
+                    k(egui::Key::ArrowUp) - k(egui::Key::ArrowDown),
+                ) * step
+            });
+            if turn != Vec2::ZERO {
+                self.turn(turn);
+            }
         }
     }
 
