@@ -128,7 +128,10 @@ impl Units {
 /// Strain is shown as µε in both systems.
 pub fn microstrain(strain: f64) -> String {
     if strain.is_finite() {
-        format!("{:.1} µε", strain * 1e6)
+        // A value that rounds to zero is shown as 0.0, never as "-0.0".
+        let shown = strain * 1e6;
+        let shown = if shown.abs() < 0.05 { 0.0 } else { shown };
+        format!("{shown:.1} µε")
     } else {
         "—".to_owned()
     }

@@ -99,14 +99,22 @@ impl MapSettings {
         }
     }
 
-    /// The colour range for values from `lo` to `hi`: symmetric about zero for strain (so
-    /// zero is the neutral colour), from zero for stress.
+    /// The colour range for values from `lo` to `hi`, always including zero so that zero is
+    /// the neutral colour: symmetric when the values change sign, from zero to the extreme
+    /// when they do not (stress is never negative).
     pub fn scale_range(&self, (lo, hi): (f64, f64)) -> (f64, f64) {
+        let tiny = 1e-300;
         if self.is_stress() {
-            (0.0, hi.max(1e-300))
-        } else {
-            let span = lo.abs().max(hi.abs()).max(1e-300);
+            (0.0, hi.max(tiny))
+        } else if lo < 0.0 && hi > 0.0 {
+            let span = lo.abs().max(hi);
             (-span, span)
+        } else if hi > 0.0 {
+            (0.0, hi)
+        } else if lo < 0.0 {
+            (lo, 0.0)
+        } else {
+            (-tiny, tiny)
         }
     }
 
@@ -116,6 +124,15 @@ impl MapSettings {
             sequential(value / hi)
         } else {
             diverging(value / hi.max(-lo))
+        }
+    }
+
+    /// The unit the legend's ticks are in.
+    fn tick_unit(&self, units: Units) -> &'static str {
+        match (self.is_stress(), units) {
+            (false, _) => "µε",
+            (true, Units::Si) => "MPa",
+            (true, Units::UsCustomary) => "ksi",
         }
     }
 
@@ -133,17 +150,21 @@ impl MapSettings {
             .response
             .labelled_by(label)
             .on_hover_text("Surface quantity shown as colour, under the selected load case");
-        if self.quantity == MapQuantity::StrainAlongDirection {
-            let label = ui.label("at").id;
-            ui.add(
-                egui::DragValue::new(&mut self.direction_deg)
-                    .range(-180.0..=180.0)
-                    .speed(1.0)
-                    .suffix("°"),
-            )
-            .labelled_by(label)
-            .on_hover_text("Direction of the mapped strain, counter-clockwise from the member axis seen from outside");
-        }
+        // Always there (greyed out unless used), so the row never shifts when the map changes.
+        let along = self.quantity == MapQuantity::StrainAlongDirection;
+        let label = ui.add_enabled(along, egui::Label::new("at")).id;
+        ui.add_enabled(
+            along,
+            egui::DragValue::new(&mut self.direction_deg)
+                .range(-180.0..=180.0)
+                .speed(1.0)
+                .suffix("°"),
+        )
+        .labelled_by(label)
+        .on_hover_text(
+            "Direction of the mapped strain, counter-clockwise from the member axis seen from \
+             outside (for \"Strain along a direction\")",
+        );
         let mut thermal = self.basis == StrainBasis::WithFreeThermal;
         if ui
             .checkbox(&mut thermal, "Free thermal expansion")
@@ -167,11 +188,17 @@ impl MapSettings {
         }
     }
 
-    /// The legend: the colour bar with its ticks and the range found on the part.
-    pub fn legend_ui(&self, ui: &mut egui::Ui, found: (f64, f64), units: Units) {
+    /// The legend: the colour bar with its ticks and the range found, `scope` saying where
+    /// ("on the part", "on this face"). Wraps onto a second line rather than run out of a
+    /// narrow view.
+    pub fn legend_ui(&self, ui: &mut egui::Ui, found: (f64, f64), units: Units, scope: &str) {
         let range = self.scale_range(found);
-        ui.horizontal(|ui| {
-            ui.label(self.quantity.name());
+        ui.horizontal_wrapped(|ui| {
+            ui.label(format!(
+                "{}, {}",
+                self.quantity.name(),
+                self.tick_unit(units)
+            ));
             // Room beyond the bar for half of its last tick label, so that label never runs
             // into the text after the legend.
             let (rect, _) = ui.allocate_exact_size(vec2(240.0 + 24.0, 30.0), Sense::hover());
@@ -202,6 +229,7 @@ impl MapSettings {
                     egui::Stroke::new(1.0, text),
                 );
                 let label = tick_label(*t, self.is_stress(), units);
+                let label = if label == "-0" { "0".to_owned() } else { label };
                 let galley = painter.layout_no_wrap(label, font.clone(), text);
                 let left = x - galley.size().x / 2.0;
                 if left > last_right + 4.0 && x + galley.size().x / 2.0 <= rect.right() {
@@ -210,7 +238,7 @@ impl MapSettings {
                 }
             }
             ui.label(format!(
-                "on the part: {} to {}",
+                "{scope}: {} to {}",
                 self.format(found.0, units),
                 self.format(found.1, units)
             ));
@@ -236,12 +264,15 @@ pub fn ticks((lo, hi): (f64, f64)) -> Vec<f64> {
     (first..=last).map(|k| k as f64 * step).collect()
 }
 
-/// A tick's label: µε without decimals for strain, stress in the display unit.
+/// A tick's label, a plain number in the legend's unit (µε; MPa or ksi).
 fn tick_label(value: f64, stress: bool, units: Units) -> String {
-    if stress {
-        units.format_stress(value)
-    } else {
-        format!("{:.0}", value * 1e6)
+    match (stress, units) {
+        (false, _) => format!("{:.0}", value * 1e6),
+        (true, Units::Si) => format!("{:.0}", value / 1e6),
+        (true, Units::UsCustomary) => {
+            let ksi = units.to_display(crate::units::Quantity::Pressure, value) / 1e3;
+            format!("{ksi:.1}")
+        }
     }
 }
 
@@ -299,5 +330,10 @@ mod tests {
         let r = m.scale_range((-1e-6, 5e-4));
         assert_eq!(m.colour(0.0, r), diverging(0.0));
         assert_ne!(m.colour(5e-4, r), m.colour(-5e-4, r));
+        // All of one sign: the bar runs from zero, and the extreme gets the full colour.
+        let r = m.scale_range((2e-4, 5e-4));
+        assert_eq!(r, (0.0, 5e-4));
+        assert_eq!(m.colour(5e-4, r), diverging(1.0));
+        assert_eq!(m.colour(0.0, r), diverging(0.0));
     }
 }

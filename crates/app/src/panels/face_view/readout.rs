@@ -39,7 +39,7 @@ impl FaceView {
         ui.add(Label::new(first).truncate());
         ui.add(Label::new(RichText::new(second)).truncate());
         if let Some(layer) = &self.map {
-            settings.legend_ui(ui, layer.found, scene.units);
+            settings.legend_ui(ui, layer.found, scene.units, "on this face");
         }
         let line = self.selection_line(scene);
         ui.add(Label::new(line).truncate());

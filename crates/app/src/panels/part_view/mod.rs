@@ -97,7 +97,7 @@ impl PartView {
         resp.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Image, true, "Part view"));
         let actions = self.canvas_ui(ui, &resp, &painter, doc, out);
         if let Some(found) = self.scene.as_ref().and_then(|s| s.found) {
-            map.legend_ui(ui, found, doc.units);
+            map.legend_ui(ui, found, doc.units, "on the part");
         }
         actions.open_face
     }
