@@ -665,15 +665,19 @@ impl GaugewrightApp {
             .show(ui, |ui| {
                 self.findings.findings_ui(ui, &mut self.doc);
             });
+        // Size ranges keep the side panels from following their content's width from item to
+        // item, which would move the views in the centre.
         egui::Panel::left("plan tree")
             .resizable(true)
             .default_size(270.0)
+            .size_range(220.0..=380.0)
             .show(ui, |ui| {
                 self.tree.tree_ui(ui, &self.doc, &mut out);
             });
         egui::Panel::right("inspector")
             .resizable(true)
             .default_size(360.0)
+            .size_range(320.0..=440.0)
             .show(ui, |ui| {
                 self.inspector.inspector_ui(ui, &self.doc, &mut out);
             });

@@ -14,7 +14,7 @@ impl FindingsPanel {
     /// Draws the list; clicking selects the target in `doc`.
     pub fn findings_ui(&mut self, ui: &mut egui::Ui, doc: &mut DocumentState) {
         let Self = self;
-        ui.horizontal(|ui| {
+        ui.horizontal_wrapped(|ui| {
             ui.strong("Findings");
             let n = doc.evaluation.findings.len();
             ui.label(if n == 0 {
@@ -42,7 +42,8 @@ impl FindingsPanel {
                         Severity::Fail => ("Fails", palette::FAIL),
                         Severity::Warn => ("Check", palette::WARN),
                     };
-                    ui.horizontal(|ui| {
+                    // Wrapped, so a long message stays inside the panel.
+                    ui.horizontal_wrapped(|ui| {
                         ui.colored_label(colour, word);
                         if ui
                             .link(&f.message)

@@ -104,15 +104,18 @@ impl MapSettings {
     /// when they do not (stress is never negative).
     pub fn scale_range(&self, (lo, hi): (f64, f64)) -> (f64, f64) {
         let tiny = 1e-300;
+        // A sliver of the other sign (a rounding residue, a field that just touches zero)
+        // does not make the scale symmetric.
+        let sliver = 1e-3 * lo.abs().max(hi.abs());
         if self.is_stress() {
             (0.0, hi.max(tiny))
-        } else if lo < 0.0 && hi > 0.0 {
+        } else if lo < -sliver && hi > sliver {
             let span = lo.abs().max(hi);
             (-span, span)
-        } else if hi > 0.0 {
-            (0.0, hi)
-        } else if lo < 0.0 {
-            (lo, 0.0)
+        } else if hi > sliver {
+            (lo.min(0.0), hi)
+        } else if lo < -sliver {
+            (lo, hi.max(0.0))
         } else {
             (-tiny, tiny)
         }
@@ -189,8 +192,8 @@ impl MapSettings {
     }
 
     /// The legend: the colour bar with its ticks and the range found, `scope` saying where
-    /// ("on the part", "on this face"). Wraps onto a second line rather than run out of a
-    /// narrow view.
+    /// ("on the part", "on this face"). The range goes on a line of its own, so nothing runs
+    /// out of a narrow view.
     pub fn legend_ui(&self, ui: &mut egui::Ui, found: (f64, f64), units: Units, scope: &str) {
         let range = self.scale_range(found);
         ui.horizontal_wrapped(|ui| {
@@ -237,16 +240,16 @@ impl MapSettings {
                     painter.galley(pos2(left, bar.bottom() + 3.0), galley, text);
                 }
             }
-            ui.label(format!(
-                "{scope}: {} to {}",
-                self.format(found.0, units),
-                self.format(found.1, units)
-            ));
         });
+        ui.label(format!(
+            "{scope}: {} to {}",
+            self.format(found.0, units),
+            self.format(found.1, units)
+        ));
     }
 }
 
-/// Round tick values across `range`: steps of 1, 2 or 5 × 10ⁿ, about five ticks.
+/// Round tick values across `range`: steps of 1, 2 or 5 × 10ⁿ, four to eight ticks.
 pub fn ticks((lo, hi): (f64, f64)) -> Vec<f64> {
     let span = hi - lo;
     if !(span.is_finite() && span > 0.0) {
@@ -257,7 +260,7 @@ pub fn ticks((lo, hi): (f64, f64)) -> Vec<f64> {
     let step = [1.0, 2.0, 5.0, 10.0]
         .iter()
         .map(|k| k * mag)
-        .find(|s| span / s <= 6.0)
+        .find(|s| span / s <= 8.0)
         .unwrap_or(10.0 * mag);
     let first = (lo / step).ceil() as i64;
     let last = (hi / step).floor() as i64;

@@ -236,16 +236,24 @@ impl PartMesh {
         });
     }
 
-    /// An axis-aligned box from `lo` to `hi`, six outward quads.
-    fn cuboid(&mut self, lo: [f64; 3], hi: [f64; 3], region: Region) {
-        let d = [hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2]];
-        let (ex, ey, ez) = ([d[0], 0.0, 0.0], [0.0, d[1], 0.0], [0.0, 0.0, d[2]]);
-        self.quad(lo, ey, ez, [-1.0, 0.0, 0.0], region);
-        self.quad([hi[0], lo[1], lo[2]], ey, ez, [1.0, 0.0, 0.0], region);
-        self.quad(lo, ex, ez, [0.0, -1.0, 0.0], region);
-        self.quad([lo[0], hi[1], lo[2]], ex, ez, [0.0, 1.0, 0.0], region);
-        self.quad(lo, ex, ey, [0.0, 0.0, -1.0], region);
-        self.quad([lo[0], lo[1], hi[2]], ex, ey, [0.0, 0.0, 1.0], region);
+    /// An axis-aligned box from `lo` to `hi`, six outward faces, each cut into a grid of
+    /// `n × n` so that depth sorting orders it against the part it holds.
+    fn cuboid(&mut self, lo: [f64; 3], hi: [f64; 3], region: Region, n: usize) {
+        let grid = nodes((0.0, 1.0), n);
+        for axis in 0..3 {
+            let (u, v) = ((axis + 1) % 3, (axis + 2) % 3);
+            for (at, sign) in [(lo[axis], -1.0), (hi[axis], 1.0)] {
+                let mut normal = [0.0; 3];
+                normal[axis] = sign;
+                self.patch((&grid, &grid), region, Edges::Loop, |a, b| {
+                    let mut p = [0.0; 3];
+                    p[axis] = at;
+                    p[u] = lo[u] + a * (hi[u] - lo[u]);
+                    p[v] = lo[v] + b * (hi[v] - lo[v]);
+                    (p, normal, None)
+                });
+            }
+        }
     }
 
     /// The four vertical sides of a slab from `lo` to `hi`, and its bottom when `bottom`.
@@ -293,6 +301,7 @@ impl PartMesh {
                     [-depth, -0.5 * w - 0.35 * c, -0.5 * h - 0.35 * c],
                     [0.0, 0.5 * w + 0.35 * c, 0.5 * h + 0.35 * c],
                     Region::Fixture,
+                    12,
                 );
             }
             BeamSupport::SimplySupported => {

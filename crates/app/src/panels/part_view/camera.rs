@@ -131,8 +131,9 @@ impl Camera {
         }
         let mid: V3 = std::array::from_fn(|k| (lo[k] + hi[k]) / 2.0);
         self.target = std::array::from_fn(|i| mid[0] * right[i] + mid[1] * up[i] + mid[2] * eye[i]);
-        let sx = f64::from(rect.width()) * 0.9 / (hi[0] - lo[0]).max(1e-9);
-        let sy = f64::from(rect.height()) * 0.9 / (hi[1] - lo[1]).max(1e-9);
+        // A margin round the part for the labels of supports, loads and gauges.
+        let sx = f64::from(rect.width() - 120.0).max(40.0) / (hi[0] - lo[0]).max(1e-9);
+        let sy = f64::from(rect.height() - 80.0).max(40.0) / (hi[1] - lo[1]).max(1e-9);
         self.scale = sx.min(sy).clamp(1e-3, 1e9);
     }
 

@@ -31,6 +31,9 @@ pub struct PartView {
     scene: Option<Scene>,
     projection: Option<Projection>,
     generation: u64,
+    /// The size of the view at the last fit, while the user has not zoomed or slid since: a
+    /// change of the window's size then fits the part again.
+    fitted_size: Option<Vec2>,
 }
 
 /// A change of framing waiting for the view's size.
@@ -90,7 +93,7 @@ impl PartView {
             self.generation += 1;
             self.scene = Some(Scene::build(key, &part.member, &loads, self.generation));
         }
-        let legend_height = 40.0;
+        let legend_height = 58.0;
         let size = ui.available_size() - vec2(0.0, legend_height);
         let (resp, painter) =
             ui.allocate_painter(size.max(vec2(100.0, 100.0)), Sense::click_and_drag());
@@ -154,7 +157,8 @@ impl PartView {
             return;
         };
         self.camera.target = frame.position;
-        let reach = (3.0 * g.spec.grid_length_m.max(g.spec.grid_width_m)).max(0.003);
+        // The gauge at about a tenth of the view, with some of the part round it.
+        let reach = (5.0 * g.spec.grid_length_m.max(g.spec.grid_width_m)).max(0.005);
         self.camera.scale = f64::from(rect.width().min(rect.height()).max(100.0)) / (2.0 * reach);
     }
 
@@ -170,15 +174,24 @@ impl PartView {
         let mut actions = CanvasActions { open_face: None };
         let rect = resp.rect;
         self.pointer_ui(ui, resp);
-        let pending = self.pending.take();
+        let mut pending = self.pending.take();
+        if pending.is_none()
+            && self
+                .fitted_size
+                .is_some_and(|s| (s - rect.size()).length() > 1.0)
+        {
+            pending = Some(Framing::Fit);
+        }
         if pending == Some(Framing::Selection) {
             self.zoom_to_gauge(doc, rect);
+            self.fitted_size = None;
         }
         let Some(scene) = self.scene.as_ref() else {
             return actions;
         };
         if pending == Some(Framing::Fit) {
             self.camera.fit(scene.extent_points(), rect);
+            self.fitted_size = Some(rect.size());
         }
         let key = (self.camera, rect, scene.generation);
         if self.projection.as_ref().is_none_or(|p| p.key != key) {
@@ -209,7 +222,11 @@ impl PartView {
             overlays::contours(&painter, scene, &camera, centre, eye);
         }
         overlays::edges(&painter, scene, proj, eye, hovered_face);
-        let mut labels = Labels::default();
+        let (lo, hi) = scene.mesh.bounds();
+        let middle = camera
+            .project(std::array::from_fn(|i| 0.5 * (lo[i] + hi[i])), centre)
+            .0;
+        let mut labels = Labels::away_from(middle);
         labels.reserve(Rect::from_min_size(
             rect.left_bottom() - vec2(0.0, 92.0),
             vec2(92.0, 92.0),
@@ -223,20 +240,22 @@ impl PartView {
             ui.visuals().strong_text_color(),
         );
         labels.reserve(info_rect.expand(4.0));
-        let (lo, hi) = scene.mesh.bounds();
         let size = (0..3).map(|i| hi[i] - lo[i]).fold(0.0, f64::max);
-        self.gauges_ui(ui, &painter, (scene, proj), doc, size, &mut labels, out);
-        overlays::loads(
+        let pending = overlays::load_arrows(
             &painter,
             (&camera, centre, proj),
             scene,
             doc.units,
             &mut labels,
         );
+        self.gauges_ui(ui, &painter, (scene, proj), doc, size, &mut labels, out);
+        for (anchor, text) in pending {
+            labels.place(&painter, anchor, &text, overlays::colours::LOAD, true);
+        }
         overlays::supports(&painter, &camera, centre, member, &mut labels);
         overlays::datum(
             &painter,
-            (member, &camera, centre),
+            (member, &camera, centre, scene, proj),
             part.datum_m,
             size,
             &mut labels,
@@ -263,10 +282,12 @@ impl PartView {
             || (resp.dragged_by(egui::PointerButton::Primary) && shift)
         {
             self.camera.pan(resp.drag_delta());
+            self.fitted_size = None;
         }
         if let Some(p) = resp.hover_pos()
             && scroll != 0.0
         {
+            self.fitted_size = None;
             self.camera
                 .zoom_at(f64::from(scroll * 0.004).exp(), p, resp.rect.center());
         }
@@ -316,6 +337,7 @@ impl PartView {
             } else {
                 Color32::from_rgb(235, 235, 228)
             };
+            labels.reserve(Rect::from_center_size(drawn.centre, Vec2::splat(12.0)));
             labels.place(painter, drawn.centre, &g.id, colour, selected);
             let reach = (drawn.length_px * 0.6).max(9.0);
             let handle = ui.interact(

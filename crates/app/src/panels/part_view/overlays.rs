@@ -35,12 +35,34 @@ pub mod colours {
 #[derive(Default)]
 pub struct Labels {
     taken: Vec<Rect>,
+    /// The middle of the drawing: labels look for room away from it first, off the part.
+    middle: Option<Pos2>,
 }
 
 impl Labels {
+    /// Labels start looking for room on the side away from `middle`.
+    pub fn away_from(middle: Pos2) -> Self {
+        Self {
+            taken: Vec::new(),
+            middle: Some(middle),
+        }
+    }
+
     /// Marks a region as taken (a toolbar, the legend).
     pub fn reserve(&mut self, rect: Rect) {
         self.taken.push(rect);
+    }
+
+    /// Marks the line through `points` as taken, as small squares every few pixels.
+    pub fn reserve_path(&mut self, points: &[Pos2]) {
+        for w in points.windows(2) {
+            let d = w[1] - w[0];
+            let steps = (d.length() / 6.0).ceil().max(1.0) as usize;
+            for k in 0..=steps {
+                let p = w[0] + d * (k as f32 / steps as f32);
+                self.taken.push(Rect::from_center_size(p, Vec2::splat(6.0)));
+            }
+        }
     }
 
     /// Draws `text` near `anchor` at the first free spot among a few around it; with `always`
@@ -55,7 +77,7 @@ impl Labels {
     ) -> Option<Rect> {
         let galley = painter.layout_no_wrap(text.to_owned(), FontId::proportional(12.5), colour);
         let size = galley.size() + vec2(6.0, 2.0);
-        let offsets = [
+        let near = [
             vec2(8.0, -8.0 - size.y),
             vec2(8.0, 8.0),
             vec2(-8.0 - size.x, -8.0 - size.y),
@@ -63,6 +85,22 @@ impl Labels {
             vec2(-size.x / 2.0, -14.0 - size.y),
             vec2(-size.x / 2.0, 14.0),
         ];
+        // Then the same directions further out; the nearest ring first, and within a ring
+        // the spots facing away from the middle of the drawing first.
+        let mut offsets: Vec<(usize, Vec2)> = near
+            .iter()
+            .map(|o| (0, *o))
+            .chain(near.iter().map(|o| (1, *o + o.normalized() * 22.0)))
+            .chain(near.iter().map(|o| (2, *o + o.normalized() * 48.0)))
+            .collect();
+        if let Some(m) = self.middle {
+            let out = (anchor - m).normalized();
+            offsets.sort_by(|(ra, a), (rb, b)| {
+                let facing = |o: &Vec2| -(*o + size / 2.0).normalized().dot(out);
+                ra.cmp(rb).then(facing(a).total_cmp(&facing(b)))
+            });
+        }
+        let offsets: Vec<Vec2> = offsets.into_iter().map(|(_, o)| o).collect();
         let clip = painter.clip_rect();
         let free = offsets
             .iter()
@@ -170,61 +208,31 @@ pub fn gauge(
         |p: SurfacePoint| lifted(member, &p, lift).map(|(q, _)| camera.project(q, centre).0);
     let mut length_px = 0.0f32;
     for e in 0..g.element_count() {
-        let fp = g.footprint(e);
-        let (l, w) = (fp.length_m / 2.0, fp.width_m / 2.0);
-        let (Some(a), Some(b)) = (to_screen(fp.point(-l, 0.0)), to_screen(fp.point(l, 0.0))) else {
-            continue;
-        };
-        length_px = length_px.max((b - a).length());
-        if (b - a).length() < 5.0 {
-            continue;
-        }
-        let outline: Vec<Pos2> = [(-l, -w), (l, -w), (l, w), (-l, w)]
-            .iter()
-            .flat_map(|&(u, v)| {
-                // Each side in four steps, so the outline follows a curved face.
-                let (nu, nv) = if v == -w {
-                    (1.0, 0.0)
-                } else if u == l {
-                    (0.0, 1.0)
-                } else if v == w {
-                    (-1.0, 0.0)
-                } else {
-                    (0.0, -1.0)
-                };
-                (0..4).map(move |k| {
-                    let t = k as f64 / 4.0;
-                    (u + nu * 2.0 * l * t, v + nv * 2.0 * w * t)
-                })
-            })
-            .filter_map(|(u, v)| to_screen(fp.point(u, v)))
-            .collect();
-        painter.add(Shape::convex_polygon(
-            outline.clone(),
-            Color32::from_rgba_unmultiplied(250, 250, 245, 70),
-            Stroke::NONE,
+        length_px = length_px.max(grid_ui(
+            painter,
+            &to_screen,
+            &g.footprint(e),
+            colour,
+            selected,
         ));
-        painter.add(Shape::closed_line(
-            outline,
-            Stroke::new(if selected { 2.0 } else { 1.3 }, colour),
-        ));
-        for k in 1..5 {
-            let v = -w + 2.0 * w * k as f64 / 5.0;
-            if let (Some(p), Some(q)) = (to_screen(fp.point(-l, v)), to_screen(fp.point(l, v))) {
-                painter.line_segment([p, q], Stroke::new(0.8, colour));
-            }
-        }
-        // Solder tabs at the −u end, a direction mark beyond the +u end.
-        let tab: Vec<Pos2> = [(-l, -w), (-l - 0.45 * l, -w), (-l - 0.45 * l, w), (-l, w)]
-            .iter()
-            .filter_map(|&(u, v)| to_screen(fp.point(u, v)))
-            .collect();
-        painter.add(Shape::convex_polygon(tab, colour, Stroke::NONE));
-        if let (Some(p), Some(q)) = (
-            to_screen(fp.point(l, 0.0)),
-            to_screen(fp.point(l * 1.6, 0.0)),
-        ) {
-            arrow(painter, p, q, Stroke::new(1.5, colour));
+    }
+    // One direction mark per gauge: its reference direction, from the centre out past the
+    // grid, so a turned rosette shows which way it points even as a dot.
+    let reference = gw_mechanics::GridFootprint {
+        angle_rad: g.angle_rad,
+        ..g.footprint(0)
+    };
+    let reach = 0.5 * reference.length_m.max(reference.width_m);
+    if let (Some(p), Some(q)) = (
+        to_screen(reference.point(0.0, 0.0)),
+        to_screen(reference.point(reach, 0.0)),
+    ) {
+        let d = q - p;
+        let len = d.length();
+        if len > 1e-3 {
+            let tip = p + d / len * (len * 1.7).max(14.0);
+            let from = p + d / len * len.min(6.0);
+            arrow(painter, from, tip, Stroke::new(1.8, colour));
         }
     }
     if length_px < 5.0 {
@@ -235,6 +243,58 @@ pub fn gauge(
         centre: c2,
         length_px,
     })
+}
+
+/// One grid drawn to scale: its outline following the face, grid lines and solder tabs at the
+/// −u end. Returns its length on screen (nothing is drawn below 5 px).
+fn grid_ui(
+    painter: &Painter,
+    to_screen: &dyn Fn(SurfacePoint) -> Option<Pos2>,
+    fp: &gw_mechanics::GridFootprint,
+    colour: Color32,
+    selected: bool,
+) -> f32 {
+    let (l, w) = (fp.length_m / 2.0, fp.width_m / 2.0);
+    let (Some(a), Some(b)) = (to_screen(fp.point(-l, 0.0)), to_screen(fp.point(l, 0.0))) else {
+        return 0.0;
+    };
+    let length = (b - a).length();
+    if length < 5.0 {
+        return length;
+    }
+    // Each side in four steps, so the outline follows a curved face.
+    let corners = [(-l, -w), (l, -w), (l, w), (-l, w)];
+    let outline: Vec<Pos2> = (0..4)
+        .flat_map(|i| {
+            let ((u0, v0), (u1, v1)) = (corners[i], corners[(i + 1) % 4]);
+            (0..4).map(move |k| {
+                let t = f64::from(k) / 4.0;
+                (u0 + (u1 - u0) * t, v0 + (v1 - v0) * t)
+            })
+        })
+        .filter_map(|(u, v)| to_screen(fp.point(u, v)))
+        .collect();
+    painter.add(Shape::convex_polygon(
+        outline.clone(),
+        Color32::from_rgba_unmultiplied(250, 250, 245, 70),
+        Stroke::NONE,
+    ));
+    painter.add(Shape::closed_line(
+        outline,
+        Stroke::new(if selected { 2.0 } else { 1.3 }, colour),
+    ));
+    for k in 1..5 {
+        let v = -w + 2.0 * w * f64::from(k) / 5.0;
+        if let (Some(p), Some(q)) = (to_screen(fp.point(-l, v)), to_screen(fp.point(l, v))) {
+            painter.line_segment([p, q], Stroke::new(0.8, colour));
+        }
+    }
+    let tab: Vec<Pos2> = [(-l, -w), (-l - 0.45 * l, -w), (-l - 0.45 * l, w), (-l, w)]
+        .iter()
+        .filter_map(|&(u, v)| to_screen(fp.point(u, v)))
+        .collect();
+    painter.add(Shape::convex_polygon(tab, colour, Stroke::NONE));
+    length
 }
 
 /// A straight arrow from `a` to `b` with a filled head at `b`.
@@ -255,20 +315,25 @@ pub fn arrow(painter: &Painter, a: Pos2, b: Pos2, stroke: Stroke) {
     ));
 }
 
-/// Every load of the case as arrows or turning arrows, each labelled with its value.
-pub fn loads(
+/// A label waiting to be placed: where it belongs and what it says.
+pub type PendingLabel = (Pos2, String);
+
+/// Every load of the case as arrows or turning arrows. An arrow hidden behind the part is left
+/// out. The space the arrows take is reserved, so labels placed later keep off them; the
+/// labels, each with the load's value, are returned to be placed once the gauges have theirs.
+pub fn load_arrows(
     painter: &Painter,
     (camera, centre, proj): (&Camera, Pos2, &Projection),
     scene: &Scene,
     units: Units,
     labels: &mut Labels,
-) {
+) -> Vec<PendingLabel> {
     let stroke = Stroke::new(2.2, colours::LOAD);
-    // An arrow behind the part is drawn faint, so it reads as behind.
-    let behind = Stroke::new(1.4, colours::LOAD.gamma_multiply(0.3));
     let (lo, hi) = scene.mesh.bounds();
     let tolerance = 1e-3 * (0..3).map(|i| hi[i] - lo[i]).fold(0.0, f64::max) as f32;
+    let mut pending = Vec::new();
     for g in &scene.glyphs {
+        let mut drawn = false;
         match &g.shape {
             GlyphShape::Arrows(list) => {
                 for [t, h] in list {
@@ -278,7 +343,11 @@ pub fn loads(
                     let hidden = proj.occluded(scene, mid.0, mid.1, tolerance)
                         && (proj.occluded(scene, a, da, tolerance)
                             || proj.occluded(scene, b, db, tolerance));
-                    arrow(painter, a, b, if hidden { behind } else { stroke });
+                    if !hidden {
+                        arrow(painter, a, b, stroke);
+                        labels.reserve_path(&[a, b]);
+                        drawn = true;
+                    }
                 }
             }
             GlyphShape::Couple {
@@ -286,22 +355,21 @@ pub fn loads(
                 axis,
                 radius_m,
             } => {
-                couple(painter, camera, centre, (*c, *axis, *radius_m), stroke);
+                let path = couple(painter, camera, centre, (*c, *axis, *radius_m), stroke);
+                labels.reserve_path(&path);
+                drawn = true;
             }
         }
-        let text = format!(
-            "{} {}",
-            capitalise(g.component.name()),
-            units.format(Quantity::of(g.component), g.value.abs())
-        );
-        labels.place(
-            painter,
-            camera.project(g.label_at, centre).0,
-            &text,
-            colours::LOAD,
-            true,
-        );
+        if drawn {
+            let text = format!(
+                "{} {}",
+                capitalise(g.component.name()),
+                units.format(Quantity::of(g.component), g.value.abs())
+            );
+            pending.push((camera.project(g.label_at, centre).0, text));
+        }
     }
+    pending
 }
 
 /// A turning arrow: three quarters of a circle about `axis`, head at the end.
@@ -311,7 +379,7 @@ fn couple(
     centre: Pos2,
     (c, axis, r): ([f64; 3], [f64; 3], f64),
     stroke: Stroke,
-) {
+) -> Vec<Pos2> {
     // Two unit vectors across the axis with e1 × e2 = axis, so growing t turns right-handed.
     let helper = if axis[0].abs() < 0.9 {
         [1.0, 0.0, 0.0]
@@ -346,7 +414,8 @@ fn couple(
     if let [.., a, b] = pts.as_slice() {
         arrow(painter, *a, *b, stroke);
     }
-    painter.add(Shape::line(pts, stroke));
+    painter.add(Shape::line(pts.clone(), stroke));
+    pts
 }
 
 /// The clamp or pins named beside them.
@@ -394,12 +463,12 @@ pub fn supports(
 /// The datum: a small cross on every face that can show it, named once.
 pub fn datum(
     painter: &Painter,
-    ctx: (&Member, &Camera, Pos2),
+    ctx: (&Member, &Camera, Pos2, &Scene, &Projection),
     datum_m: (f64, f64),
     size: f64,
     labels: &mut Labels,
 ) {
-    let (member, camera, centre) = ctx;
+    let (member, camera, centre, scene, proj) = ctx;
     let (_, _, eye) = camera.basis();
     let stroke = Stroke::new(1.6, palette::SELECTED);
     let mut named = false;
@@ -412,6 +481,12 @@ pub fn datum(
             continue;
         };
         if dot(fr.normal, eye) <= 0.05 {
+            continue;
+        }
+        let lift = 0.004 * size;
+        let (c2, depth) = camera.project(fr.position, centre);
+        let lifted_depth = depth + (lift * dot(fr.normal, eye)) as f32;
+        if proj.occluded(scene, c2, lifted_depth, lift as f32) {
             continue;
         }
         let at = |u: f64, v: f64| {
@@ -438,6 +513,7 @@ pub fn datum(
 pub fn axes(painter: &Painter, camera: &Camera, rect: Rect) {
     let (right, up, eye) = camera.basis();
     let origin = pos2(rect.left() + 46.0, rect.bottom() - 46.0);
+    painter.circle_filled(origin, 44.0, Color32::from_black_alpha(140));
     let mut order: Vec<usize> = vec![0, 1, 2];
     // Far axes first, so the near one is drawn over them.
     order.sort_by(|&a, &b| eye[a].total_cmp(&eye[b]));
