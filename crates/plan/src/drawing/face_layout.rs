@@ -11,7 +11,7 @@
 
 use std::f64::consts::{PI, TAU};
 
-use gw_mechanics::{BeamSupport, Face, Member, Section, VesselEnds};
+use gw_mechanics::{BeamSupport, Face, LoadComponent, Member, Section, VesselEnds};
 
 /// An axis-aligned rectangle on screen, pixels (y down).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -434,10 +434,11 @@ impl LabelPlacer {
 }
 
 /// Candidate top-left corners for a label of `size` beside `anchor`: right, left, above,
-/// below, the four corners, then the same again farther out.
+/// below, the four corners, then the same again twice, farther out each time (a label placed
+/// that far wants a leader line to its anchor, see [`is_beside`]).
 pub fn candidates_around(anchor: &ScreenRect, size: [f32; 2], gap: f32) -> Vec<[f32; 2]> {
-    let mut out = Vec::with_capacity(16);
-    for g in [gap, 3.0 * gap + size[1]] {
+    let mut out = Vec::with_capacity(24);
+    for g in [gap, 3.0 * gap + size[1], 6.0 * gap + 2.5 * size[1]] {
         let [cx, cy] = anchor.centre();
         let (w, h) = (size[0], size[1]);
         let right = anchor.max[0] + g;
@@ -456,6 +457,104 @@ pub fn candidates_around(anchor: &ScreenRect, size: [f32; 2], gap: f32) -> Vec<[
         ]);
     }
     out
+}
+
+/// True when a label at `label` touches `anchor` grown by `gap` (placed in the first ring of
+/// [`candidates_around`]); a label farther away is joined to its anchor by a leader line.
+pub fn is_beside(anchor: &ScreenRect, label: &ScreenRect, gap: f32) -> bool {
+    anchor.expand(gap + 0.5).overlaps(label)
+}
+
+/// How the window onto a face was fitted to the canvas, so that it is fitted the same way
+/// again when the canvas changes size (as long as the user has not zoomed or panned since).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum FitKind {
+    /// The window the face opens with ([`fit_window`]): the default.
+    Opening,
+    /// The whole face ([`whole_face_window`]), as "Whole face" asks.
+    WholeFace,
+}
+
+impl FitKind {
+    /// The window fitted this way onto `canvas`.
+    pub fn window(
+        self,
+        bounds: &FaceBounds,
+        canvas: &ScreenRect,
+        margin_px: f32,
+        focus_x_m: Option<f64>,
+    ) -> FaceWindow {
+        match self {
+            FitKind::Opening => fit_window(bounds, canvas, margin_px, focus_x_m),
+            FitKind::WholeFace => whole_face_window(bounds, canvas, margin_px),
+        }
+    }
+}
+
+/// Ticks of the arc-length ruler of an unrolled round face from drawn `s0_m` to `s1_m`: each
+/// as (drawn s, value), metres, the value counted in (−half, half] of the circumference
+/// `period_m` like stored positions, at multiples of `step_m`. Where one turn meets the next
+/// (at ±half) the last tick of one and the first of the other fall close together: a tick
+/// less than half a step after the one before is left out, so labels never overprint.
+pub fn arc_ruler_ticks(s0_m: f64, s1_m: f64, period_m: f64, step_m: f64) -> Vec<(f64, f64)> {
+    let ok = [s0_m, s1_m, period_m, step_m].iter().all(|v| v.is_finite());
+    if !ok || period_m <= 0.0 || step_m <= 0.0 || (s1_m - s0_m).abs() > 100.0 * period_m {
+        return Vec::new();
+    }
+    let (s0, s1) = (s0_m.min(s1_m), s0_m.max(s1_m));
+    let half = period_m / 2.0;
+    let turns = ((s0 + half) / period_m).floor() as i64..=((s1 + half) / period_m).ceil() as i64;
+    let tol = 1e-9 * period_m;
+    let mut all: Vec<(f64, f64)> = turns
+        .flat_map(|k| {
+            ruler_ticks(-half, half, step_m)
+                .into_iter()
+                // −half belongs to the previous turn.
+                .filter(|t| *t > -half + tol)
+                .map(move |t| (t + k as f64 * period_m, t))
+        })
+        .filter(|(s, _)| *s >= s0 - tol && *s <= s1 + tol)
+        .collect();
+    all.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let mut kept: Vec<(f64, f64)> = Vec::with_capacity(all.len());
+    for tick in all {
+        if kept
+            .last()
+            .is_none_or(|last| tick.0 - last.0 >= step_m / 2.0 - tol)
+        {
+            kept.push(tick);
+        }
+    }
+    kept
+}
+
+/// Which way a point force on a beam acts, in words, for a force `component` of `value`
+/// (N, with the component's sign convention); `None` for other components or a zero value.
+pub fn force_direction(component: LoadComponent, value: f64) -> Option<&'static str> {
+    if !value.is_finite() || value == 0.0 {
+        return None;
+    }
+    match component {
+        LoadComponent::VerticalForce if value > 0.0 => Some("down"),
+        LoadComponent::VerticalForce => Some("up"),
+        LoadComponent::LateralForce if value > 0.0 => Some("towards the back (+y)"),
+        LoadComponent::LateralForce => Some("towards the front (−y)"),
+        _ => None,
+    }
+}
+
+/// The part of a beam's point force along +s of a flat `face` (the force in the plane of the
+/// face, as drawn), from its vertical (positive down) and lateral (positive +y) components,
+/// newtons. `None` on a round face, where s runs round the section.
+pub fn force_along_s(face: Face, vertical_n: f64, lateral_n: f64) -> Option<f64> {
+    // s is +z on the front face, −z on the back, +y on the top and −y on the bottom.
+    match face {
+        Face::Front => Some(-vertical_n),
+        Face::Back => Some(vertical_n),
+        Face::Top => Some(lateral_n),
+        Face::Bottom => Some(-lateral_n),
+        _ => None,
+    }
 }
 
 /// How a member ends at one end of its length.
@@ -480,8 +579,12 @@ pub enum EndKind {
 pub enum Neighbour {
     /// Another face of the same member.
     Face(Face),
-    /// The tip of a flange (the long edges of an I section's flange faces).
-    FlangeTip,
+    /// The tip of a flange (the long edges of an I section's flange faces), on the side of
+    /// `toward` (the back face, +y, or the front face, −y).
+    FlangeTip {
+        /// [`Face::Back`] or [`Face::Front`]: which side of the section the tip is on.
+        toward: Face,
+    },
     /// The inside of a flange where the web meets it (the edges of an I section's web faces).
     FlangeInside {
         /// True for the top flange.
@@ -502,9 +605,40 @@ pub enum Neighbour {
     /// A pole of a sphere (the meridian arc ends there).
     Pole,
     /// The outer edge of a plate, where the remote stress is applied.
-    PlateEdge,
+    PlateEdge {
+        /// The line the edge lies on.
+        at: EdgeLine,
+    },
     /// The edge of the region a given surface state was entered for.
-    RegionEdge,
+    RegionEdge {
+        /// The line the edge lies on.
+        at: EdgeLine,
+    },
+}
+
+/// The line an edge of a flat face lies on, in face coordinates.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum EdgeLine {
+    /// x = `x_m` (a left or right edge).
+    X {
+        /// Metres.
+        x_m: f64,
+    },
+    /// s = `s_m` (a top or bottom edge).
+    S {
+        /// Metres.
+        s_m: f64,
+    },
+}
+
+impl EdgeLine {
+    /// "x = -25.0 mm"; `length` formats a length.
+    pub fn label(&self, length: &dyn Fn(f64) -> String) -> String {
+        match self {
+            EdgeLine::X { x_m } => format!("x = {}", length(*x_m)),
+            EdgeLine::S { s_m } => format!("s = {}", length(*s_m)),
+        }
+    }
 }
 
 impl Neighbour {
@@ -512,7 +646,10 @@ impl Neighbour {
     pub fn label(&self, length: &dyn Fn(f64) -> String) -> String {
         match self {
             Neighbour::Face(f) => f.name().to_owned(),
-            Neighbour::FlangeTip => "flange edge".to_owned(),
+            Neighbour::FlangeTip { toward } => match toward {
+                Face::Front => "flange edge, front (−y)".to_owned(),
+                _ => "flange edge, back (+y)".to_owned(),
+            },
             Neighbour::FlangeInside { top: true } => "top flange (inside)".to_owned(),
             Neighbour::FlangeInside { top: false } => "bottom flange (inside)".to_owned(),
             Neighbour::Seam { angle_deg } => {
@@ -533,8 +670,54 @@ impl Neighbour {
                 format!("{what} at x = {}", length(*x_m))
             }
             Neighbour::Pole => "pole".to_owned(),
-            Neighbour::PlateEdge => "plate edge".to_owned(),
-            Neighbour::RegionEdge => "edge of the region".to_owned(),
+            Neighbour::PlateEdge { at } => format!("plate edge at {}", at.label(length)),
+            Neighbour::RegionEdge { at } => format!("edge at {}", at.label(length)),
+        }
+    }
+
+    /// A short name for a narrow band, where [`Neighbour::label`] does not fit.
+    pub fn short_label(&self) -> &'static str {
+        match self {
+            Neighbour::Face(_) => "face",
+            Neighbour::FlangeTip { .. } => "flange edge",
+            Neighbour::FlangeInside { .. } => "flange",
+            Neighbour::Seam { .. } => "seam",
+            Neighbour::End { kind, .. } => match kind {
+                EndKind::Clamped => "clamp",
+                EndKind::Pinned => "pin",
+                EndKind::Free => "free end",
+                EndKind::ShaftEnd => "end",
+                EndKind::ClosedVesselEnd => "closed end",
+                EndKind::OpenVesselEnd => "open end",
+            },
+            Neighbour::Pole => "pole",
+            Neighbour::PlateEdge { .. } => "plate edge",
+            Neighbour::RegionEdge { .. } => "edge",
+        }
+    }
+
+    /// What the band beyond the edge stands for, for its tooltip.
+    pub fn explanation(&self) -> &'static str {
+        match self {
+            Neighbour::Face(_) => "The next face of the member continues past this edge.",
+            Neighbour::FlangeTip { .. } => "The flange ends here.",
+            Neighbour::FlangeInside { .. } => "The web meets the flange here.",
+            Neighbour::Seam { .. } => {
+                "The round face is cut open here to lay it flat; it continues at the other edge."
+            }
+            Neighbour::End { kind, .. } => match kind {
+                EndKind::Clamped => "The clamp holds the beam fixed beyond this edge.",
+                EndKind::Pinned => "The beam rests on a pin here, free to turn.",
+                EndKind::Free => "Nothing holds the beam beyond this edge.",
+                EndKind::ShaftEnd => "The shaft ends here.",
+                EndKind::ClosedVesselEnd => "A closed end carries the pressure's axial pull.",
+                EndKind::OpenVesselEnd => "An open end carries no axial load.",
+            },
+            Neighbour::Pole => "The meridian ends at the pole.",
+            Neighbour::PlateEdge { .. } => "The remote stress acts on the plate beyond this edge.",
+            Neighbour::RegionEdge { .. } => {
+                "The given surface state was entered for this region only."
+            }
         }
     }
 }
@@ -559,7 +742,12 @@ pub struct FaceEdges {
 /// runs towards +y (the back face), on the bottom face towards −y (the front face), on the
 /// front face up (the top face), on the back face down (the bottom face).
 pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
-    let (x_min, x_max) = ends(member);
+    let extent = member.faces().into_iter().find(|e| e.face == face);
+    let (x_range, s_range) =
+        extent.map_or(((0.0, 0.0), (0.0, 0.0)), |e| (e.x_range_m, e.s_range_m));
+    let s_line = |s_m: f64| EdgeLine::S { s_m };
+    let (x_min, x_max) = ends(member, x_range);
+    let tip = |toward: Face| Neighbour::FlangeTip { toward };
     let (s_max, s_min) = match (member, face) {
         (_, Face::Round) => (
             Neighbour::Seam {
@@ -570,7 +758,9 @@ pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
             },
         ),
         (Member::Beam(b), f) if matches!(b.section, Section::IBeam { .. }) => match f {
-            Face::Top | Face::Bottom => (Neighbour::FlangeTip, Neighbour::FlangeTip),
+            // s runs towards +y on the top face and towards −y on the bottom face.
+            Face::Top => (tip(Face::Back), tip(Face::Front)),
+            Face::Bottom => (tip(Face::Front), tip(Face::Back)),
             Face::Front => (
                 Neighbour::FlangeInside { top: true },
                 Neighbour::FlangeInside { top: false },
@@ -580,13 +770,26 @@ pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
                 Neighbour::FlangeInside { top: true },
             ),
         },
-        (Member::PlateWithHole(_), _) => (Neighbour::PlateEdge, Neighbour::PlateEdge),
-        (Member::GivenState(_), _) => (Neighbour::RegionEdge, Neighbour::RegionEdge),
+        (Member::PlateWithHole(_), _) => (
+            Neighbour::PlateEdge {
+                at: s_line(s_range.1),
+            },
+            Neighbour::PlateEdge {
+                at: s_line(s_range.0),
+            },
+        ),
+        (Member::GivenState(_), _) | (_, Face::Plate) => (
+            Neighbour::RegionEdge {
+                at: s_line(s_range.1),
+            },
+            Neighbour::RegionEdge {
+                at: s_line(s_range.0),
+            },
+        ),
         (_, Face::Top) => (Neighbour::Face(Face::Back), Neighbour::Face(Face::Front)),
         (_, Face::Bottom) => (Neighbour::Face(Face::Front), Neighbour::Face(Face::Back)),
         (_, Face::Front) => (Neighbour::Face(Face::Top), Neighbour::Face(Face::Bottom)),
         (_, Face::Back) => (Neighbour::Face(Face::Bottom), Neighbour::Face(Face::Top)),
-        (_, Face::Plate) => (Neighbour::RegionEdge, Neighbour::RegionEdge),
     };
     FaceEdges {
         s_max,
@@ -596,8 +799,9 @@ pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
     }
 }
 
-/// The neighbours beyond x = start and x = end of a member.
-fn ends(member: &Member) -> (Neighbour, Neighbour) {
+/// The neighbours beyond x = start and x = end of a member whose faces run over `x_range`.
+fn ends(member: &Member, x_range: (f64, f64)) -> (Neighbour, Neighbour) {
+    let x_line = |x_m: f64| EdgeLine::X { x_m };
     let end = |x_m: f64, kind: EndKind| Neighbour::End { x_m, kind };
     match member {
         Member::Beam(b) => match b.support {
@@ -619,8 +823,22 @@ fn ends(member: &Member) -> (Neighbour, Neighbour) {
             (end(0.0, kind), end(c.length_m, kind))
         }
         Member::ThinSphere(_) => (Neighbour::Pole, Neighbour::Pole),
-        Member::PlateWithHole(_) => (Neighbour::PlateEdge, Neighbour::PlateEdge),
-        Member::GivenState(_) => (Neighbour::RegionEdge, Neighbour::RegionEdge),
+        Member::PlateWithHole(_) => (
+            Neighbour::PlateEdge {
+                at: x_line(x_range.0),
+            },
+            Neighbour::PlateEdge {
+                at: x_line(x_range.1),
+            },
+        ),
+        Member::GivenState(_) => (
+            Neighbour::RegionEdge {
+                at: x_line(x_range.0),
+            },
+            Neighbour::RegionEdge {
+                at: x_line(x_range.1),
+            },
+        ),
     }
 }
 
@@ -868,7 +1086,10 @@ mod tests {
             BeamSupport::SimplySupported,
         );
         let top = face_edges(&ibeam, Face::Top, 0.0);
-        assert_eq!(top.s_max.label(&mm), "flange edge");
+        assert_eq!(top.s_max.label(&mm), "flange edge, back (+y)");
+        assert_eq!(top.s_min.label(&mm), "flange edge, front (−y)");
+        let bottom = face_edges(&ibeam, Face::Bottom, 0.0);
+        assert_eq!(bottom.s_max.label(&mm), "flange edge, front (−y)");
         assert_eq!(top.x_min.label(&mm), "pinned end at x = 0 mm");
         let web = face_edges(&ibeam, Face::Front, 0.0);
         assert_eq!(web.s_max, Neighbour::FlangeInside { top: true });
@@ -880,5 +1101,160 @@ mod tests {
         );
         let e = face_edges(&round, Face::Round, 270.0);
         assert_eq!(e.s_min.label(&mm), "seam at -90°, joins the other edge");
+    }
+
+    /// The four names of a face's edges, top, bottom, left, right.
+    fn edge_names(member: &Member, face: Face) -> [String; 4] {
+        let mm = |x: f64| format!("{:.0} mm", x * 1e3);
+        let e = face_edges(member, face, 0.0);
+        [e.s_max, e.s_min, e.x_min, e.x_max].map(|n| n.label(&mm))
+    }
+
+    fn all_differ(names: &[String]) -> bool {
+        names
+            .iter()
+            .enumerate()
+            .all(|(i, a)| names.iter().skip(i + 1).all(|b| a != b))
+    }
+
+    #[test]
+    fn each_edge_of_an_i_section_flange_and_of_a_given_state_patch_has_its_own_name() {
+        let ibeam = beam(
+            Section::IBeam {
+                flange_width_m: 0.1,
+                depth_m: 0.2,
+                flange_thickness_m: 0.01,
+                web_thickness_m: 0.006,
+            },
+            BeamSupport::SimplySupported,
+        );
+        for face in [Face::Top, Face::Bottom, Face::Front, Face::Back] {
+            let names = edge_names(&ibeam, face);
+            assert!(all_differ(&names), "{face:?}: {names:?}");
+        }
+        let gallery = crate::gallery::model_gallery();
+        let patch = gallery
+            .parts
+            .iter()
+            .map(|p| p.member.clone())
+            .find(|m| matches!(m, Member::GivenState(_)))
+            .expect("the gallery has a given-state patch");
+        let face = patch.faces()[0].face;
+        let names = edge_names(&patch, face);
+        assert!(all_differ(&names), "{names:?}");
+        assert_eq!(names[2], "edge at x = -25 mm");
+        assert_eq!(names[0], "edge at s = 25 mm");
+    }
+
+    /// The Ram barrel of the gallery: 314 mm round, the seam at 180°, 50 mm steps. Ticks at
+    /// +150 mm and at −150 mm of the next turn are 14 mm apart across the seam.
+    #[test]
+    fn arc_ruler_labels_at_the_seam_do_not_overprint() {
+        let period = 0.314;
+        let step = 0.05;
+        let start = period / 2.0;
+        // The visible range runs past both edges of the face (the band and the margin).
+        let ticks = arc_ruler_ticks(start - 0.03, start + period + 0.03, period, step);
+        assert!(!ticks.is_empty());
+        for w in ticks.windows(2) {
+            assert!(
+                w[1].0 - w[0].0 >= step / 2.0 - 1e-12,
+                "{:?} and {:?} overprint",
+                w[0],
+                w[1]
+            );
+        }
+        // Every value is in (−half, half] and each turn's ticks are labelled once.
+        assert!(ticks.iter().all(|(_, v)| *v > -0.157 && *v <= 0.157));
+        let zero = ticks.iter().filter(|(_, v)| v.abs() < 1e-12).count();
+        assert_eq!(zero, 1, "{ticks:?}");
+        // +150 mm is kept; −150 mm of the next turn, 14 mm after it, is left out.
+        assert!(ticks.iter().any(|(_, v)| (v - 0.15).abs() < 1e-12));
+        assert!(
+            !ticks.iter().any(|(_, v)| (v + 0.15).abs() < 1e-12),
+            "{ticks:?}"
+        );
+        assert!(arc_ruler_ticks(0.0, f64::NAN, period, step).is_empty());
+        assert!(arc_ruler_ticks(0.0, 1.0, 0.0, step).is_empty());
+    }
+
+    #[test]
+    fn placed_labels_never_overlap_each_other_or_what_is_blocked() {
+        // A crowd of gauges and symbols on a small canvas, labels of several sizes for each:
+        // whatever is placed is inside the bounds and clear of everything else.
+        let bounds = ScreenRect::from_min_size([0.0, 0.0], [300.0, 200.0]);
+        let mut placer = LabelPlacer::new(bounds);
+        let mut seed = 12345u32;
+        let mut next = move || {
+            seed = seed.wrapping_mul(1_103_515_245).wrapping_add(12_345);
+            (seed >> 8) as f32 / (1u32 << 24) as f32
+        };
+        let mut blocked = Vec::new();
+        for _ in 0..20 {
+            let r = ScreenRect::from_min_size([next() * 280.0, next() * 180.0], [20.0, 20.0]);
+            placer.block(r);
+            blocked.push(r);
+        }
+        let mut placed = Vec::new();
+        for k in 0..60 {
+            let anchor = blocked[k % blocked.len()];
+            let size = [20.0 + next() * 60.0, 14.0];
+            if let Some(a) = placer.place(size, &candidates_around(&anchor, size, 4.0)) {
+                placed.push(a);
+            }
+        }
+        assert!(placed.len() >= 10, "only {} placed", placed.len());
+        for (i, a) in placed.iter().enumerate() {
+            assert!(bounds.contains_rect(a));
+            assert!(
+                blocked.iter().all(|b| !b.overlaps(a)),
+                "{a:?} covers a symbol"
+            );
+            assert!(
+                placed[i + 1..].iter().all(|b| !b.overlaps(a)),
+                "{a:?} overlaps"
+            );
+        }
+    }
+
+    #[test]
+    fn a_whole_face_fit_is_done_again_for_a_new_canvas() {
+        let bounds = FaceBounds {
+            x_m: (0.0, 0.45),
+            s_m: (-0.015, 0.015),
+        };
+        let small = ScreenRect::from_min_size([0.0, 0.0], [400.0, 300.0]);
+        let large = ScreenRect::from_min_size([0.0, 0.0], [800.0, 500.0]);
+        let a = FitKind::WholeFace.window(&bounds, &small, 10.0, None);
+        let b = FitKind::WholeFace.window(&bounds, &large, 10.0, None);
+        assert!(a.shows_whole(&small, &bounds) && b.shows_whole(&large, &bounds));
+        assert!((b.px_per_m / a.px_per_m - 780.0 / 380.0).abs() < 1e-9);
+        // The opening fit of a strip fills the height instead.
+        let c = FitKind::Opening.window(&bounds, &large, 10.0, None);
+        assert!((c.px_per_m - 480.0 / 0.03).abs() < 1e-6);
+    }
+
+    #[test]
+    fn point_forces_are_described_and_drawn_the_way_they_act() {
+        assert_eq!(
+            force_direction(LoadComponent::VerticalForce, 6e3),
+            Some("down")
+        );
+        assert_eq!(
+            force_direction(LoadComponent::VerticalForce, -1.0),
+            Some("up")
+        );
+        assert_eq!(
+            force_direction(LoadComponent::LateralForce, -1.0),
+            Some("towards the front (−y)")
+        );
+        assert_eq!(force_direction(LoadComponent::VerticalForce, 0.0), None);
+        assert_eq!(force_direction(LoadComponent::Torque, 1.0), None);
+        // Down on the front face (s up) is −s; on the back face (s down) +s; on the top face a
+        // vertical force has no part in the plane.
+        assert_eq!(force_along_s(Face::Front, 6e3, 0.0), Some(-6e3));
+        assert_eq!(force_along_s(Face::Back, 6e3, 0.0), Some(6e3));
+        assert_eq!(force_along_s(Face::Top, 6e3, 0.0), Some(0.0));
+        assert_eq!(force_along_s(Face::Round, 6e3, 0.0), None);
     }
 }
