@@ -7,10 +7,15 @@ use std::f32::consts::FRAC_PI_2;
 use egui::{Color32, FontId, Painter, Rect, Shape, Stroke, pos2, vec2};
 use gw_mechanics::{LoadComponent, Member};
 use gw_plan::drawing::face_layout::{
-    EndKind, LabelPlacer, Neighbour, candidates_around, face_edges,
+    EndKind, LabelPlacer, Neighbour, candidates_around, face_edges, force_along_s, force_direction,
+    is_beside,
 };
 
 use super::{BAND, Scene, View, to_rect, to_screen_rect};
+use crate::units::{Quantity, Units};
+
+/// Space between a label and what it names, points.
+const LABEL_GAP: f32 = 4.0;
 
 /// Ink for symbols drawn over the map.
 const INK: Color32 = Color32::from_rgb(25, 25, 30);
@@ -28,7 +33,8 @@ enum Side {
     Right,
 }
 
-/// The bands, end symbols, load points and datum.
+/// The bands, end symbols, load points and datum, with their labels placed clear of what
+/// the placer already holds (the gauges and their handles).
 pub(super) fn edges_ui(
     ui: &egui::Ui,
     painter: &Painter,
@@ -44,7 +50,7 @@ pub(super) fn edges_ui(
         hole_ui(ui, painter, view, p.hole_diameter_m / 2.0);
     }
     load_points_ui(ui, painter, scene, view, placer);
-    datum_ui(painter, scene, view, placer);
+    datum_label_ui(painter, scene, view, placer);
     for (side, neighbour) in [
         (Side::Top, edges.s_max),
         (Side::Bottom, edges.s_min),
@@ -52,6 +58,27 @@ pub(super) fn edges_ui(
         (Side::Right, edges.x_max),
     ] {
         band_ui(ui, painter, scene, view, placer, side, neighbour);
+    }
+}
+
+/// What must stay visible over the gauges (an enlarged gauge is drawn larger than the room it
+/// has): the edge of the hole and the datum mark.
+pub(super) fn over_gauges_ui(ui: &egui::Ui, painter: &Painter, scene: &Scene, view: View) {
+    if let Member::PlateWithHole(p) = &scene.part.member {
+        let r = (p.hole_diameter_m / 2.0) as f32 * view.scale();
+        let c = view.pos(0.0, 0.0);
+        painter.circle_stroke(c, r, Stroke::new(1.5, ui.visuals().text_color()));
+    }
+    let (dx, ds) = scene.part.datum_m;
+    let c = view.pos(dx, scene.drawn_s(ds));
+    if view.area.expand(8.0).contains(c) {
+        // A pale halo under the ink, so the mark reads over a dark hole or a gauge's grid.
+        let halo = Stroke::new(3.5, Color32::from_rgba_unmultiplied(250, 250, 246, 200));
+        for stroke in [halo, Stroke::new(1.5, INK)] {
+            painter.circle_stroke(c, 5.0, stroke);
+            painter.line_segment([c - vec2(8.0, 0.0), c + vec2(8.0, 0.0)], stroke);
+            painter.line_segment([c - vec2(0.0, 8.0), c + vec2(0.0, 8.0)], stroke);
+        }
     }
 }
 
@@ -104,20 +131,36 @@ fn band_ui(
                 Stroke::new(3.0, ui.visuals().text_color()),
             );
         }
-        Neighbour::PlateEdge => {
-            stress_arrows_ui(painter, scene, visible, side, ui.visuals().text_color())
+        Neighbour::PlateEdge { .. } => {
+            for arrow in stress_arrows_ui(painter, scene, visible, side, ui.visuals().text_color())
+            {
+                placer.block(to_screen_rect(arrow));
+            }
         }
         _ => {}
     }
     let name = band_text(scene, side, neighbour);
-    band_label_ui(ui, painter, visible, side, &name, placer);
+    ui.interact(
+        visible,
+        ui.scope_id().with(("band", side as u8)),
+        egui::Sense::hover(),
+    )
+    .on_hover_text(format!("{name}. {}", neighbour.explanation()));
+    band_label_ui(
+        ui,
+        painter,
+        visible,
+        side,
+        &[&name, neighbour.short_label()],
+        placer,
+    );
 }
 
 /// The band's words: the neighbour, and on a plate the remote stress applied there.
 fn band_text(scene: &Scene, side: Side, neighbour: Neighbour) -> String {
     let length = |x: f64| scene.length(x);
     let name = neighbour.label(&length);
-    if neighbour != Neighbour::PlateEdge {
+    if !matches!(neighbour, Neighbour::PlateEdge { .. }) {
         return name;
     }
     let (component, symbol) = match side {
@@ -137,53 +180,63 @@ fn band_text(scene: &Scene, side: Side, neighbour: Neighbour) -> String {
 }
 
 /// The band's name, centred on the visible part of the band (turned along the side bands),
-/// moved along the band when the middle is taken, left out when it fits nowhere.
+/// moved along the band when the middle is taken; the first of `names` that fits inside the
+/// band's visible length, left out when none fits (the band's tooltip still names it).
 fn band_label_ui(
     ui: &egui::Ui,
     painter: &Painter,
     visible: Rect,
     side: Side,
-    name: &str,
+    names: &[&str],
     placer: &mut LabelPlacer,
 ) {
     let colour = ui.visuals().strong_text_color();
-    let galley = painter.layout_no_wrap(name.to_owned(), label_font(), colour);
-    let (w, h) = (galley.size().x, galley.size().y);
     let vertical = matches!(side, Side::Left | Side::Right);
-    let size = if vertical { [h, w] } else { [w, h] };
-    let c = visible.center();
-    let candidates: Vec<[f32; 2]> = if vertical {
-        [0.5, 0.25, 0.75]
-            .iter()
-            .map(|f| {
-                [
-                    c.x - h / 2.0,
-                    visible.top() + visible.height() * f - w / 2.0,
-                ]
-            })
-            .collect()
+    let room = if vertical {
+        visible.height()
     } else {
-        [0.5, 0.2, 0.8]
+        visible.width()
+    } - 6.0;
+    for name in names {
+        let galley = painter.layout_no_wrap((*name).to_owned(), label_font(), colour);
+        let (w, h) = (galley.size().x, galley.size().y);
+        if w > room {
+            continue;
+        }
+        let size = if vertical { [h, w] } else { [w, h] };
+        let c = visible.center();
+        let candidates: Vec<[f32; 2]> = [0.5, 0.25, 0.75, 0.15, 0.85]
             .iter()
             .map(|f| {
-                [
-                    visible.left() + visible.width() * f - w / 2.0,
-                    c.y - h / 2.0,
-                ]
+                if vertical {
+                    let y = visible.top() + visible.height() * f - w / 2.0;
+                    [
+                        c.x - h / 2.0,
+                        y.clamp(visible.top() + 3.0, visible.bottom() - 3.0 - w),
+                    ]
+                } else {
+                    let x = visible.left() + visible.width() * f - w / 2.0;
+                    [
+                        x.clamp(visible.left() + 3.0, visible.right() - 3.0 - w),
+                        c.y - h / 2.0,
+                    ]
+                }
             })
-            .collect()
-    };
-    let Some(area) = placer.place(size, &candidates) else {
+            .collect();
+        let Some(area) = placer.place(size, &candidates) else {
+            continue;
+        };
+        let area = to_rect(&area);
+        if vertical {
+            // Read from bottom to top, turned a quarter to the left.
+            painter.add(
+                egui::epaint::TextShape::new(area.left_bottom(), galley, colour)
+                    .with_angle(-FRAC_PI_2),
+            );
+        } else {
+            painter.galley(area.min, galley, colour);
+        }
         return;
-    };
-    let area = to_rect(&area);
-    if vertical {
-        // Read from bottom to top, turned a quarter to the left.
-        painter.add(
-            egui::epaint::TextShape::new(area.left_bottom(), galley, colour).with_angle(-FRAC_PI_2),
-        );
-    } else {
-        painter.galley(area.min, galley, colour);
     }
 }
 
@@ -230,15 +283,21 @@ fn pin_ui(painter: &Painter, band: Rect, side: Side, colour: Color32) {
 }
 
 /// Arrows of the remote stress on a plate edge: out of the plate for tension, into it for
-/// compression.
-fn stress_arrows_ui(painter: &Painter, scene: &Scene, band: Rect, side: Side, colour: Color32) {
+/// compression. Returns where they are drawn.
+fn stress_arrows_ui(
+    painter: &Painter,
+    scene: &Scene,
+    band: Rect,
+    side: Side,
+    colour: Color32,
+) -> Vec<Rect> {
     let component = match side {
         Side::Left | Side::Right => LoadComponent::RemoteStressX,
         _ => LoadComponent::RemoteStressY,
     };
     let sigma = scene.loads[component];
     if sigma == 0.0 || !sigma.is_finite() {
-        return;
+        return Vec::new();
     }
     let outward = match side {
         Side::Left => vec2(-1.0, 0.0),
@@ -248,14 +307,18 @@ fn stress_arrows_ui(painter: &Painter, scene: &Scene, band: Rect, side: Side, co
     };
     let dir = if sigma > 0.0 { outward } else { -outward };
     let stroke = Stroke::new(1.5, colour);
-    for f in [0.1, 0.9] {
-        let c = band.lerp_inside(vec2(f, f));
-        let c = match side {
-            Side::Left | Side::Right => pos2(band.center().x, c.y),
-            _ => pos2(c.x, band.center().y),
-        };
-        painter.arrow(c - dir * 7.0, dir * 14.0, stroke);
-    }
+    [0.1, 0.9]
+        .into_iter()
+        .map(|f| {
+            let c = band.lerp_inside(vec2(f, f));
+            let c = match side {
+                Side::Left | Side::Right => pos2(band.center().x, c.y),
+                _ => pos2(c.x, band.center().y),
+            };
+            painter.arrow(c - dir * 7.0, dir * 14.0, stroke);
+            Rect::from_center_size(c, vec2(16.0, 16.0))
+        })
+        .collect()
 }
 
 /// The hole of a plate: left empty, outlined.
@@ -270,8 +333,8 @@ fn hole_ui(ui: &egui::Ui, painter: &Painter, view: View, radius_m: f64) {
     );
 }
 
-/// Load points of a beam: a dashed line across the face at each and an arrow onto its top
-/// edge, with a label.
+/// Load points of a beam: a dashed line across the face at each, an arrow the way the force
+/// acts where it lies in the plane of the face, and a label with its value and direction.
 fn load_points_ui(
     ui: &egui::Ui,
     painter: &Painter,
@@ -283,7 +346,9 @@ fn load_points_ui(
         return;
     };
     let face = view.face_rect(&scene.bounds);
-    let stroke = Stroke::new(1.5, INK);
+    let vertical = scene.loads[LoadComponent::VerticalForce];
+    let lateral = scene.loads[LoadComponent::LateralForce];
+    let ink = ui.visuals().strong_text_color();
     for (k, lp) in beam.load_points.iter().enumerate() {
         let x = view.pos(lp.position_m, 0.0).x;
         if x < view.area.left() - 1.0 || x > view.area.right() + 1.0 {
@@ -291,38 +356,70 @@ fn load_points_ui(
         }
         let line = [pos2(x, face.top()), pos2(x, face.bottom())];
         painter.extend(Shape::dashed_line(&line, Stroke::new(1.0, INK), 6.0, 4.0));
-        let tip = pos2(x, face.top());
-        painter.arrow(
-            tip - vec2(0.0, BAND),
-            vec2(0.0, BAND - 1.0),
-            Stroke::new(2.0, ui.visuals().strong_text_color()),
-        );
-        let arrow = Rect::from_min_max(tip - vec2(5.0, BAND), tip + vec2(5.0, 0.0));
-        placer.block(to_screen_rect(arrow));
-        let mut name = if beam.load_points.len() > 1 {
-            format!("load point {}", k + 1)
-        } else {
-            "load point".to_owned()
+        let along_s = force_along_s(scene.face, vertical * lp.multiple, lateral * lp.multiple);
+        // Onto the top edge pushing down the screen (−s), or onto the bottom edge pushing up.
+        let (tip, dir) = match along_s {
+            Some(f) if f > 0.0 => (pos2(x, face.bottom()), -1.0),
+            _ => (pos2(x, face.top()), 1.0),
         };
-        if (lp.multiple - 1.0).abs() > 1e-9 {
-            name.push_str(&format!(" (×{})", lp.multiple));
+        let shows_way = along_s.is_some_and(|f| f != 0.0 && f.is_finite());
+        let stroke = Stroke::new(2.0, ink);
+        let tail = tip - vec2(0.0, dir * BAND);
+        if shows_way {
+            painter.arrow(tail, vec2(0.0, dir * (BAND - 1.0)), stroke);
+        } else {
+            painter.line_segment([tail, tip], Stroke::new(1.0, ink));
         }
-        let anchor = Rect::from_min_max(tip, tip + vec2(1.0, 6.0));
-        pill_label_ui(painter, anchor, &name, placer, stroke.color);
+        let mark = Rect::from_two_pos(tail - vec2(5.0, 0.0), tip + vec2(5.0, 0.0));
+        placer.block(to_screen_rect(mark));
+        let name = load_point_text(scene, beam.load_points.len(), k, lp.multiple);
+        let anchor = Rect::from_center_size(tip + vec2(0.0, dir * 6.0), vec2(2.0, 10.0));
+        pill_label_ui(painter, anchor, &name, placer, INK);
     }
 }
 
-/// The datum: a cross at its point and a dashed line at its x.
-fn datum_ui(painter: &Painter, scene: &Scene, view: View, placer: &mut LabelPlacer) {
+/// "load point: vertical force 6.000 kN, down": each force the point carries in this load
+/// case, with the way it acts.
+fn load_point_text(scene: &Scene, count: usize, k: usize, multiple: f64) -> String {
+    let mut name = if count > 1 {
+        format!("load point {}", k + 1)
+    } else {
+        "load point".to_owned()
+    };
+    if (multiple - 1.0).abs() > 1e-9 {
+        name.push_str(&format!(" (×{multiple})"));
+    }
+    let forces: Vec<String> = [LoadComponent::VerticalForce, LoadComponent::LateralForce]
+        .into_iter()
+        .filter_map(|c| {
+            let value = scene.loads[c] * multiple;
+            let way = force_direction(c, value)?;
+            let shown = force_text(scene, value.abs());
+            Some(format!("{} {shown}, {way}", c.name()))
+        })
+        .collect();
+    if forces.is_empty() {
+        format!("{name}: no force in this case")
+    } else {
+        format!("{name}: {}", forces.join("; "))
+    }
+}
+
+/// A force for a label: kN from 1 kN up in SI, else the unit system's own.
+fn force_text(scene: &Scene, force_n: f64) -> String {
+    match scene.units {
+        Units::Si if force_n >= 1e3 => format!("{:.2} kN", force_n / 1e3),
+        units => units.format(Quantity::Force, force_n),
+    }
+}
+
+/// The datum's label beside its mark (the mark is drawn over the gauges).
+fn datum_label_ui(painter: &Painter, scene: &Scene, view: View, placer: &mut LabelPlacer) {
     let (dx, ds) = scene.part.datum_m;
     let c = view.pos(dx, scene.drawn_s(ds));
     if !view.area.expand(8.0).contains(c) {
         return;
     }
-    let stroke = Stroke::new(1.5, INK);
-    painter.circle_stroke(c, 5.0, stroke);
-    painter.line_segment([c - vec2(8.0, 0.0), c + vec2(8.0, 0.0)], stroke);
-    painter.line_segment([c - vec2(0.0, 8.0), c + vec2(0.0, 8.0)], stroke);
     let mark = Rect::from_center_size(c, vec2(16.0, 16.0));
     placer.block(to_screen_rect(mark));
     pill_label_ui(painter, mark, "datum", placer, INK);
@@ -338,11 +435,18 @@ pub(super) fn pill_label_ui(
 ) -> Option<Rect> {
     let galley = painter.layout_no_wrap(text.to_owned(), label_font(), colour);
     let size = galley.size() + vec2(6.0, 2.0);
-    let area = placer.place(
+    let anchor_rect = to_screen_rect(anchor);
+    let placed = placer.place(
         [size.x, size.y],
-        &candidates_around(&to_screen_rect(anchor), [size.x, size.y], 4.0),
+        &candidates_around(&anchor_rect, [size.x, size.y], LABEL_GAP),
     )?;
-    let area = to_rect(&area);
+    let area = to_rect(&placed);
+    if !is_beside(&anchor_rect, &placed, LABEL_GAP) {
+        // Placed farther out: a leader line says what it names.
+        let from = anchor.clamp(area.center());
+        let to = area.clamp(anchor.center());
+        painter.line_segment([from, to], Stroke::new(1.0, colour.gamma_multiply(0.8)));
+    }
     painter.rect_filled(
         area,
         3.0,

@@ -1,5 +1,6 @@
-//! Gauges on the face: drawn to scale (or at a minimum size, the same enlargement for all)
-//! with their grid lines, solder tabs at one end and a direction mark at the other; each an
+//! Gauges on the face: drawn to scale (or at a minimum size, the same enlargement for all, then
+//! translucent) with their grid lines and solder tabs, and an arrow along the reference
+//! direction (the gauge's angle) for every pattern; each an
 //! accessible handle that selects on click and moves on drag (snapping to 0.5 mm, stations and
 //! the centre line), and a round handle on the selected gauge that turns it (5° steps unless
 //! Shift is held). Ids are labelled at the first free place beside each gauge.
@@ -48,8 +49,13 @@ pub(super) fn enlargement(scene: &Scene, view: View) -> f64 {
     face_layout::enlargement(smallest * view.window.px_per_m, MIN_GAUGE_PX)
 }
 
+/// Gap between the direction arrow's tip and the turn handle, points.
+const HANDLE_GAP: f32 = 14.0;
+/// Radius of the turn handle, points.
+const HANDLE_RADIUS: f32 = 6.0;
+
 /// One gauge as drawn this frame.
-struct Drawn {
+pub(super) struct Drawn {
     index: usize,
     gauge: PlacedGauge,
     /// Screen centres: the first inside the drawn face, a second beyond the far edge when the
@@ -57,57 +63,98 @@ struct Drawn {
     centres: Vec<Pos2>,
     /// Screen points per metre of the drawing (true scale × enlargement).
     scale: f32,
+    /// Drawn larger than true size: translucent, so what lies under it shows.
+    enlarged: bool,
     selected: bool,
 }
 
 impl Drawn {
-    /// Half the drawn size, points.
+    /// Half the size of the backing film, points.
     fn half(&self) -> f32 {
-        0.85 * (self
-            .gauge
-            .spec
-            .grid_length_m
-            .max(self.gauge.spec.grid_width_m) as f32)
-            * self.scale
+        backing_half(&self.gauge, self.scale)
     }
 
+    /// The boxes round everything drawn of the gauge: backing, tabs and direction arrow.
     fn boxes(&self) -> impl Iterator<Item = Rect> + '_ {
-        let h = self.half();
+        let points = outline_points(&self.gauge, self.scale);
         self.centres
             .iter()
-            .map(move |c| Rect::from_center_size(*c, Vec2::splat(2.0 * h)))
+            .map(move |c| Rect::from_points(&points.iter().map(|p| *c + *p).collect::<Vec<_>>()))
     }
 
-    /// Where the turn handle sits: beyond the direction mark.
+    /// Where the turn handle sits: on the reference direction, beyond the direction arrow.
     fn turn_handle(&self) -> Option<Pos2> {
         let c = *self.centres.first()?;
-        let a = self.gauge.angle_rad;
-        Some(c + vec2(a.cos() as f32, -(a.sin() as f32)) * (self.half() + 16.0))
+        let (u, _) = axes(self.gauge.angle_rad);
+        let reach = self.half() + arrow_length(self.half()) + HANDLE_GAP;
+        Some(c + u * reach)
+    }
+
+    /// Blocks the gauge, and on the selected one its turn handle and the line to it, so that
+    /// no label covers them.
+    fn block(&self, placer: &mut LabelPlacer) {
+        for b in self.boxes() {
+            placer.block(to_screen_rect(b));
+        }
+        let (Some(c), Some(h), true) = (self.centres.first(), self.turn_handle(), self.selected)
+        else {
+            return;
+        };
+        placer.block(to_screen_rect(Rect::from_center_size(
+            h,
+            Vec2::splat(2.0 * HANDLE_RADIUS + 4.0),
+        )));
+        // The line in short pieces, so that its box does not take the whole diagonal.
+        for k in 0..=8 {
+            let p = c.lerp(h, k as f32 / 8.0);
+            placer.block(to_screen_rect(Rect::from_center_size(p, Vec2::splat(6.0))));
+        }
     }
 }
 
+/// Half the size of a gauge's backing film at `scale` points per metre.
+fn backing_half(g: &PlacedGauge, scale: f32) -> f32 {
+    0.85 * (g.spec.grid_length_m.max(g.spec.grid_width_m) as f32) * scale
+}
+
+/// Length of the direction arrow beyond a backing of half size `half`, points.
+fn arrow_length(half: f32) -> f32 {
+    (0.35 * half).clamp(6.0, 12.0)
+}
+
+/// The corners of everything drawn of a gauge, from its centre: backing, solder tabs of every
+/// grid, and the tip of the direction arrow.
+fn outline_points(g: &PlacedGauge, scale: f32) -> Vec<Vec2> {
+    let half = backing_half(g, scale);
+    let len = g.spec.grid_length_m as f32 * scale;
+    let wid = g.spec.grid_width_m as f32 * scale;
+    let (u, v) = axes(g.angle_rad);
+    let mut out: Vec<Vec2> = [(-1.0, -1.0), (1.0, -1.0), (1.0, 1.0), (-1.0, 1.0)]
+        .iter()
+        .map(|(p, q)| u * (p * half) + v * (q * half))
+        .collect();
+    out.push(u * (half + arrow_length(half)));
+    for e in 0..g.element_count() {
+        let (u, v) = axes(g.element_angle_rad(e));
+        let back = -(0.5 + 0.08 + 0.28) * len;
+        out.extend([u * back + v * (wid / 2.0), u * back - v * (wid / 2.0)]);
+    }
+    out
+}
+
 impl FaceView {
-    /// Draws the gauges on the face and handles moving and turning them.
+    /// Draws the gauges on the face (placed by [`FaceView::drawn_gauges`], already blocked
+    /// for labels) and handles moving and turning them; their ids go at the first free place.
     pub(super) fn gauges_ui(
         &mut self,
         ui: &mut egui::Ui,
         painter: &Painter,
         scene: &Scene,
         view: View,
+        drawn: &[Drawn],
         placer: &mut LabelPlacer,
         out: &mut Vec<Command>,
     ) {
-        let drawn = self.drawn_gauges(scene, view);
-        for d in &drawn {
-            for b in d.boxes() {
-                placer.block(to_screen_rect(b));
-            }
-            if d.selected
-                && let Some(h) = d.turn_handle()
-            {
-                placer.block(to_screen_rect(Rect::from_center_size(h, Vec2::splat(14.0))));
-            }
-        }
         // The selected gauge last, so it lies on top.
         let order = drawn
             .iter()
@@ -115,17 +162,17 @@ impl FaceView {
             .chain(drawn.iter().filter(|d| d.selected));
         for d in order {
             for c in &d.centres {
-                gauge_shape_ui(painter, *c, &d.gauge, d.scale, d.selected);
+                gauge_shape_ui(painter, *c, &d.gauge, d.scale, d.selected, d.enlarged);
             }
         }
-        for d in &drawn {
+        for d in drawn {
             self.gauge_handle_ui(ui, scene, view, d, out);
         }
         // The turn handle last, so it stays on top of any gauge it lies over.
         for d in drawn.iter().filter(|d| d.selected) {
             self.turn_handle_ui(ui, painter, scene, d, out);
         }
-        for d in &drawn {
+        for d in drawn {
             for b in d.boxes() {
                 let ink = if d.selected { SELECTED } else { GRID_INK };
                 pill_label_ui(painter, b, &d.gauge.id, placer, ink);
@@ -133,9 +180,16 @@ impl FaceView {
         }
     }
 
+    /// Keeps every gauge of the face, and the selected one's turn handle, clear of labels.
+    pub(super) fn block_gauges(drawn: &[Drawn], placer: &mut LabelPlacer) {
+        for d in drawn {
+            d.block(placer);
+        }
+    }
+
     /// The gauges of this face where they are drawn, with a gauge being dragged or turned at
     /// its draft place.
-    fn drawn_gauges(&self, scene: &Scene, view: View) -> Vec<Drawn> {
+    pub(super) fn drawn_gauges(&self, scene: &Scene, view: View) -> Vec<Drawn> {
         let k = enlargement(scene, view) as f32;
         let mut out = Vec::new();
         for (index, g) in &scene.gauges {
@@ -167,6 +221,7 @@ impl FaceView {
                 gauge,
                 centres,
                 scale: view.scale() * k,
+                enlarged: k > 1.0 + 1e-6,
             });
         }
         out
@@ -234,7 +289,7 @@ impl FaceView {
         }
     }
 
-    /// The round handle beyond the selected gauge's direction mark: drag to turn.
+    /// The round handle beyond the selected gauge's direction arrow: drag to turn.
     fn turn_handle_ui(
         &mut self,
         ui: &mut egui::Ui,
@@ -246,8 +301,16 @@ impl FaceView {
         let (Some(centre), Some(at)) = (d.centres.first().copied(), d.turn_handle()) else {
             return;
         };
-        painter.line_segment([centre, at], Stroke::new(1.0, SELECTED));
-        painter.circle(at, 6.0, Color32::WHITE, Stroke::new(2.0, SELECTED));
+        // On the reference direction, continuing the direction arrow.
+        let (u, _) = axes(d.gauge.angle_rad);
+        let tip = centre + u * (d.half() + arrow_length(d.half()));
+        painter.line_segment([tip, at], Stroke::new(1.5, SELECTED));
+        painter.circle(
+            at,
+            HANDLE_RADIUS,
+            Color32::WHITE,
+            Stroke::new(2.0, SELECTED),
+        );
         let handle = ui.interact(
             Rect::from_center_size(at, Vec2::splat(16.0)),
             ui.scope_id().with(("turn", d.index)),
@@ -317,14 +380,22 @@ fn snapped(scene: &Scene, view: View, gauge: usize, x: f64, s: f64) -> SurfacePo
     )
 }
 
-/// Draws one gauge at `centre`: backing, then each grid with its serpentine lines, solder tabs
-/// at its start and, for the reference grid, a direction mark at its far end.
-fn gauge_shape_ui(painter: &Painter, centre: Pos2, g: &PlacedGauge, scale: f32, selected: bool) {
+/// Draws one gauge at `centre`: backing, each grid with its serpentine lines and solder tabs
+/// at its start, and the direction arrow: the gauge's reference direction (its angle), drawn
+/// the same way for every pattern. An enlarged gauge is translucent, so the features it lies
+/// over stay visible.
+fn gauge_shape_ui(
+    painter: &Painter,
+    centre: Pos2,
+    g: &PlacedGauge,
+    scale: f32,
+    selected: bool,
+    enlarged: bool,
+) {
     let len = g.spec.grid_length_m as f32 * scale;
     let wid = g.spec.grid_width_m as f32 * scale;
-    let a = g.angle_rad;
-    let (u, v) = axes(a);
-    let half = 0.85 * len.max(wid);
+    let (u, v) = axes(g.angle_rad);
+    let half = backing_half(g, scale);
     let backing: Vec<Pos2> = [(-1.0, -1.0), (1.0, -1.0), (1.0, 1.0), (-1.0, 1.0)]
         .iter()
         .map(|(p, q)| centre + u * (p * half) + v * (q * half))
@@ -334,11 +405,25 @@ fn gauge_shape_ui(painter: &Painter, centre: Pos2, g: &PlacedGauge, scale: f32, 
     } else {
         Stroke::new(1.0, Color32::from_rgba_unmultiplied(30, 30, 36, 120))
     };
-    painter.add(Shape::convex_polygon(backing, BACKING, outline));
+    let (film, ink) = if enlarged {
+        (BACKING.gamma_multiply(0.45), GRID_INK.gamma_multiply(0.75))
+    } else {
+        (BACKING, GRID_INK)
+    };
+    painter.add(Shape::convex_polygon(backing, film, outline));
     for e in 0..g.element_count() {
         let (u, v) = axes(g.element_angle_rad(e));
-        grid_ui(painter, centre, u, v, len, wid, e == 0);
+        grid_ui(painter, centre, u, v, len, wid, ink);
     }
+    let arrow_ink = if selected { SELECTED } else { GRID_INK };
+    let base = centre + u * half;
+    let tip = centre + u * (half + arrow_length(half));
+    let side = v * (0.45 * arrow_length(half));
+    painter.add(Shape::convex_polygon(
+        vec![tip, base + side, base - side],
+        arrow_ink,
+        Stroke::NONE,
+    ));
 }
 
 /// Screen directions of a grid's axis (u) and across it (v), for an angle counter-clockwise
@@ -348,9 +433,8 @@ fn axes(angle_rad: f64) -> (Vec2, Vec2) {
     (vec2(c, -s), vec2(-s, -c))
 }
 
-/// One grid: serpentine lines along u, tabs beyond the −u end, a mark beyond the +u end of
-/// the reference grid.
-fn grid_ui(painter: &Painter, c: Pos2, u: Vec2, v: Vec2, len: f32, wid: f32, reference: bool) {
+/// One grid: serpentine lines along u, tabs beyond the −u end.
+fn grid_ui(painter: &Painter, c: Pos2, u: Vec2, v: Vec2, len: f32, wid: f32, ink: Color32) {
     // An even number of lines, so the grid starts and ends at the tab end.
     let n = 2 * ((wid / 5.0).clamp(2.0, 4.0) as usize);
     let at = |along: f32, across: f32| c + u * along + v * across;
@@ -366,7 +450,7 @@ fn grid_ui(painter: &Painter, c: Pos2, u: Vec2, v: Vec2, len: f32, wid: f32, ref
         path.push(at(to, across(i)));
     }
     let width = if len > 40.0 { 1.4 } else { 1.0 };
-    painter.add(Shape::line(path, Stroke::new(width, GRID_INK)));
+    painter.add(Shape::line(path, Stroke::new(width, ink)));
     // Solder tabs: two pads beyond the start of the grid, joined to the first and last lines.
     let tab_len = 0.28 * len;
     let tab_wid = 0.38 * wid;
@@ -377,20 +461,10 @@ fn grid_ui(painter: &Painter, c: Pos2, u: Vec2, v: Vec2, len: f32, wid: f32, ref
             .iter()
             .map(|(p, q)| at(start + p * tab_len, mid + q * tab_wid))
             .collect();
-        painter.add(Shape::convex_polygon(pad, TABS, Stroke::new(0.8, GRID_INK)));
+        painter.add(Shape::convex_polygon(pad, TABS, Stroke::new(0.8, ink)));
         painter.line_segment(
             [at(-len / 2.0, across(line)), at(start, mid)],
-            Stroke::new(width, GRID_INK),
+            Stroke::new(width, ink),
         );
-    }
-    if reference {
-        let tip = at(len / 2.0 + 0.42 * len, 0.0);
-        let base = at(len / 2.0 + 0.14 * len, 0.0);
-        let side = v * (0.14 * len);
-        painter.add(Shape::convex_polygon(
-            vec![tip, base + side, base - side],
-            GRID_INK,
-            Stroke::NONE,
-        ));
     }
 }

@@ -21,7 +21,7 @@ use gw_bridge::{GaugePattern, PlacedGauge};
 use gw_mechanics::{Face, FaceExtent, LoadVector, SurfacePoint};
 use gw_plan::Part;
 use gw_plan::drawing::face_layout::{
-    self, FaceBounds, FaceWindow, LabelPlacer, ScreenRect, seam_angle, wrap_into,
+    FaceBounds, FaceWindow, FitKind, LabelPlacer, ScreenRect, seam_angle, wrap_into,
 };
 
 use super::map::MapSettings;
@@ -38,7 +38,7 @@ const TOP_RULER: f32 = 20.0;
 /// Width of the rulers at the left and (round faces) right, points.
 const SIDE_RULER: f32 = 46.0;
 /// Height of what is drawn below the canvas: overview strip, readout, legend, selection line.
-const BELOW_CANVAS: f32 = 150.0;
+const BELOW_CANVAS: f32 = 172.0;
 
 /// View state of the face view.
 pub struct FaceView {
@@ -51,9 +51,10 @@ pub struct FaceView {
     turn: Option<(usize, f64)>,
     /// The gauge selected when the face was last chosen: selecting another gauge shows its face.
     followed: Option<(usize, usize)>,
-    /// The window onto the face, for (part, face), and the drawing-area size it was fitted
-    /// to (`None` once the user zoomed or panned: it is kept as they left it).
-    window: Option<((usize, Face), FaceWindow, Option<egui::Vec2>)>,
+    /// The window onto the face, for (part, face), with how and to which drawing-area size
+    /// it was fitted (`None` once the user zoomed or panned: it is kept as they left it, else
+    /// it is fitted again the same way when the size changes).
+    window: Option<((usize, Face), FaceWindow, Option<(FitKind, egui::Vec2)>)>,
     /// The seam of a round face, degrees, for (part, face, gauges on the face).
     seam: Option<((usize, Face, usize), f64)>,
     /// A change of window asked for by a button, done once the canvas is laid out.
@@ -242,9 +243,13 @@ impl FaceView {
             layer.paint(&painter, scene, view);
         }
         map_layer::principal_marks_ui(&painter, scene, settings, view);
+        // Gauges are placed (and kept clear of labels) before anything is labelled.
         let mut placer = LabelPlacer::new(to_screen_rect(view.area.shrink(2.0)));
+        let drawn = self.drawn_gauges(scene, view);
+        Self::block_gauges(&drawn, &mut placer);
         edges::edges_ui(ui, &painter, scene, view, &mut placer);
-        self.gauges_ui(ui, &painter, scene, view, &mut placer, out);
+        self.gauges_ui(ui, &painter, scene, view, &drawn, &mut placer, out);
+        edges::over_gauges_ui(ui, &painter, scene, view);
         if response.clicked() {
             out.push(Command::Select(Selection {
                 gauge: None,
@@ -393,20 +398,19 @@ impl FaceView {
         let key = (scene.sel.part, scene.face);
         let size = area.size();
         let window = match self.window {
-            Some((k, w, fitted)) if k == key && fitted.is_none_or(|f| f == size) => w,
-            _ => {
-                let focus = self.focus_x(scene);
-                let w = face_layout::fit_window(
-                    &scene.bounds,
-                    &to_screen_rect(area),
-                    FIT_MARGIN,
-                    focus,
-                );
-                self.window = Some((key, w, Some(size)));
-                w
-            }
+            Some((k, w, fitted)) if k == key && fitted.is_none_or(|(_, f)| f == size) => w,
+            Some((k, _, Some((kind, _)))) if k == key => self.fit(scene, area, kind),
+            _ => self.fit(scene, area, FitKind::Opening),
         };
         View { area, window }
+    }
+
+    /// Fits the window onto the drawing `area` the way `kind` says, and keeps it.
+    fn fit(&mut self, scene: &Scene, area: Rect, kind: FitKind) -> FaceWindow {
+        let focus = self.focus_x(scene);
+        let w = kind.window(&scene.bounds, &to_screen_rect(area), FIT_MARGIN, focus);
+        self.window = Some(((scene.sel.part, scene.face), w, Some((kind, area.size()))));
+        w
     }
 
     /// Where a fitted window centres along x: the selected gauge, else the middle of the

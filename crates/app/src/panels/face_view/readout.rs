@@ -13,7 +13,8 @@ use crate::units::microstrain;
 
 impl FaceView {
     /// The two readout lines, the legend and the selection line, each on one line that is
-    /// cut short rather than wrapped or run out of the panel.
+    /// cut short rather than run out of the panel; the reading of a pattern with several grids
+    /// wraps onto a second line so that every grid is named.
     pub(super) fn readout_ui(
         &self,
         ui: &mut egui::Ui,
@@ -37,7 +38,8 @@ impl FaceView {
             ),
         };
         ui.add(Label::new(first).truncate());
-        ui.add(Label::new(RichText::new(second)).truncate());
+        // A rosette's reading names every grid: wrapped rather than cut short.
+        ui.add(Label::new(RichText::new(second)).wrap());
         if let Some(layer) = &self.map {
             settings.legend_ui(ui, layer.found, scene.units, "on this face");
         }
@@ -93,10 +95,10 @@ impl FaceView {
             Some(r) => {
                 let parts: Vec<String> = r
                     .iter()
-                    .map(|g| format!("{:.0}°: {}", g.angle_deg, microstrain(g.strain)))
+                    .map(|g| format!("{:.0}° grid {}", g.angle_deg, microstrain(g.strain)))
                     .collect();
                 format!(
-                    "A {} here, reference along the axis, reads {} (grid averages)",
+                    "A {} here (reference along the axis) reads: {}",
                     self.pattern.name(),
                     parts.join(", ")
                 )

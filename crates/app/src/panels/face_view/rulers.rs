@@ -5,7 +5,8 @@ use std::f64::consts::PI;
 
 use egui::{Align2, Color32, FontId, Painter, Pos2, Rect, Sense, Stroke, pos2, vec2};
 use gw_plan::drawing::face_layout::{
-    self, angle_step_deg, normalised_deg, ruler_step, ruler_ticks, scale_bar_length,
+    self, angle_step_deg, arc_ruler_ticks, normalised_deg, ruler_step, ruler_ticks,
+    scale_bar_length,
 };
 
 use super::{FIT_MARGIN, FaceView, SIDE_RULER, Scene, TOP_RULER, View, ViewRequest, gauges};
@@ -153,31 +154,17 @@ fn arc_ruler_ui(ui: &egui::Ui, scene: &Scene, view: View, r: f64, text: Color32)
     let per_m = scene.units_per_m();
     let step = ruler_step(view.window.px_per_m / per_m, SIDE_SPACING);
     let (_, (s0, s1)) = view.window.visible(&view.canvas());
-    let half = PI * r;
-    let period = 2.0 * half;
     let stroke = Stroke::new(1.0, text);
-    let copies = ((s0 + half) / period).floor() as i64..=((s1 + half) / period).ceil() as i64;
-    for k in copies {
-        let shift = k as f64 * period;
-        for t in ruler_ticks(-half * per_m, half * per_m, step) {
-            // Each position once: −half belongs to the previous turn.
-            if t <= -half * per_m + 1e-9 {
-                continue;
-            }
-            let s = t / per_m + shift;
-            if s < s0 || s > s1 {
-                continue;
-            }
-            let y = view.pos(0.0, s).y;
-            painter.line_segment([pos2(band.left(), y), pos2(band.left() + 7.0, y)], stroke);
-            painter.text(
-                pos2(band.left() + 9.0, y),
-                Align2::LEFT_CENTER,
-                tick_text(t, step),
-                ruler_font(),
-                text,
-            );
-        }
+    for (s, value) in arc_ruler_ticks(s0, s1, 2.0 * PI * r, step / per_m) {
+        let y = view.pos(0.0, s).y;
+        painter.line_segment([pos2(band.left(), y), pos2(band.left() + 7.0, y)], stroke);
+        painter.text(
+            pos2(band.left() + 9.0, y),
+            Align2::LEFT_CENTER,
+            tick_text(value * per_m, step),
+            ruler_font(),
+            text,
+        );
     }
 }
 
@@ -232,7 +219,10 @@ impl FaceView {
         let canvas = view.canvas();
         let whole = face_layout::whole_face_window(&scene.bounds, &canvas, FIT_MARGIN);
         match self.request.take() {
-            Some(ViewRequest::WholeFace) => self.set_window(scene, whole),
+            Some(ViewRequest::WholeFace) => {
+                // A fit: done again if the view changes size before the user zooms or pans.
+                self.fit(scene, view.area, face_layout::FitKind::WholeFace);
+            }
             Some(ViewRequest::Selection) => {
                 if let Some((_, g)) = scene.on_face().find(|(i, _)| Some(*i) == scene.sel.gauge) {
                     // Close enough that the grid is about 90 points long.

@@ -34,10 +34,31 @@ impl FaceView {
             self.pattern_ui(ui, scene, shown, out);
             self.gauge_tools_ui(ui, scene, out);
         });
+        self.elsewhere_ui(ui, scene);
+    }
+
+    /// When the selected gauge is on another face: says so, with a button that shows it (the
+    /// gauge tools are greyed out meanwhile, so they never act on a gauge out of sight).
+    fn elsewhere_ui(&mut self, ui: &mut egui::Ui, scene: &Scene) {
+        let Some(g) = selected_elsewhere(scene) else {
+            return;
+        };
+        let face = g.position.face;
+        ui.horizontal_wrapped(|ui| {
+            ui.label(format!("{} is on the {}.", g.id, face.name()));
+            if ui
+                .button(format!("Show the {}", face.name()))
+                .on_hover_text("Show the face the selected gauge is on")
+                .clicked()
+            {
+                self.face = Some(face);
+            }
+        });
     }
 
     /// Face picker, "Whole face" and "Zoom to selection".
     fn face_row_ui(&mut self, ui: &mut egui::Ui, scene: &Scene) {
+        wrap_unless_fits(ui, "Face", FACE_COMBO);
         ui.horizontal(|ui| {
             let label = ui.label("Face").id;
             ComboBox::from_id_salt("canvas face")
@@ -79,6 +100,7 @@ impl FaceView {
         shown: Option<FaceWindow>,
         out: &mut Vec<Command>,
     ) {
+        wrap_unless_fits(ui, "Pattern", PATTERN_COMBO);
         ui.horizontal(|ui| self.pattern_combo_ui(ui));
         if ui
             .button("Add gauge")
@@ -117,10 +139,12 @@ impl FaceView {
     /// Typed angle, turn buttons and "Datum here", for the selected gauge.
     fn gauge_tools_ui(&mut self, ui: &mut egui::Ui, scene: &Scene, out: &mut Vec<Command>) {
         let part = scene.sel.part;
+        // Only a gauge on the face shown: one elsewhere is named in a line of its own.
         let selected = scene
             .sel
             .gauge
-            .and_then(|g| scene.part.gauges.get(g).map(|p| (g, p)));
+            .and_then(|g| scene.part.gauges.get(g).map(|p| (g, p)))
+            .filter(|(_, p)| p.position.face == scene.face);
         let enabled = selected.is_some();
         let angle_rad = match (selected, self.turn) {
             (Some((g, _)), Some((t, a))) if g == t => a,
@@ -128,6 +152,12 @@ impl FaceView {
             (None, _) => 0.0,
         };
         let mut deg = angle_rad.to_degrees();
+        let disabled_why = if selected_elsewhere(scene).is_some() {
+            "The selected gauge is on another face: show that face first"
+        } else {
+            "Select a gauge on this face first"
+        };
+        wrap_unless_fits(ui, "Gauge angle", ANGLE_FIELD);
         let field = ui
             .horizontal(|ui| {
                 let label = ui.label("Gauge angle").id;
@@ -148,6 +178,7 @@ impl FaceView {
                     "Direction of the selected gauge, counter-clockwise from the member axis \
                      seen from outside: type it, or drag",
                 )
+                .on_disabled_hover_text(disabled_why)
             })
             .inner;
         if let Some((g, _)) = selected {
@@ -167,6 +198,7 @@ impl FaceView {
             if ui
                 .add_enabled(enabled, Button::new(text))
                 .on_hover_text("Turn the selected gauge (or drag the round handle beside it)")
+                .on_disabled_hover_text(disabled_why)
                 .clicked()
                 && let Some((g, p)) = selected
             {
@@ -183,6 +215,7 @@ impl FaceView {
                 "Put the dimension datum at the selected gauge's centre; the build sheet \
                  measures from it",
             )
+            .on_disabled_hover_text(disabled_why)
             .clicked()
             && let Some((_, p)) = selected
         {
@@ -192,6 +225,29 @@ impl FaceView {
                 s_m: p.position.s_m,
             });
         }
+    }
+}
+
+/// The selected gauge when it is on another face than the one shown.
+fn selected_elsewhere<'a>(scene: &Scene<'a>) -> Option<&'a gw_plan::PlanGauge> {
+    let g = scene.part.gauges.get(scene.sel.gauge?)?;
+    (g.position.face != scene.face).then_some(g)
+}
+
+/// In a wrapping row: starts a new row unless a label with `text` and a control of
+/// `control_width` points fit in what is left of this one (a labelled pair is laid out as
+/// one piece, which the row would not wrap by itself).
+fn wrap_unless_fits(ui: &mut egui::Ui, text: &str, control_width: f32) {
+    let galley = egui::WidgetText::from(text).into_galley(
+        ui,
+        Some(egui::TextWrapMode::Extend),
+        f32::INFINITY,
+        egui::TextStyle::Body,
+    );
+    let needed = galley.size().x + ui.spacing().item_spacing.x + control_width + 8.0;
+    let at_row_start = ui.cursor().left() <= ui.max_rect().left() + 1.0;
+    if !at_row_start && ui.available_size_before_wrap().x < needed {
+        ui.end_row();
     }
 }
 
