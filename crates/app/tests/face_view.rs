@@ -5,7 +5,7 @@
 mod support;
 
 use egui::accesskit::Role;
-use egui_kittest::kittest::Queryable;
+use egui_kittest::kittest::{NodeT, Queryable};
 use gw_mechanics::{Face, Member, Shaft, SurfacePoint};
 use support::*;
 
@@ -147,4 +147,75 @@ fn the_demo_shaft_opens_with_every_gauge_whole_and_clickable() {
     h.run();
     assert_eq!(h.state().doc.selection.gauge, Some(3));
     assert!((inspector_number(&h, "Angle")).abs() < 1e-9);
+}
+
+/// Picks `face` in the face view's face picker (the inspector has a "Face" field too).
+fn choose_face(h: &mut App, face: &str) {
+    // The one on the row of "Whole face".
+    let row = centre_of(h, "Whole face").y;
+    h.get_all_by_role_and_label(Role::ComboBox, "Face")
+        .find(|n| (n.rect().center().y - row).abs() < 6.0)
+        .expect("the face picker of the face view")
+        .click();
+    h.run();
+    [Role::Menu, Role::ListBox]
+        .into_iter()
+        .flat_map(|role| h.query_all_by_role(role))
+        .find_map(|popup| popup.query_by_label(face))
+        .unwrap_or_else(|| panic!("the face picker offers no {face}"))
+        .click();
+    h.run();
+}
+
+/// Whether the control of `role` labelled `label` can be used.
+fn enabled(h: &App, role: Role, label: &str) -> bool {
+    !control(h, Look::Anywhere, role, label)
+        .accesskit_node()
+        .is_disabled()
+}
+
+#[test]
+fn the_gauge_tools_do_not_act_on_a_selected_gauge_on_another_face() {
+    let mut h = app_on(gw_plan::demo::demo_project());
+    select(&mut h, "Gauge S1 (±45° shear pair)");
+    open_face_tab(&mut h);
+    assert!(enabled(&h, Role::SpinButton, "Gauge angle"));
+    // The user picks the top face; S1 stays selected on the front face.
+    choose_face(&mut h, "top face");
+    assert_eq!(h.state().doc.selection.gauge, Some(4));
+    h.get_by_label("S1 is on the front face.");
+    assert!(!enabled(&h, Role::SpinButton, "Gauge angle"));
+    assert!(!enabled(&h, Role::Button, "Turn 15° left"));
+    assert!(!enabled(&h, Role::Button, "Datum here"));
+    let before = h.state().doc.project.parts[0].gauges[4].angle_rad;
+    h.get_by_role_and_label(Role::Button, "Turn 15° left")
+        .click();
+    h.run();
+    assert_eq!(h.state().doc.project.parts[0].gauges[4].angle_rad, before);
+    // One press shows its face, and the tools act on it again.
+    press(&mut h, "Show the front face");
+    assert!(h.query_by_label("S1 is on the front face.").is_none());
+    h.get_by_role_and_label(Role::Button, "Gauge S1");
+    assert!(enabled(&h, Role::Button, "Turn 15° left"));
+    press(&mut h, "Turn 15° left");
+    let after = h.state().doc.project.parts[0].gauges[4].angle_rad;
+    assert!((after - before - 15f64.to_radians()).abs() < 1e-9);
+}
+
+#[test]
+fn whole_face_is_fitted_again_when_the_window_changes_size() {
+    let mut h = app_on(gw_plan::demo::demo_project());
+    open_face_tab(&mut h);
+    press(&mut h, "Whole face");
+    // A1 and A3 sit 15 mm apart across the top face.
+    let width = |h: &App| centre_of(h, "Gauge A1").y - centre_of(h, "Gauge A3").y;
+    let before = width(&h).abs();
+    h.set_size(egui::vec2(1900.0, 1060.0));
+    h.run();
+    h.run();
+    let after = width(&h).abs();
+    assert!(
+        after > before * 1.2,
+        "the gauges are {before} and then {after} points apart"
+    );
 }
