@@ -119,7 +119,7 @@ fn backing_half(g: &PlacedGauge, scale: f32) -> f32 {
 
 /// Length of the direction arrow beyond a backing of half size `half`, points.
 fn arrow_length(half: f32) -> f32 {
-    (0.35 * half).clamp(6.0, 12.0)
+    (0.35 * half).clamp(8.0, 14.0)
 }
 
 /// The corners of everything drawn of a gauge, from its centre: backing, solder tabs of every
@@ -148,13 +148,13 @@ impl FaceView {
     pub(super) fn gauges_ui(
         &mut self,
         ui: &mut egui::Ui,
-        painter: &Painter,
         scene: &Scene,
         view: View,
         drawn: &[Drawn],
         placer: &mut LabelPlacer,
         out: &mut Vec<Command>,
     ) {
+        let painter = &ui.painter_at(view.area);
         // The selected gauge last, so it lies on top.
         let order = drawn
             .iter()

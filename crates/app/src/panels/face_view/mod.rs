@@ -40,6 +40,10 @@ const SIDE_RULER: f32 = 46.0;
 /// Height of what is drawn below the canvas: overview strip, readout, legend, selection line.
 const BELOW_CANVAS: f32 = 172.0;
 
+/// How a window was fitted and to which drawing-area size; `None` when the user zoomed or
+/// panned.
+type Fitted = Option<(FitKind, egui::Vec2)>;
+
 /// View state of the face view.
 pub struct FaceView {
     face: Option<Face>,
@@ -54,7 +58,7 @@ pub struct FaceView {
     /// The window onto the face, for (part, face), with how and to which drawing-area size
     /// it was fitted (`None` once the user zoomed or panned: it is kept as they left it, else
     /// it is fitted again the same way when the size changes).
-    window: Option<((usize, Face), FaceWindow, Option<(FitKind, egui::Vec2)>)>,
+    window: Option<((usize, Face), FaceWindow, Fitted)>,
     /// The seam of a round face, degrees, for (part, face, gauges on the face).
     seam: Option<((usize, Face, usize), f64)>,
     /// A change of window asked for by a button, done once the canvas is laid out.
@@ -248,7 +252,7 @@ impl FaceView {
         let drawn = self.drawn_gauges(scene, view);
         Self::block_gauges(&drawn, &mut placer);
         edges::edges_ui(ui, &painter, scene, view, &mut placer);
-        self.gauges_ui(ui, &painter, scene, view, &drawn, &mut placer, out);
+        self.gauges_ui(ui, scene, view, &drawn, &mut placer, out);
         edges::over_gauges_ui(ui, &painter, scene, view);
         if response.clicked() {
             out.push(Command::Select(Selection {
