@@ -687,7 +687,7 @@ impl GaugewrightApp {
                     .part_view
                     .part_ui(ui, &self.doc, &mut self.map, &mut out)
                 {
-                    self.face_view.show_face(face);
+                    self.face_view.show_face(self.doc.selection.part, face);
                     self.tab = Tab::Face;
                 }
             }

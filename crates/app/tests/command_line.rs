@@ -57,12 +57,38 @@ fn an_unknown_view_is_refused_naming_the_valid_views() {
     assert!(!o.status.success(), "{}", describe(&o));
     let err = text(&o.stderr);
     assert!(err.contains("bogus"), "{err}");
-    for view in ["layout", "bridges", "results", "help"] {
+    for view in ["part", "face", "bridges", "results", "help"] {
         assert!(err.contains(view), "{view} not named in: {err}");
     }
     assert!(
         !err.contains("Gaugewright window"),
         "the app was started: {err}"
+    );
+}
+
+#[test]
+fn a_part_number_below_one_and_an_unknown_camera_are_refused() {
+    let o = gaugewright().args(["--part", "0"]).output().unwrap();
+    assert!(!o.status.success(), "{}", describe(&o));
+    assert!(text(&o.stderr).contains("--part"), "{}", describe(&o));
+    let o = gaugewright()
+        .args(["--camera", "sideways"])
+        .output()
+        .unwrap();
+    assert!(!o.status.success(), "{}", describe(&o));
+    let err = text(&o.stderr);
+    for from in ["isometric", "front", "top", "end"] {
+        assert!(err.contains(from), "{from} not named in: {err}");
+    }
+    let o = gaugewright()
+        .args(["--part", "2", "check", "x.ron"])
+        .output()
+        .unwrap();
+    assert!(!o.status.success(), "{}", describe(&o));
+    assert!(
+        text(&o.stderr).contains("--part is for the desktop app"),
+        "{}",
+        describe(&o)
     );
 }
 

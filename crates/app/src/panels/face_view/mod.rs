@@ -55,6 +55,8 @@ pub struct FaceView {
     turn: Option<(usize, f64)>,
     /// The gauge selected when the face was last chosen: selecting another gauge shows its face.
     followed: Option<(usize, usize)>,
+    /// The part shown last: another part opens on the face of its first gauge.
+    shown_part: Option<usize>,
     /// The window onto the face, for (part, face), with how and to which drawing-area size
     /// it was fitted (`None` once the user zoomed or panned: it is kept as they left it, else
     /// it is fitted again the same way when the size changes).
@@ -83,6 +85,7 @@ impl Default for FaceView {
             drag: None,
             turn: None,
             followed: None,
+            shown_part: None,
             window: None,
             seam: None,
             request: None,
@@ -195,9 +198,10 @@ fn to_rect(r: &ScreenRect) -> Rect {
 }
 
 impl FaceView {
-    /// Shows `face` next time the view draws.
-    pub fn show_face(&mut self, face: Face) {
+    /// Shows `face` of part `part` next time the view draws.
+    pub fn show_face(&mut self, part: usize, face: Face) {
         self.face = Some(face);
+        self.shown_part = Some(part);
     }
 
     /// Draws the face view.
@@ -273,6 +277,10 @@ impl FaceView {
             .enumerate()
             .filter_map(|(i, g)| g.resolve(&doc.project.gauge_stock).map(|p| (i, p)))
             .collect();
+        if self.shown_part != Some(sel.part) {
+            self.shown_part = Some(sel.part);
+            self.face = gauges.first().map(|(_, g)| g.position.face);
+        }
         // A gauge selected anywhere (tree, finding, canvas) brings its face into view.
         let selected = sel.gauge.map(|g| (sel.part, g));
         let newly_selected = selected != self.followed;
