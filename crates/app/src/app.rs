@@ -669,8 +669,8 @@ impl GaugewrightApp {
         // item, which would move the views in the centre.
         egui::Panel::left("plan tree")
             .resizable(true)
-            .default_size(270.0)
-            .size_range(220.0..=380.0)
+            .default_size(300.0)
+            .size_range(260.0..=340.0)
             .show(ui, |ui| {
                 self.tree.tree_ui(ui, &self.doc, &mut out);
             });

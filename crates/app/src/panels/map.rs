@@ -141,33 +141,9 @@ impl MapSettings {
 
     /// The map choice controls: quantity, direction, thermal expansion, contours.
     pub fn controls_ui(&mut self, ui: &mut egui::Ui, with_principal_marks: bool) {
-        let label = ui.label("Map").id;
-        egui::ComboBox::from_id_salt("map quantity")
-            .width(190.0)
-            .selected_text(self.quantity.name())
-            .show_ui(ui, |ui| {
-                for q in MapQuantity::ALL {
-                    ui.selectable_value(&mut self.quantity, q, q.name());
-                }
-            })
-            .response
-            .labelled_by(label)
-            .on_hover_text("Surface quantity shown as colour, under the selected load case");
-        // Always there (greyed out unless used), so the row never shifts when the map changes.
-        let along = self.quantity == MapQuantity::StrainAlongDirection;
-        let label = ui.add_enabled(along, egui::Label::new("at")).id;
-        ui.add_enabled(
-            along,
-            egui::DragValue::new(&mut self.direction_deg)
-                .range(-180.0..=180.0)
-                .speed(1.0)
-                .suffix("°"),
-        )
-        .labelled_by(label)
-        .on_hover_text(
-            "Direction of the mapped strain, counter-clockwise from the member axis seen from \
-             outside (for \"Strain along a direction\")",
-        );
+        // Each label with its control in one group, so a row that wraps never parts them.
+        ui.horizontal(|ui| self.quantity_ui(ui));
+        ui.horizontal(|ui| self.direction_ui(ui));
         let mut thermal = self.basis == StrainBasis::WithFreeThermal;
         if ui
             .checkbox(&mut thermal, "Free thermal expansion")
@@ -189,6 +165,40 @@ impl MapSettings {
             ui.checkbox(&mut self.principal_marks, "Principal directions")
                 .on_hover_text("Short strokes along the larger principal strain");
         }
+    }
+
+    fn quantity_ui(&mut self, ui: &mut egui::Ui) {
+        let label = ui.label("Map").id;
+        egui::ComboBox::from_id_salt("map quantity")
+            .width(190.0)
+            .selected_text(self.quantity.name())
+            .show_ui(ui, |ui| {
+                for q in MapQuantity::ALL {
+                    ui.selectable_value(&mut self.quantity, q, q.name());
+                }
+            })
+            .response
+            .labelled_by(label)
+            .on_hover_text("Surface quantity shown as colour, under the selected load case");
+    }
+
+    /// The direction of "Strain along a direction": always there (greyed out unless used), so
+    /// the row never shifts when the map changes.
+    fn direction_ui(&mut self, ui: &mut egui::Ui) {
+        let along = self.quantity == MapQuantity::StrainAlongDirection;
+        let label = ui.add_enabled(along, egui::Label::new("at")).id;
+        ui.add_enabled(
+            along,
+            egui::DragValue::new(&mut self.direction_deg)
+                .range(-180.0..=180.0)
+                .speed(1.0)
+                .suffix("°"),
+        )
+        .labelled_by(label)
+        .on_hover_text(
+            "Direction of the mapped strain, counter-clockwise from the member axis seen from \
+             outside (for \"Strain along a direction\")",
+        );
     }
 
     /// The legend: the colour bar with its ticks and the range found, `scope` saying where

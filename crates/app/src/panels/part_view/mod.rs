@@ -108,7 +108,7 @@ impl PartView {
     /// Preset views, fit and zoom to selection, and the map choice, on rows that keep their
     /// layout whatever is chosen.
     fn toolbar_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, map: &mut MapSettings) {
-        ui.horizontal(|ui| {
+        ui.horizontal_wrapped(|ui| {
             ui.label("View");
             for p in Preset::ALL {
                 if ui
@@ -141,7 +141,7 @@ impl PartView {
                 self.pending = Some(Framing::Selection);
             }
         });
-        ui.horizontal(|ui| map.controls_ui(ui, false));
+        ui.horizontal_wrapped(|ui| map.controls_ui(ui, false));
     }
 
     fn zoom_to_gauge(&mut self, doc: &DocumentState, rect: Rect) {
@@ -337,7 +337,9 @@ impl PartView {
             } else {
                 Color32::from_rgb(235, 235, 228)
             };
-            labels.reserve(Rect::from_center_size(drawn.centre, Vec2::splat(12.0)));
+            // The whole drawn gauge (tabs and direction mark included) is kept clear.
+            let extent = (2.2 * drawn.length_px).max(12.0);
+            labels.reserve(Rect::from_center_size(drawn.centre, Vec2::splat(extent)));
             labels.place(painter, drawn.centre, &g.id, colour, selected);
             let reach = (drawn.length_px * 0.6).max(9.0);
             let handle = ui.interact(
