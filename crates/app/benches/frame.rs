@@ -34,7 +34,7 @@ fn bench(c: &mut Criterion) {
     }
     // The part view while the part is being turned: every frame projects, shades and sorts
     // the whole mesh again. The gallery's round tube has the finest mesh of any part (outer
-    // face, bore and end rings: about 24 000 triangles).
+    // face, bore, end rings and clamp: about 30 000 triangles).
     let mut h = harness_on(gw_plan::gallery::model_gallery(), Tab::Part);
     h.state_mut().show_part(2);
     h.run();
