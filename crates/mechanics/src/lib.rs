@@ -46,7 +46,7 @@ pub use given_state::{GivenQuantity, GivenState};
 pub use grid_average::{GridFootprint, QuadratureOrder, grid_average_state, grid_average_strain};
 pub use load::{LoadComponent, LoadVector};
 pub use material::{MATERIAL_LIBRARY, Material, library_material};
-pub use member::Member;
+pub use member::{Member, PeakLocation};
 pub use plate_with_hole::PlateWithHole;
 pub use rosette::{RosetteKind, analyse_rosette, rosette_readings, strain_from_three};
 pub use section::Section;

@@ -15,6 +15,42 @@ use crate::thick_cylinder::{THICK_CYLINDER_COMPONENTS, ThickCylinder};
 use crate::thin_cylinder::{THIN_CYLINDER_COMPONENTS, ThinCylinder};
 use crate::thin_sphere::{THIN_SPHERE_COMPONENTS, ThinSphere};
 
+/// Where the largest stress of a part was found.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum PeakLocation {
+    /// On a gaugeable face.
+    Surface(SurfacePoint),
+    /// On the bore (inner surface) of a vessel, where the pressure acts and the stress is
+    /// highest; radius in metres.
+    Bore {
+        /// Bore radius, metres.
+        radius_m: f64,
+    },
+}
+
+impl PeakLocation {
+    /// Where, in words.
+    pub fn describe(&self) -> String {
+        match self {
+            PeakLocation::Surface(p) => format!(
+                "on the {} at x = {:.1} mm, s = {:.1} mm",
+                p.face.name(),
+                p.x_m * 1e3,
+                p.s_m * 1e3
+            ),
+            PeakLocation::Bore { radius_m } => {
+                format!("at the bore (r = {:.1} mm)", radius_m * 1e3)
+            }
+        }
+    }
+}
+
+/// Von Mises equivalent of three principal stresses, Pa:
+/// √(½ [(σ1 − σ2)² + (σ2 − σ3)² + (σ3 − σ1)²]) (Budynas & Nisbett, *Shigley's*, 10th ed., §5-5).
+fn von_mises_3d([a, b, c]: [f64; 3]) -> f64 {
+    (0.5 * ((a - b).powi(2) + (b - c).powi(2) + (c - a).powi(2))).sqrt()
+}
+
 /// A part whose surface strains Gaugewright can compute.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub enum Member {
@@ -195,15 +231,57 @@ impl Member {
             .collect()
     }
 
-    /// Largest von Mises stress on the gaugeable surface under `loads`, sampled on an
-    /// `n × n` grid of nodes (edges included) on every face, plus the hole edge of a plate, Pa,
-    /// and where it occurs.
-    pub fn peak_von_mises(&self, loads: &LoadVector, n: usize) -> Result<(f64, SurfacePoint)> {
+    /// The hoop stress of a thin-walled vessel under `loads` two ways, Pa: the membrane value
+    /// at the mean radius (the design figure of the pressure-vessel rules) and the value on the
+    /// outer surface, where the gauges sit and what they read. `None` for other parts.
+    pub fn vessel_hoop_stresses(&self, loads: &LoadVector) -> Option<(f64, f64)> {
+        let p = loads[LoadComponent::InternalPressure];
+        match self {
+            Member::ThinCylinder(c) => Some((
+                c.stresses_per_pa().0 * p,
+                c.outer_surface_stresses_per_pa().0 * p,
+            )),
+            Member::ThinSphere(s) => Some((
+                s.stress_per_pa() * p,
+                s.tangential_stress_per_pa(s.outer_diameter_m / 2.0) * p,
+            )),
+            _ => None,
+        }
+    }
+
+    /// Von Mises stress at the bore of a pressure vessel (thick-wall solutions, the radial
+    /// stress included), and the bore radius; `None` for parts without a pressurised bore. A
+    /// free, uniform temperature change adds no stress.
+    pub fn bore_von_mises(&self, loads: &LoadVector) -> Option<(f64, f64)> {
+        let pi = loads[LoadComponent::InternalPressure];
+        match self {
+            Member::ThinCylinder(c) => {
+                let s = c.bore_stresses_per_pa().map(|k| k * pi);
+                Some((von_mises_3d(s), c.inner_radius_m()))
+            }
+            Member::ThickCylinder(c) => {
+                let ri = c.inner_diameter_m / 2.0;
+                let s = c.stresses_at(ri, pi, loads[LoadComponent::ExternalPressure]);
+                Some((von_mises_3d([s.radial_pa, s.hoop_pa, s.axial_pa]), ri))
+            }
+            Member::ThinSphere(sp) => {
+                let ri = sp.inner_radius_m();
+                let t = sp.tangential_stress_per_pa(ri) * pi;
+                Some((von_mises_3d([-pi, t, t]), ri))
+            }
+            _ => None,
+        }
+    }
+
+    /// Largest von Mises stress in the part under `loads`, Pa, and where it occurs: sampled on
+    /// an `n × n` grid of nodes (edges included) on every face, plus the hole edge of a plate
+    /// and the bore of a pressure vessel (where the stress is highest and no gauge can go).
+    pub fn peak_von_mises(&self, loads: &LoadVector, n: usize) -> Result<(f64, PeakLocation)> {
         use crate::surface_map::{Sampling, StrainBasis, SurfaceQuantity, sample_face};
         let n = n.max(2);
         let material = self.material();
-        let mut best: Option<(f64, SurfacePoint)> = None;
-        let mut consider = |vm: f64, p: SurfacePoint| {
+        let mut best: Option<(f64, PeakLocation)> = None;
+        let mut consider = |vm: f64, p: PeakLocation| {
             if best.is_none_or(|(b, _)| vm > b) {
                 best = Some((vm, p));
             }
@@ -220,7 +298,7 @@ impl Member {
             for (j, s) in map.s_m.iter().enumerate() {
                 for (i, x) in map.x_m.iter().enumerate() {
                     if let Some(vm) = map.values[j * map.x_m.len() + i] {
-                        consider(vm, SurfacePoint::new(f.face, *x, *s));
+                        consider(vm, PeakLocation::Surface(SurfacePoint::new(f.face, *x, *s)));
                     }
                 }
             }
@@ -228,9 +306,13 @@ impl Member {
                 for k in 0..4 * n {
                     let t = std::f64::consts::TAU * k as f64 / (4 * n) as f64;
                     let p = SurfacePoint::new(f.face, a * t.cos(), a * t.sin());
-                    consider(self.state_unchecked(&p, loads).von_mises_pa(material), p);
+                    let vm = self.state_unchecked(&p, loads).von_mises_pa(material);
+                    consider(vm, PeakLocation::Surface(p));
                 }
             }
+        }
+        if let Some((vm, radius_m)) = self.bore_von_mises(loads) {
+            consider(vm, PeakLocation::Bore { radius_m });
         }
         best.ok_or(MechanicsError::PointOffPart {
             what: "every sample point",

@@ -37,8 +37,9 @@ pub(crate) fn check_thin_wall(mean_radius_m: f64, wall_m: f64) -> Result<()> {
     Ok(())
 }
 
-/// A thin-walled cylinder; strains are reported on its outer surface. Local x is axial,
-/// local y is hoop.
+/// A thin-walled cylinder; strains are reported on its outer surface (thick-wall solution at
+/// the outer radius; the membrane stresses stay the design figures). Local x is axial, local y
+/// is hoop.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct ThinCylinder {
     /// Outer diameter, metres.
@@ -120,6 +121,43 @@ impl ThinCylinder {
         )]
     }
 
+    /// Inner radius, metres.
+    pub fn inner_radius_m(&self) -> f64 {
+        self.outer_diameter_m / 2.0 - self.wall_m
+    }
+
+    /// Hoop and axial stresses per unit internal pressure on the outer surface, where the
+    /// gauges sit, from the thick-wall solution at r = ro (σr = 0 there):
+    /// σh = 2 ri² / (ro² − ri²), σa = ri² / (ro² − ri²) closed (0 open). Since
+    /// ro² − ri² = 2 rm t, the outer hoop stress is the membrane value times (ri/rm)².
+    ///
+    /// Source: Timoshenko & Goodier, *Theory of Elasticity*, 3rd ed., §28, eqs. (46);
+    /// Budynas & Nisbett, *Shigley's*, 10th ed., §3-16.
+    pub fn outer_surface_stresses_per_pa(&self) -> (f64, f64) {
+        let ro = self.outer_diameter_m / 2.0;
+        let ri = self.inner_radius_m();
+        let k = ri * ri / (ro * ro - ri * ri);
+        let axial = match self.ends {
+            VesselEnds::Closed => k,
+            VesselEnds::Open => 0.0,
+        };
+        (2.0 * k, axial)
+    }
+
+    /// Radial, hoop and axial stresses per unit internal pressure at the bore (thick-wall
+    /// solution at r = ri): σr = −1, σh = (ro² + ri²)/(ro² − ri²), σa as on the outside.
+    /// Source as [`ThinCylinder::outer_surface_stresses_per_pa`].
+    pub fn bore_stresses_per_pa(&self) -> [f64; 3] {
+        let ro = self.outer_diameter_m / 2.0;
+        let ri = self.inner_radius_m();
+        let d = ro * ro - ri * ri;
+        [
+            -1.0,
+            (ro * ro + ri * ri) / d,
+            self.outer_surface_stresses_per_pa().1,
+        ]
+    }
+
     pub(crate) fn state_at(
         &self,
         point: &SurfacePoint,
@@ -129,7 +167,8 @@ impl ThinCylinder {
             return None;
         }
         let p = loads[LoadComponent::InternalPressure];
-        let (hoop, axial) = self.stresses_per_pa();
+        // The gauge reads the outer surface, not the membrane (mean-radius) value.
+        let (hoop, axial) = self.outer_surface_stresses_per_pa();
         let state = SurfaceState::from_stress(axial * p, hoop * p, 0.0, &self.material);
         let thermal = self.material.cte_per_c * loads[LoadComponent::TemperatureChange];
         Some(state.with_free_thermal(thermal))

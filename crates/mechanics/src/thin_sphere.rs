@@ -9,7 +9,8 @@ use crate::surface::{Face, FaceExtent, SurfacePoint};
 use crate::surface_state::SurfaceState;
 use crate::thin_cylinder::check_thin_wall;
 
-/// A thin-walled sphere; strains on the outer surface. Local x is meridional (`x_m` is the
+/// A thin-walled sphere; strains on the outer surface (thick-sphere solution at the outer
+/// radius; the membrane stress stays the design figure). Local x is meridional (`x_m` is the
 /// meridian arc from the equator), local y is along the parallel.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct ThinSphere {
@@ -65,6 +66,25 @@ impl ThinSphere {
         self.mean_radius_m() / (2.0 * self.wall_m)
     }
 
+    /// Inner radius, metres.
+    pub fn inner_radius_m(&self) -> f64 {
+        self.outer_diameter_m / 2.0 - self.wall_m
+    }
+
+    /// Tangential stress per unit internal pressure at radius r of the thick-walled sphere:
+    /// σt = ri³ (ro³ + 2 r³) / (2 r³ (ro³ − ri³)); on the outer surface (where the gauges sit,
+    /// σr = 0) it is 3 ri³ / (2 (ro³ − ri³)), at the bore (ro³ + 2 ri³) / (2 (ro³ − ri³)) with
+    /// σr = −1.
+    ///
+    /// Source: Timoshenko & Goodier, *Theory of Elasticity*, 3rd ed., §137, eqs. (200);
+    /// Budynas & Nisbett, *Shigley's*, 10th ed., §3-16 (thick-walled spheres).
+    pub fn tangential_stress_per_pa(&self, r_m: f64) -> f64 {
+        let ro = self.outer_diameter_m / 2.0;
+        let ri = self.inner_radius_m();
+        ri.powi(3) * (ro.powi(3) + 2.0 * r_m.powi(3))
+            / (2.0 * r_m.powi(3) * (ro.powi(3) - ri.powi(3)))
+    }
+
     /// The outer face: meridian arc ±quarter circumference, parallel a full turn.
     pub fn faces(&self) -> Vec<FaceExtent> {
         let quarter = std::f64::consts::FRAC_PI_2 * self.outer_diameter_m / 2.0;
@@ -85,7 +105,9 @@ impl ThinSphere {
         if point.face != Face::Round {
             return None;
         }
-        let sigma = self.stress_per_pa() * loads[LoadComponent::InternalPressure];
+        // The gauge reads the outer surface, not the membrane (mean-radius) value.
+        let sigma = self.tangential_stress_per_pa(self.outer_diameter_m / 2.0)
+            * loads[LoadComponent::InternalPressure];
         let state = SurfaceState::from_stress(sigma, sigma, 0.0, &self.material);
         let thermal = self.material.cte_per_c * loads[LoadComponent::TemperatureChange];
         Some(state.with_free_thermal(thermal))

@@ -580,65 +580,26 @@ fn thin_cyl(ends: VesselEnds) -> Member {
 }
 
 #[test]
-fn thin_cylinder_hoop_and_axial_strain_closed_ends() {
-    // Gere & Goodno 7th ed., §8.3, eqs. (8-5), (8-6): σ1 = p r / t, σ2 = p r / (2t);
-    // strains by plane-stress Hooke (§7.5).
-    let p = 2e6;
+fn thin_cylinder_membrane_stresses_are_the_design_figures() {
+    // Gere & Goodno 7th ed., §8.3, eqs. (8-5), (8-6): σ1 = p r / t, σ2 = p r / (2t) at the mean
+    // radius; open ends carry no axial membrane stress. (The gauge reading on the outer surface
+    // is checked against the thick-wall equations in thick_wall_reading.rs.)
     let r = (0.4 - 0.008) / 2.0;
-    let (s1, s2) = (p * r / 0.008, p * r / 0.016);
-    let st = state(
-        &thin_cyl(VesselEnds::Closed),
-        Face::Round,
-        0.5,
-        0.0,
-        &loads(&[(LoadComponent::InternalPressure, p)]),
-    );
-    assert_relative_eq!(st.strain.normal_y, (s1 - NU * s2) / E, max_relative = 1e-12);
-    assert_relative_eq!(st.strain.normal_x, (s2 - NU * s1) / E, max_relative = 1e-12);
+    for (ends, axial) in [(VesselEnds::Closed, r / 0.016), (VesselEnds::Open, 0.0)] {
+        let Member::ThinCylinder(c) = thin_cyl(ends) else {
+            unreachable!()
+        };
+        let (hoop, ax) = c.stresses_per_pa();
+        assert_relative_eq!(hoop, r / 0.008, max_relative = 1e-12);
+        assert_relative_eq!(ax, axial, max_relative = 1e-12);
+    }
 }
 
 #[test]
-fn thin_cylinder_open_ends_has_only_poisson_axial_strain() {
-    // Gere & Goodno 7th ed., §8.3 with σ2 = 0 for open ends; εaxial = −ν σ1 / E.
-    let p = 2e6;
-    let r = (0.4 - 0.008) / 2.0;
-    let st = state(
-        &thin_cyl(VesselEnds::Open),
-        Face::Round,
-        0.5,
-        0.3,
-        &loads(&[(LoadComponent::InternalPressure, p)]),
-    );
-    assert_relative_eq!(
-        st.strain.normal_x,
-        -NU * p * r / 0.008 / E,
-        max_relative = 1e-12
-    );
-}
-
-#[test]
-fn thin_sphere_membrane_strain() {
-    // Gere & Goodno 7th ed., §8.2, eqs. (8-1), (8-4): σ = p r / (2t), ε = σ (1 − ν) / E.
-    let p = 1.5e6;
-    let m = Member::ThinSphere(ThinSphere::new(1.0, 0.01, steel()).unwrap());
-    let st = state(
-        &m,
-        Face::Round,
-        0.1,
-        0.2,
-        &loads(&[(LoadComponent::InternalPressure, p)]),
-    );
-    let sigma = p * 0.495 / 0.02;
-    assert_relative_eq!(
-        st.strain.normal_x,
-        sigma * (1.0 - NU) / E,
-        max_relative = 1e-12
-    );
-    assert_relative_eq!(
-        st.strain.normal_y,
-        sigma * (1.0 - NU) / E,
-        max_relative = 1e-12
-    );
+fn thin_sphere_membrane_stress_is_the_design_figure() {
+    // Gere & Goodno 7th ed., §8.2, eq. (8-1): σ = p r / (2t) at the mean radius.
+    let s = ThinSphere::new(1.0, 0.01, steel()).unwrap();
+    assert_relative_eq!(s.stress_per_pa(), 0.495 / 0.02, max_relative = 1e-12);
 }
 
 #[test]

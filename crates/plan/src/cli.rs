@@ -97,11 +97,21 @@ fn write_summary(out: &mut String, ev: &Evaluation, detail: Detail) {
         for c in &part.cases {
             let _ = writeln!(
                 out,
-                "  {}: peak von Mises {:.1} MPa, {:.2} × below yield",
+                "  {}: peak von Mises {:.1} MPa {}, {:.2} × below yield",
                 c.case,
                 c.peak_von_mises_pa / 1e6,
+                c.peak_location,
                 c.safety_factor_to_yield
             );
+            if let (Some(membrane), Some(outer)) = (c.membrane_hoop_pa, c.outer_hoop_pa) {
+                let _ = writeln!(
+                    out,
+                    "    hoop stress {:.1} MPa at the mean radius (membrane, the design figure), \
+                     {:.1} MPa on the outer surface where the gauges read",
+                    membrane / 1e6,
+                    outer / 1e6
+                );
+            }
         }
         for b in &part.bridges {
             let _ = writeln!(

@@ -186,10 +186,17 @@ pub struct BridgeEvaluation {
 pub struct CaseFigures {
     /// Load case name.
     pub case: String,
-    /// Largest von Mises stress on the part, Pa.
+    /// Largest von Mises stress in the part, Pa.
     pub peak_von_mises_pa: f64,
+    /// Where the largest stress is, in words (a face point, or the bore of a vessel).
+    pub peak_location: String,
     /// Yield strength over the peak stress.
     pub safety_factor_to_yield: f64,
+    /// Thin-walled vessels: the hoop stress at the mean radius (membrane, the design figure),
+    /// Pa.
+    pub membrane_hoop_pa: Option<f64>,
+    /// Thin-walled vessels: the hoop stress on the outer surface, where the gauges sit, Pa.
+    pub outer_hoop_pa: Option<f64>,
 }
 
 /// Everything computed for one part.
@@ -277,8 +284,9 @@ fn evaluate_part(
     let warn = project.warn_utilisation;
     let mut cases = Vec::new();
     for (ci, case) in part.load_cases.iter().enumerate() {
-        match member.peak_von_mises(&case.load_vector(), options.peak_samples) {
-            Ok((peak, _)) => {
+        let loads = case.load_vector();
+        match member.peak_von_mises(&loads, options.peak_samples) {
+            Ok((peak, at)) => {
                 let m = Margin::new(
                     MarginKind::PeakStressInPart,
                     peak,
@@ -288,13 +296,22 @@ fn evaluate_part(
                 push_margin(
                     findings,
                     &m,
-                    format!("part \"{}\", {}", part.name, case.name),
+                    format!(
+                        "part \"{}\", {} (peak {})",
+                        part.name,
+                        case.name,
+                        at.describe()
+                    ),
                     Target::LoadCase { part: pi, case: ci },
                 );
+                let hoop = member.vessel_hoop_stresses(&loads);
                 cases.push(CaseFigures {
                     case: case.name.clone(),
                     peak_von_mises_pa: peak,
+                    peak_location: at.describe(),
                     safety_factor_to_yield: m.safety_factor(),
+                    membrane_hoop_pa: hoop.map(|h| h.0),
+                    outer_hoop_pa: hoop.map(|h| h.1),
                 });
             }
             Err(e) => findings.push(Finding {

@@ -549,12 +549,25 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
                 8.5,
                 false,
                 &format!(
-                    "{}: largest von Mises stress {:.1} MPa ({:.2} × below yield).",
+                    "{}: largest von Mises stress {:.1} MPa {} ({:.2} × below yield).",
                     c.case,
                     c.peak_von_mises_pa / 1e6,
+                    c.peak_location,
                     c.safety_factor_to_yield
                 ),
             );
+            if let (Some(membrane), Some(outer)) = (c.membrane_hoop_pa, c.outer_hoop_pa) {
+                w.para(
+                    8.5,
+                    false,
+                    &format!(
+                        "Hoop stress {:.1} MPa at the mean radius (membrane, the design figure); \
+                         {:.1} MPa on the outer surface, which is what the gauges read.",
+                        membrane / 1e6,
+                        outer / 1e6
+                    ),
+                );
+            }
         }
         drawing(&mut w, part, &project.placed_gauges(part));
         w.heading("Gauges");
