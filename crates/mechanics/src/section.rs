@@ -354,6 +354,46 @@ impl Section {
             .sum()
     }
 
+    /// Shear stress τxy (acting along y on a cross-section) in the top (`z_sign` > 0) or
+    /// bottom flange of an I section or wall of a rectangular tube at `y_m`, per newton of
+    /// vertical shear Vz, Pa/N; zero for solid sections, whose top and bottom faces are free of
+    /// it. Thin-wall shear flow: along the flange ∂τxy/∂y = −Vz z̄ / Iy (equilibrium of a
+    /// flange element with the bending stress σx = My z / Iy and dMy/dx = Vz), with τ = 0 at a
+    /// free flange tip (I section; linear across the web's width, where the flow turns into the
+    /// web) or at the middle of the wall by symmetry (tube). z̄ is the height of the flange's
+    /// mid-plane.
+    ///
+    /// Source: Gere & Goodno, *Mechanics of Materials*, 7th ed., §6.8–6.9 (shear stresses in
+    /// thin-walled open and closed sections); Budynas & Nisbett, *Shigley's*, 10th ed., §3-11.
+    pub fn flange_shear_per_unit_vz(&self, y_m: f64, z_sign: f64) -> f64 {
+        let iy = self.second_moment_y_m4();
+        match *self {
+            Section::IBeam {
+                flange_width_m,
+                depth_m,
+                flange_thickness_m,
+                web_thickness_m,
+            } => {
+                let zbar = z_sign.signum() * (depth_m - flange_thickness_m) / 2.0;
+                let k = -zbar / iy;
+                let at = |y: f64| k * (y - y.signum() * flange_width_m / 2.0);
+                let hw = web_thickness_m / 2.0;
+                if y_m.abs() >= hw {
+                    at(y_m)
+                } else {
+                    at(hw) * y_m / hw
+                }
+            }
+            Section::RectangularTube {
+                height_m, wall_m, ..
+            } => {
+                let zbar = z_sign.signum() * (height_m - wall_m) / 2.0;
+                -zbar * y_m / iy
+            }
+            _ => 0.0,
+        }
+    }
+
     /// Total material width cut by the horizontal line at height z, metres.
     pub fn width_at_m(&self, z_m: f64) -> f64 {
         if let Some((ro, ri)) = self.radii_m() {

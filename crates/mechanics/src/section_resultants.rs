@@ -137,7 +137,8 @@ impl UnitStrains {
 /// Strains per unit resultant at `(face, s)`, or `None` if the face is not on the section.
 ///
 /// σx = N/A + My z/Iy − Mz y/Iz (Navier); transverse strain −ν σx / E; shear along the
-/// surface from τ = V Q / (I b) (Jourawski) and, on round sections, τ = T r / J.
+/// surface from τ = V Q / (I b) (Jourawski), the thin-wall shear flow of flanges and tube walls
+/// on top and bottom faces, and, on round sections, τ = T r / J.
 pub(crate) fn unit_strains(
     section: &Section,
     material: &Material,
@@ -185,8 +186,10 @@ pub(crate) fn unit_strains(
             -r / section.torsion_constant_m4(),
         )
     } else {
-        // Flat faces: vertical shear shows on side faces, horizontal shear on top and bottom.
-        (tau_y * dy, tau_z * dz, 0.0)
+        // Flat faces: vertical shear shows on side faces and, as the shear flow of flanges and
+        // tube walls, on top and bottom; horizontal shear on top and bottom.
+        let flange = section.flange_shear_per_unit_vz(p.y, p.z);
+        (tau_y * dy, tau_z * dz + flange * dy, 0.0)
     };
     Some(UnitStrains([
         normal(1.0 / section.area_m2()),
