@@ -154,7 +154,7 @@ pub fn catalogue(
                         ));
                         out.push(entry(
                             "Shear-web pairs, both sides",
-                            "±45° pairs on both side faces at the neutral axis; shear force only, cancels bending in both planes, axial load, torsion of the section and temperature",
+                            "±45° pairs on both side faces at the neutral axis; shear force only, cancels bending in both planes, axial load and temperature",
                             vec![pair(Face::Front, 0.0), pair(Face::Back, 0.0)],
                             [g(0, 0), g(0, 1), g(1, 1), g(1, 0)],
                         ));

@@ -66,6 +66,15 @@ pub enum MechanicsError {
     )]
     SingularRosette { angles_deg: [f64; 3] },
 
+    /// A load the member's model does not carry (a torque on a beam, a pressure on a shaft):
+    /// refused rather than taken as zero.
+    #[error("a {member} carries no {load}; {way_out}")]
+    LoadNotCarried {
+        member: &'static str,
+        load: &'static str,
+        way_out: String,
+    },
+
     /// A transverse sensitivity at or beyond ±1, for which no correction exists.
     #[error(
         "transverse sensitivity {value} must lie strictly between -1 and 1; typical grids are within ±0.05"

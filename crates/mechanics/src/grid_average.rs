@@ -139,12 +139,7 @@ pub fn grid_average_state(
     order: QuadratureOrder,
 ) -> Result<SurfaceState> {
     grid.validate()?;
-    if let Some((c, value)) = loads.first_non_finite() {
-        return Err(MechanicsError::NotFinite {
-            name: c.name(),
-            value,
-        });
-    }
+    member.check_loads(loads)?;
     // One check of the centre gives the user the clearest message when the whole grid is off.
     member.locate(&grid.center)?;
     let faces = member.faces();

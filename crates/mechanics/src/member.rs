@@ -180,14 +180,40 @@ impl Member {
             })
     }
 
-    /// Surface state at a point under a load vector. Linear in `loads`.
-    pub fn state(&self, point: &SurfacePoint, loads: &LoadVector) -> Result<SurfaceState> {
+    /// Checks a load vector before use: every value finite, and no non-zero load the model
+    /// does not carry (it would otherwise be silently left out).
+    pub fn check_loads(&self, loads: &LoadVector) -> Result<()> {
         if let Some((c, value)) = loads.first_non_finite() {
             return Err(MechanicsError::NotFinite {
                 name: c.name(),
                 value,
             });
         }
+        let carried = self.components();
+        let Some((c, _)) = loads.nonzero().find(|(c, _)| !carried.contains(c)) else {
+            return Ok(());
+        };
+        let names: Vec<&str> = carried.iter().map(|c| c.name()).collect();
+        let way_out = match (self, c) {
+            (Member::Beam(_), LoadComponent::Torque) => format!(
+                "torsion is modelled for round shafts only (the shaft model), not for beam \
+                 sections; for another section enter the surface state from a separate analysis \
+                 as a given state. A beam carries: {}",
+                names.join(", ")
+            ),
+            _ => format!("use one of: {}", names.join(", ")),
+        };
+        Err(MechanicsError::LoadNotCarried {
+            member: self.kind_name(),
+            load: c.name(),
+            way_out,
+        })
+    }
+
+    /// Surface state at a point under a load vector. Linear in `loads`. A load the model does
+    /// not carry is an error, not a zero.
+    pub fn state(&self, point: &SurfacePoint, loads: &LoadVector) -> Result<SurfaceState> {
+        self.check_loads(loads)?;
         let p = self.locate(point)?;
         Ok(self.state_unchecked(&p, loads))
     }
@@ -211,7 +237,8 @@ impl Member {
         state.unwrap_or_default()
     }
 
-    /// Surface state per unit of one load component (zero for a component the member ignores).
+    /// Surface state per unit of one load component; an error for a component the member does
+    /// not carry.
     pub fn state_per_unit(
         &self,
         point: &SurfacePoint,

@@ -121,12 +121,7 @@ pub fn sample_face(
     (nx, ns): (usize, usize),
     sampling: Sampling,
 ) -> Result<SurfaceMap> {
-    if let Some((c, value)) = loads.first_non_finite() {
-        return Err(MechanicsError::NotFinite {
-            name: c.name(),
-            value,
-        });
-    }
+    member.check_loads(loads)?;
     let faces = member.faces();
     let Some(extent) = faces.iter().find(|f| f.face == face) else {
         return Err(MechanicsError::PointOffPart {
@@ -256,6 +251,13 @@ mod tests {
             (&beam, Face::Top),
             (&shaft, Face::Round),
         ] {
+            // Only the loads each model carries (others are refused).
+            let mut loads = loads;
+            for c in LoadComponent::ALL {
+                if !member.components().contains(&c) {
+                    loads[c] = 0.0;
+                }
+            }
             let angle = 0.7;
             let map = surface_map(
                 member,

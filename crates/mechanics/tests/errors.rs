@@ -134,3 +134,62 @@ fn rosette_with_two_parallel_grids_is_singular() {
     let e = strain_from_three([0.0, 0.0, 1.0], [1e-4, 1e-4, 0.0]).unwrap_err();
     assert!(matches!(e, MechanicsError::SingularRosette { .. }));
 }
+
+#[test]
+fn a_torque_on_a_beam_is_refused_not_taken_as_zero() {
+    // Torsion of non-round sections is not modelled: the engine must say so rather than leave
+    // the torque out of the state (which would let a plan claim to cancel it).
+    let beam = gw_mechanics::Member::Beam(
+        gw_mechanics::Beam::new(
+            gw_mechanics::Section::Rectangle {
+                width_m: 0.03,
+                height_m: 0.06,
+            },
+            steel(),
+            0.5,
+            gw_mechanics::BeamSupport::Cantilever,
+            0.5,
+        )
+        .unwrap(),
+    );
+    let loads = gw_mechanics::LoadVector::from_pairs(&[
+        (gw_mechanics::LoadComponent::VerticalForce, 1e3),
+        (gw_mechanics::LoadComponent::Torque, 50.0),
+    ]);
+    let p = gw_mechanics::SurfacePoint::new(gw_mechanics::Face::Top, 0.2, 0.0);
+    let e = beam.state(&p, &loads).unwrap_err();
+    assert!(matches!(e, MechanicsError::LoadNotCarried { .. }), "{e}");
+    let text = e.to_string();
+    assert!(
+        text.contains("torque") && text.contains("round shafts"),
+        "{text}"
+    );
+    assert!(
+        gw_mechanics::surface_map(
+            &beam,
+            gw_mechanics::Face::Top,
+            &loads,
+            gw_mechanics::SurfaceQuantity::StrainAlong(0.0),
+            gw_mechanics::StrainBasis::Mechanical,
+            4,
+            4
+        )
+        .is_err()
+    );
+    assert!(
+        beam.state_per_unit(&p, gw_mechanics::LoadComponent::Torque)
+            .is_err()
+    );
+    // A pressure on a shaft is refused the same way.
+    let shaft =
+        gw_mechanics::Member::Shaft(gw_mechanics::Shaft::new(0.05, 0.0, 0.3, steel()).unwrap());
+    let pressure = gw_mechanics::LoadVector::from_pairs(&[(
+        gw_mechanics::LoadComponent::InternalPressure,
+        1e6,
+    )]);
+    let p = gw_mechanics::SurfacePoint::new(gw_mechanics::Face::Round, 0.1, 0.0);
+    assert!(matches!(
+        shaft.state(&p, &pressure),
+        Err(MechanicsError::LoadNotCarried { .. })
+    ));
+}
