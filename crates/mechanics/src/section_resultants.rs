@@ -179,10 +179,19 @@ pub(crate) fn unit_strains(
                 0.0
             }
         };
+        // On a solid round bar the elasticity solution replaces the mean: its surface shear is
+        // the Jourawski value times 3(1 + 2ν) / (4(1 + ν)) all round the boundary, which at the
+        // neutral axis gives (1 + 2ν)/(1 + ν) · V/A instead of 4/3 · V/A (Timoshenko & Goodier,
+        // Theory of Elasticity, 3rd ed., §124, bending of a cantilever of circular section).
+        // Tubes keep the mean, which is exact in the thin-wall limit.
+        let exact = match section {
+            Section::SolidRound { .. } => 3.0 * (1.0 + 2.0 * nu) / (4.0 * (1.0 + nu)),
+            _ => 1.0,
+        };
         // Torque on the +x face acts along x̂ × r̂, opposite to the local y direction.
         (
-            along(tau_y, dy),
-            along(tau_z, dz),
+            exact * along(tau_y, dy),
+            exact * along(tau_z, dz),
             -r / section.torsion_constant_m4(),
         )
     } else {
