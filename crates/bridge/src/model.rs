@@ -243,11 +243,14 @@ impl BridgeModel {
         self.bridge.instrument.bridge_factor = bridge_factor;
     }
 
-    /// Set excitation expressed as a voltage across an equal-arm bridge, V.
+    /// The excitation as a voltage, V: the set voltage, or for a constant current the voltage
+    /// the solved circuit develops across the bridge at zero load. With unequal arms (a half
+    /// bridge with completion resistors of another value) that is I·(R1 + R2)(R3 + R4)/ΣR, not
+    /// I times the mean arm resistance.
     pub fn nominal_excitation_v(&self) -> f64 {
         match self.bridge.excitation {
             Excitation::Voltage { volts } => volts,
-            Excitation::Current { amps } => amps * self.nominal_arm_ohm(),
+            Excitation::Current { .. } => self.zero.bridge_excitation_v,
         }
     }
 

@@ -437,3 +437,39 @@ fn a_thermal_output_curve_recorded_at_its_gauge_factor_reads_back_as_recorded() 
         max_relative = 2e-4
     );
 }
+
+#[test]
+fn a_bridge_read_in_mv_per_v_is_the_same_under_current_or_voltage_excitation() {
+    // A bridge's output ratio Vo/Vb depends only on its arms (it is a ratiometric divider), so
+    // feeding the same half bridge from a current source instead of a voltage source leaves the
+    // reading in mV/V unchanged when it is normalised by the voltage across the bridge. With
+    // completion resistors of 1000 Ω beside 350 Ω grids that voltage is
+    // I (R1 + R2)(R3 + R4)/ΣR = 5 mA × 518.5 Ω, not I times the mean arm (675 Ω).
+    let member = cantilever();
+    let gauges = top_bottom();
+    let c = ArmElement::Completion(CompletionResistor {
+        ohm: 1000.0,
+        ..completion()
+    });
+    let by_voltage = bridge(
+        [grid(0, 0), grid(1, 0), c, c],
+        LoadComponent::VerticalForce,
+        2.0,
+    );
+    let mut by_current = by_voltage.clone();
+    by_current.excitation = Excitation::Current { amps: 0.005 };
+    let loads = LoadVector::from_pairs(&[(LoadComponent::VerticalForce, 2000.0)]);
+    let read = |b: &Bridge| {
+        BridgeModel::new(&setup(&member, &gauges), b)
+            .unwrap()
+            .reading(&loads)
+            .unwrap()
+    };
+    let (v, i) = (read(&by_voltage), read(&by_current));
+    assert_relative_eq!(i.mv_per_v, v.mv_per_v, max_relative = 1e-9);
+    assert_relative_eq!(i.displayed_strain, v.displayed_strain, max_relative = 1e-9);
+    let model = BridgeModel::new(&setup(&member, &gauges), &by_current).unwrap();
+    let series = |a: f64, b: f64| a + b;
+    let vb = 0.005 * series(350.0, 350.0) * series(1000.0, 1000.0) / 2700.0;
+    assert_relative_eq!(model.nominal_excitation_v(), vb, max_relative = 1e-9);
+}
