@@ -646,6 +646,14 @@ fn evaluate_bridge(
         .find(|(c, _)| *c == b.wanted)
         .map(|(_, m)| *m)
         .unwrap_or(0.0);
+    no_response_finding(
+        model,
+        &channel,
+        (s_w, m_w),
+        &place("wanted load"),
+        target,
+        findings,
+    );
     let rejection = sensitivities
         .iter()
         .filter(|s| s.component != b.wanted)
@@ -738,6 +746,52 @@ fn evaluate_bridge(
         zero_offset_band_mv_per_v,
         pin_resistances,
     })
+}
+
+/// A bridge whose output at the largest wanted load is below what its channel resolves does not
+/// measure what it is for: a failure, with the rest of the bridge still evaluated.
+fn no_response_finding(
+    model: &BridgeModel,
+    channel: &ChannelFigures,
+    (per_unit, largest): (f64, f64),
+    place: &str,
+    target: Target,
+    findings: &mut Vec<Finding>,
+) {
+    let wanted = model.bridge().wanted;
+    let resolvable = channel.resolution_strain.max(channel.noise_strain_rms);
+    let full_scale = (per_unit * largest).abs();
+    if largest == 0.0 {
+        findings.push(Finding {
+            severity: Severity::Warn,
+            message: format!(
+                "{place}: no load case applies the {} the bridge is to measure, so its response \
+                 cannot be checked; add the {} to the rated case",
+                wanted.name(),
+                wanted.name()
+            ),
+            target,
+        });
+        return;
+    }
+    if full_scale >= resolvable {
+        return;
+    }
+    findings.push(Finding {
+        severity: Severity::Fail,
+        message: format!(
+            "{place}: the bridge does not respond to the {} it is to measure: at the largest \
+             {} of the load cases it shows {:.3} µε, below the {:.3} µε the channel resolves; \
+             wire an arrangement that reads the {} (the bridges view suggests some) or change \
+             what the bridge measures",
+            wanted.name(),
+            wanted.name(),
+            full_scale * 1e6,
+            resolvable * 1e6,
+            wanted.name()
+        ),
+        target,
+    });
 }
 
 /// The uncertainty budget of one bridge with Monte Carlo (`trials` trials), at the load case

@@ -127,3 +127,33 @@ fn a_load_case_beyond_the_thermal_output_curve_is_reported_at_the_gauge() {
         "{f:?}"
     );
 }
+
+#[test]
+fn a_bridge_that_does_not_respond_to_its_wanted_load_fails_and_is_still_evaluated() {
+    // The demo's bending bridge (four grids, top and bottom, in a full bridge) cancels axial
+    // force by its arrangement; asked to measure the axial force of the load cases it shows
+    // nothing, which must fail the check rather than pass every margin.
+    let mut p = demo_project();
+    p.parts[0].bridges[0].wanted = gw_mechanics::LoadComponent::AxialForce;
+    let ev = evaluate(&p, &EvalOptions::default());
+    let fail = ev
+        .findings
+        .iter()
+        .find(|f| f.message.contains("does not respond to the axial force"))
+        .expect("a finding that the bridge does not respond");
+    assert_eq!(fail.severity, gw_plan::evaluate::Severity::Fail);
+    // The rest of the bridge is still there: readings, shunt, channel.
+    let b = &ev.parts[0].bridges[0];
+    assert!(b.shunt.is_some());
+    assert!(!b.cases.is_empty() && b.channel.resolution_strain > 0.0);
+    let dir = std::env::temp_dir().join(format!("gw-plan-deaf-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("deaf.ron");
+    gw_plan::save_project(&p, &path).unwrap();
+    let out = check(&path);
+    assert_eq!(out.code, 1, "{}", out.stdout);
+    assert!(out.stdout.contains("shunt"), "{}", out.stdout);
+    // The demo as given responds to what each bridge measures.
+    let ok = evaluate(&demo_project(), &EvalOptions::default());
+    assert!(!ok.findings.iter().any(|f| f.message.contains("respond")));
+}
