@@ -210,11 +210,13 @@ pub fn bridge_uncertainty(
         0.0,
         channel.resolution_strain / 2.0,
     ));
+    // Quantization has its own row above; the noise row is the analogue noise only, so the
+    // quantization inside the channel's total noise figure is not counted twice.
     inputs.push(InputQuantity::normal(
-        "noise",
+        "noise (Johnson and amplifier)",
         "m/m",
         0.0,
-        channel.noise_strain_rms,
+        channel.analog_noise_strain_rms,
     ));
     let n_geo = geometry.len();
     let n_comp = completions.len();

@@ -43,6 +43,10 @@ pub struct ChannelFigures {
     pub total_noise_v: f64,
     /// Total noise as displayed strain, m/m rms.
     pub noise_strain_rms: f64,
+    /// The analogue part of that noise (Johnson and amplifier, without quantization), in
+    /// strain, rms: what an uncertainty budget that lists quantization on its own row takes
+    /// as "noise", so quantization is counted once.
+    pub analog_noise_strain_rms: f64,
     /// Power in each arm's element at no load, W.
     pub arm_power_w: [f64; 4],
     /// Power per grid area for grids and dummies, W/m² (0 for completion resistors).
@@ -93,6 +97,7 @@ pub fn channel_figures(model: &BridgeModel) -> Result<ChannelFigures, BridgeErro
         quantization_noise_v: quantization,
         total_noise_v: total,
         noise_strain_rms: total / volts_per_strain,
+        analog_noise_strain_rms: johnson.hypot(amplifier) / volts_per_strain,
         arm_power_w,
         arm_power_density_w_m2: density,
         arm_power_limit_w_m2: limit,

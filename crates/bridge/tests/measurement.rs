@@ -473,3 +473,49 @@ fn a_bridge_read_in_mv_per_v_is_the_same_under_current_or_voltage_excitation() {
     let vb = 0.005 * series(350.0, 350.0) * series(1000.0, 1000.0) / 2700.0;
     assert_relative_eq!(model.nominal_excitation_v(), vb, max_relative = 1e-9);
 }
+
+#[test]
+fn quantization_is_counted_once_in_the_uncertainty_budget() {
+    // JCGM 100:2008, 5.1.2: each input quantity enters the combined uncertainty once. The
+    // channel's total noise is Johnson, amplifier and quantization noise in quadrature; the
+    // budget lists quantization (a rectangular distribution of one count, u = q/√12) and the
+    // noise as two rows, so together they must make exactly the total, not more.
+    let member = cantilever();
+    let gauges = top_bottom();
+    let c = ArmElement::Completion(completion());
+    let mut b = bridge(
+        [grid(0, 0), grid(1, 0), c, c],
+        LoadComponent::VerticalForce,
+        2.0,
+    );
+    // A coarse converter, so quantization is a visible share of the noise.
+    b.signal.adc_bits = 12;
+    let s = setup(&member, &gauges);
+    let model = BridgeModel::new(&s, &b).unwrap();
+    let channel = signal_chain::channel_figures(&model).unwrap();
+    let loads = LoadVector::from_pairs(&[(LoadComponent::VerticalForce, 1000.0)]);
+    let u = bridge_uncertainty::bridge_uncertainty(
+        &member,
+        &model,
+        &loads,
+        &channel,
+        &Default::default(),
+        s.quadrature,
+    )
+    .unwrap();
+    let row = |start: &str| {
+        u.gum
+            .rows
+            .iter()
+            .find(|r| r.name.starts_with(start))
+            .unwrap_or_else(|| panic!("no row {start}"))
+            .standard_uncertainty
+    };
+    let (noise, quantization) = (row("noise"), row("quantization"));
+    assert!(quantization > 0.1 * noise, "{quantization} vs {noise}");
+    assert_relative_eq!(
+        noise.hypot(quantization),
+        channel.noise_strain_rms,
+        max_relative = 1e-9
+    );
+}

@@ -705,14 +705,19 @@ fn evaluate_bridge(
             };
             let mut l = case.load_vector();
             l[LoadComponent::TemperatureChange] = case.value(LoadComponent::TemperatureChange);
-            Some(bridge_uncertainty(
-                member,
-                model,
-                &l,
-                &channel,
-                &tol,
-                options.quadrature,
-            )?)
+            // A budget that cannot be formed (a bridge that does not respond to its wanted
+            // load has no sensitivity to divide by) is reported; the rest of the bridge stands.
+            match bridge_uncertainty(member, model, &l, &channel, &tol, options.quadrature) {
+                Ok(u) => Some(u),
+                Err(e) => {
+                    findings.push(Finding {
+                        severity: Severity::Warn,
+                        message: format!("{}: no uncertainty budget: {e}", place(&case.name)),
+                        target,
+                    });
+                    None
+                }
+            }
         }
     };
     let uncertainty_case = uncertainty.as_ref().and(full_case.map(|c| c.name.clone()));

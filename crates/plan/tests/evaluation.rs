@@ -135,7 +135,14 @@ fn a_bridge_that_does_not_respond_to_its_wanted_load_fails_and_is_still_evaluate
     // nothing, which must fail the check rather than pass every margin.
     let mut p = demo_project();
     p.parts[0].bridges[0].wanted = gw_mechanics::LoadComponent::AxialForce;
-    let ev = evaluate(&p, &EvalOptions::default());
+    // With the uncertainty budget on, as the app evaluates.
+    let ev = evaluate(
+        &p,
+        &EvalOptions {
+            uncertainty: UncertaintyDepth::Gum,
+            ..EvalOptions::default()
+        },
+    );
     let fail = ev
         .findings
         .iter()
