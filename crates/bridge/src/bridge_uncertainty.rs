@@ -18,7 +18,8 @@ pub struct InstallationTolerances {
     /// Standard uncertainty of each grid's direction, rad (default 1°, common practice for
     /// careful hand layout).
     pub misalignment_rad: f64,
-    /// Standard uncertainty of each grid's position along the member, m (default 0.5 mm).
+    /// Standard uncertainty of each grid's position, along the member and across the face
+    /// alike, m (default 0.5 mm).
     pub position_m: f64,
     /// Standard uncertainty of transverse sensitivity (default 0.005).
     pub transverse_sensitivity: f64,
@@ -57,7 +58,8 @@ pub struct BridgeUncertainty {
     pub unit: &'static str,
 }
 
-/// Inputs, in order: lot gauge factor, Kt, per active grid (angle, position), per completion
+/// Inputs, in order: lot gauge factor, Kt, per active grid (angle, position along, position
+/// across), per completion
 /// arm (tolerance, drift), lead resistance, temperature, excitation, gain, quantization, noise.
 pub fn bridge_uncertainty(
     member: &Member,
@@ -129,24 +131,33 @@ pub fn bridge_uncertainty(
         let (am, tm) = along_rot(-h_angle)?;
         let d_angle = ((ap - am) / (2.0 * h_angle), (tp - tm) / (2.0 * h_angle));
         let h_pos = 0.5e-3;
-        let shifted = |d: f64| {
+        let shifted = |dx: f64, ds: f64| {
             let mut f = fp;
-            f.center.x_m += d;
+            f.center.x_m += dx;
+            f.center.s_m += ds;
             strains(f)
         };
-        // Near an end of the part a one-sided difference keeps the grid on the part.
-        let d_pos = match (shifted(h_pos), shifted(-h_pos)) {
-            (Ok((a1, t1)), Ok((a0, t0))) => ((a1 - a0) / (2.0 * h_pos), (t1 - t0) / (2.0 * h_pos)),
-            (Ok((a1, t1)), Err(_)) => {
-                let (a0, t0) = strains(fp)?;
-                ((a1 - a0) / h_pos, (t1 - t0) / h_pos)
-            }
-            (Err(_), Ok((a0, t0))) => {
-                let (a1, t1) = strains(fp)?;
-                ((a1 - a0) / h_pos, (t1 - t0) / h_pos)
-            }
-            (Err(e), Err(_)) => return Err(e),
+        // Near an edge of the face a one-sided difference keeps the grid on the part.
+        let derivative = |step: &dyn Fn(f64) -> Result<(f64, f64), BridgeError>| {
+            Ok(match (step(h_pos), step(-h_pos)) {
+                (Ok((a1, t1)), Ok((a0, t0))) => {
+                    ((a1 - a0) / (2.0 * h_pos), (t1 - t0) / (2.0 * h_pos))
+                }
+                (Ok((a1, t1)), Err(_)) => {
+                    let (a0, t0) = strains(fp)?;
+                    ((a1 - a0) / h_pos, (t1 - t0) / h_pos)
+                }
+                (Err(_), Ok((a0, t0))) => {
+                    let (a1, t1) = strains(fp)?;
+                    ((a1 - a0) / h_pos, (t1 - t0) / h_pos)
+                }
+                (Err(e), Err(_)) => return Err(e),
+            })
         };
+        let d_pos = derivative(&|d| shifted(d, 0.0))?;
+        // Across the face too: beside a hole or across a flange the field changes fastest
+        // that way.
+        let d_across = derivative(&|d| shifted(0.0, d))?;
         inputs.push(InputQuantity::normal(
             &format!("direction of grid in arm {}", k + 1),
             "rad",
@@ -159,7 +170,13 @@ pub fn bridge_uncertainty(
             0.0,
             tol.position_m,
         ));
-        geometry.push((k, d_angle, d_pos));
+        inputs.push(InputQuantity::normal(
+            &format!("position of grid in arm {} across the face", k + 1),
+            "m",
+            0.0,
+            tol.position_m,
+        ));
+        geometry.push((k, d_angle, d_pos, d_across));
     }
     let mut completions = Vec::new();
     for k in 0..4 {
@@ -226,11 +243,14 @@ pub fn bridge_uncertainty(
             kt_offset: x[1],
             ..Perturbation::default()
         };
-        for (i, (k, da, dp)) in geometry.iter().enumerate() {
-            let (angle, pos) = (x[2 + 2 * i], x[3 + 2 * i]);
-            p.grid_strain_offsets[*k] = (da.0 * angle + dp.0 * pos, da.1 * angle + dp.1 * pos);
+        for (i, (k, da, dp, dc)) in geometry.iter().enumerate() {
+            let (angle, pos, across) = (x[2 + 3 * i], x[3 + 3 * i], x[4 + 3 * i]);
+            p.grid_strain_offsets[*k] = (
+                da.0 * angle + dp.0 * pos + dc.0 * across,
+                da.1 * angle + dp.1 * pos + dc.1 * across,
+            );
         }
-        let base = 2 + 2 * n_geo;
+        let base = 2 + 3 * n_geo;
         for (i, k) in completions.iter().enumerate() {
             p.completion_scale[*k] = (1.0 + x[base + 2 * i]) * (1.0 + x[base + 2 * i + 1]);
         }

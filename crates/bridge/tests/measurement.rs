@@ -519,3 +519,63 @@ fn quantization_is_counted_once_in_the_uncertainty_budget() {
         max_relative = 1e-9
     );
 }
+
+#[test]
+fn position_across_the_face_enters_the_budget_beside_a_hole() {
+    // Beside a hole across the load (θ = 90°, Kirsch) the strain falls steeply with the
+    // distance from the hole edge, which is across the face (s), while along x it is
+    // stationary by symmetry: the budget must carry the across row. Its contribution is checked
+    // by an independent route: moving the whole gauge across and reading the bridge again.
+    let member = Member::PlateWithHole(PlateWithHole::new(0.01, 0.2, 0.2, 0.005, steel()).unwrap());
+    let at = |s: f64| {
+        vec![placed(
+            spec(GaugePattern::SingleGrid),
+            "H1",
+            Face::Plate,
+            0.0,
+            s,
+            0.0,
+        )]
+    };
+    let c = ArmElement::Completion(completion());
+    let b = bridge([grid(0, 0), c, c, c], LoadComponent::RemoteStressX, 1.0);
+    let loads = LoadVector::from_pairs(&[(LoadComponent::RemoteStressX, 100e6)]);
+    let s0 = 0.0075;
+    let gauges = at(s0);
+    let model = BridgeModel::new(&setup(&member, &gauges), &b).unwrap();
+    let s_w = model.sensitivity(LoadComponent::RemoteStressX).unwrap();
+    let channel = signal_chain::channel_figures(&model).unwrap();
+    let tol = bridge_uncertainty::InstallationTolerances::default();
+    let u = bridge_uncertainty::bridge_uncertainty(
+        &member,
+        &model,
+        &loads,
+        &channel,
+        &tol,
+        QuadratureOrder::default(),
+    )
+    .unwrap();
+    let row = |name: &str| {
+        u.gum
+            .rows
+            .iter()
+            .find(|r| r.name == name)
+            .unwrap_or_else(|| panic!("no row {name}"))
+            .contribution
+    };
+    let across = row("position of grid in arm 1 across the face");
+    let along = row("position of grid in arm 1 along the part");
+    // Moving the gauge by ±0.1 mm and reading again, in the measured unit (Pa of σx).
+    let h = 1e-4;
+    let reading = |s: f64| {
+        let g = at(s);
+        BridgeModel::new(&setup(&member, &g), &b)
+            .unwrap()
+            .displayed(&loads)
+            .unwrap()
+            / s_w
+    };
+    let slope = (reading(s0 + h) - reading(s0 - h)) / (2.0 * h);
+    assert_relative_eq!(across, (slope * tol.position_m).abs(), max_relative = 0.05);
+    assert!(across > 10.0 * along, "{across} vs {along}");
+}
