@@ -58,8 +58,8 @@ pub struct BridgeUncertainty {
     pub unit: &'static str,
 }
 
-/// Inputs, in order: lot gauge factor, Kt, per active grid (angle, position along, position
-/// across), per completion
+/// Inputs, in order: lot gauge factor, Kt, per gauge carrying active grids (direction, position
+/// along, position across: its grids move together), per completion
 /// arm (tolerance, drift), lead resistance, temperature, excitation, gain, quantization, noise.
 pub fn bridge_uncertainty(
     member: &Member,
@@ -100,9 +100,9 @@ pub fn bridge_uncertainty(
     // Geometric derivatives of each active grid's (along, across) strain at this load.
     let mut geometry = Vec::new();
     for k in 0..4 {
-        if !matches!(b.arms[k], ArmElement::Grid(_)) {
+        let ArmElement::Grid(grid) = b.arms[k] else {
             continue;
-        }
+        };
         let Some(fp) = model.footprint(k) else {
             continue;
         };
@@ -158,25 +158,46 @@ pub fn bridge_uncertainty(
         // Across the face too: beside a hole or across a flange the field changes fastest
         // that way.
         let d_across = derivative(&|d| shifted(0.0, d))?;
+        geometry.push((grid.gauge, k, d_angle, d_pos, d_across));
+    }
+    // Grids on one carrier (a pair, a rosette) turn and shift together: one direction and one
+    // position per carrier, not independent draws per grid (JCGM 100:2008, 5.2 on correlated
+    // inputs; here modelled as one shared input).
+    let mut carriers: Vec<(usize, Vec<usize>)> = Vec::new();
+    for (i, g) in geometry.iter().enumerate() {
+        match carriers.iter_mut().find(|(c, _)| *c == g.0) {
+            Some((_, members)) => members.push(i),
+            None => carriers.push((g.0, vec![i])),
+        }
+    }
+    for (_, members) in &carriers {
+        let arms: Vec<String> = members
+            .iter()
+            .map(|&i| (geometry[i].1 + 1).to_string())
+            .collect();
+        let which = if arms.len() == 1 {
+            format!("the gauge in arm {}", arms[0])
+        } else {
+            format!("the gauge carrying arms {}", arms.join(" and "))
+        };
         inputs.push(InputQuantity::normal(
-            &format!("direction of grid in arm {}", k + 1),
+            &format!("direction of {which}"),
             "rad",
             0.0,
             tol.misalignment_rad,
         ));
         inputs.push(InputQuantity::normal(
-            &format!("position of grid in arm {} along the part", k + 1),
+            &format!("position of {which} along the part"),
             "m",
             0.0,
             tol.position_m,
         ));
         inputs.push(InputQuantity::normal(
-            &format!("position of grid in arm {} across the face", k + 1),
+            &format!("position of {which} across the face"),
             "m",
             0.0,
             tol.position_m,
         ));
-        geometry.push((k, d_angle, d_pos, d_across));
     }
     let mut completions = Vec::new();
     for k in 0..4 {
@@ -235,7 +256,7 @@ pub fn bridge_uncertainty(
         0.0,
         channel.analog_noise_strain_rms,
     ));
-    let n_geo = geometry.len();
+    let n_carriers = carriers.len();
     let n_comp = completions.len();
     let f = |x: &[f64]| -> f64 {
         let mut p = Perturbation {
@@ -243,14 +264,17 @@ pub fn bridge_uncertainty(
             kt_offset: x[1],
             ..Perturbation::default()
         };
-        for (i, (k, da, dp, dc)) in geometry.iter().enumerate() {
-            let (angle, pos, across) = (x[2 + 3 * i], x[3 + 3 * i], x[4 + 3 * i]);
-            p.grid_strain_offsets[*k] = (
-                da.0 * angle + dp.0 * pos + dc.0 * across,
-                da.1 * angle + dp.1 * pos + dc.1 * across,
-            );
+        for (j, (_, members)) in carriers.iter().enumerate() {
+            let (angle, pos, across) = (x[2 + 3 * j], x[3 + 3 * j], x[4 + 3 * j]);
+            for &i in members {
+                let (_, k, da, dp, dc) = geometry[i];
+                p.grid_strain_offsets[k] = (
+                    da.0 * angle + dp.0 * pos + dc.0 * across,
+                    da.1 * angle + dp.1 * pos + dc.1 * across,
+                );
+            }
         }
-        let base = 2 + 3 * n_geo;
+        let base = 2 + 3 * n_carriers;
         for (i, k) in completions.iter().enumerate() {
             p.completion_scale[*k] = (1.0 + x[base + 2 * i]) * (1.0 + x[base + 2 * i + 1]);
         }

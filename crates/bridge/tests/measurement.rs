@@ -563,8 +563,8 @@ fn position_across_the_face_enters_the_budget_beside_a_hole() {
             .unwrap_or_else(|| panic!("no row {name}"))
             .contribution
     };
-    let across = row("position of grid in arm 1 across the face");
-    let along = row("position of grid in arm 1 along the part");
+    let across = row("position of the gauge in arm 1 across the face");
+    let along = row("position of the gauge in arm 1 along the part");
     // Moving the gauge by ±0.1 mm and reading again, in the measured unit (Pa of σx).
     let h = 1e-4;
     let reading = |s: f64| {
@@ -578,4 +578,67 @@ fn position_across_the_face_enters_the_budget_beside_a_hole() {
     let slope = (reading(s0 + h) - reading(s0 - h)) / (2.0 * h);
     assert_relative_eq!(across, (slope * tol.position_m).abs(), max_relative = 0.05);
     assert!(across > 10.0 * along, "{across} vs {along}");
+}
+
+#[test]
+fn grids_on_one_carrier_turn_together_in_the_budget() {
+    // A ±45° pair in adjacent arms on a shaft carrying torque and an axial load: when the carrier
+    // turns by δ both grids turn, and the axial part of their readings moves them apart by
+    // 2(εx − εy)·δ; drawn as two independent turns the budget would give only √2 times the
+    // single-grid term. Checked by an independent route: turning the whole gauge and reading
+    // the bridge again.
+    let member = Member::Shaft(Shaft::new(0.04, 0.0, 0.3, steel()).unwrap());
+    let pair = |angle_deg: f64| {
+        vec![placed(
+            spec(GaugePattern::ShearPair),
+            "T1",
+            Face::Round,
+            0.15,
+            0.0,
+            angle_deg,
+        )]
+    };
+    let c = ArmElement::Completion(completion());
+    let b = bridge([grid(0, 0), grid(0, 1), c, c], LoadComponent::Torque, 2.0);
+    let loads = LoadVector::from_pairs(&[
+        (LoadComponent::Torque, 300.0),
+        (LoadComponent::AxialForce, 60e3),
+    ]);
+    let gauges = pair(0.0);
+    let model = BridgeModel::new(&setup(&member, &gauges), &b).unwrap();
+    let s_w = model.sensitivity(LoadComponent::Torque).unwrap();
+    let channel = signal_chain::channel_figures(&model).unwrap();
+    let tol = bridge_uncertainty::InstallationTolerances::default();
+    let u = bridge_uncertainty::bridge_uncertainty(
+        &member,
+        &model,
+        &loads,
+        &channel,
+        &tol,
+        QuadratureOrder::default(),
+    )
+    .unwrap();
+    let turn = u
+        .gum
+        .rows
+        .iter()
+        .find(|r| r.name == "direction of the gauge carrying arms 1 and 2")
+        .expect("one direction row for the pair")
+        .contribution;
+    let h = 0.05;
+    let reading = |deg: f64| {
+        let g = pair(deg);
+        BridgeModel::new(&setup(&member, &g), &b)
+            .unwrap()
+            .displayed(&loads)
+            .unwrap()
+            / s_w
+    };
+    let slope = (reading(h) - reading(-h)) / (2.0 * h.to_radians());
+    assert_relative_eq!(
+        turn,
+        (slope * tol.misalignment_rad).abs(),
+        max_relative = 0.02
+    );
+    assert!(turn > 0.0);
 }
