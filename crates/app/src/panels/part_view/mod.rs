@@ -174,25 +174,10 @@ impl PartView {
         let mut actions = CanvasActions { open_face: None };
         let rect = resp.rect;
         self.pointer_ui(ui, resp);
-        let mut pending = self.pending.take();
-        if pending.is_none()
-            && self
-                .fitted_size
-                .is_some_and(|s| (s - rect.size()).length() > 1.0)
-        {
-            pending = Some(Framing::Fit);
-        }
-        if pending == Some(Framing::Selection) {
-            self.zoom_to_gauge(doc, rect);
-            self.fitted_size = None;
-        }
+        self.frame_view(doc, rect);
         let Some(scene) = self.scene.as_ref() else {
             return actions;
         };
-        if pending == Some(Framing::Fit) {
-            self.camera.fit(scene.extent_points(), rect);
-            self.fitted_size = Some(rect.size());
-        }
         let key = (self.camera, rect, scene.generation);
         if self.projection.as_ref().is_none_or(|p| p.key != key) {
             self.projection = Some(Projection::build(scene, &self.camera, rect));
@@ -270,6 +255,32 @@ impl PartView {
             actions.open_face = Some(f);
         }
         actions
+    }
+
+    /// Carries out a fit or zoom asked for, or fits again when the view changed size since the
+    /// last fit and the user has not zoomed or slid since.
+    fn frame_view(&mut self, doc: &DocumentState, rect: Rect) {
+        let mut pending = self.pending.take();
+        if pending.is_none()
+            && self
+                .fitted_size
+                .is_some_and(|s| (s - rect.size()).length() > 1.0)
+        {
+            pending = Some(Framing::Fit);
+        }
+        match pending {
+            Some(Framing::Selection) => {
+                self.zoom_to_gauge(doc, rect);
+                self.fitted_size = None;
+            }
+            Some(Framing::Fit) => {
+                if let Some(scene) = self.scene.as_ref() {
+                    self.camera.fit(scene.extent_points(), rect);
+                    self.fitted_size = Some(rect.size());
+                }
+            }
+            None => {}
+        }
     }
 
     /// Turn, slide and zoom from the pointer.
