@@ -7,6 +7,7 @@ use serde::{Deserialize, Serialize};
 use crate::circuit::{Excitation, LeadWiring, ShuntLocation};
 use crate::error::{BridgeError, check_non_negative, check_positive};
 use crate::gauge::{GridRef, PlacedGauge};
+use crate::signal_chain::LowPassFilter;
 
 /// A fixed resistor that completes the bridge (at the instrument).
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
@@ -82,8 +83,13 @@ pub struct SignalChain {
     pub adc_bits: u32,
     /// Amplifier input voltage noise density, V/√Hz.
     pub amplifier_noise_v_per_rt_hz: f64,
-    /// Measurement bandwidth, Hz.
+    /// Measurement bandwidth: the −3 dB cut-off of the channel's low-pass filter, Hz.
     pub bandwidth_hz: f64,
+    /// The low-pass filter whose cut-off `bandwidth_hz` is; noise integrates over its noise
+    /// bandwidth. Files without it load as a first-order RC (the conservative default, see
+    /// [`LowPassFilter`]).
+    #[serde(default)]
+    pub filter: LowPassFilter,
     /// Excitation accuracy, ± fraction.
     pub excitation_accuracy: f64,
     /// Gain accuracy, ± fraction.
@@ -232,6 +238,12 @@ impl Bridge {
             });
         }
         check_positive(&what("bandwidth"), self.signal.bandwidth_hz)?;
+        if let Err(BridgeError::Invalid { what: field, why }) = self.signal.filter.validate() {
+            return Err(BridgeError::Invalid {
+                what: what(&field),
+                why,
+            });
+        }
         if let Some(rin) = self.amplifier_input_ohm {
             check_positive(&what("amplifier input resistance"), rin)?;
         }

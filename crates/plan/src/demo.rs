@@ -3,6 +3,7 @@
 
 use gw_bridge::bridge::COPPER_TCR_PER_C;
 use gw_bridge::bridge_uncertainty::InstallationTolerances;
+use gw_bridge::signal_chain::LowPassFilter;
 use gw_bridge::{
     CompletionResistor, Excitation, GaugePattern, InstrumentTemperature, LeadWire, LeadWiring,
     ShuntLocation, ShuntPlan, SignalChain,
@@ -79,6 +80,7 @@ fn signal(gain: f64) -> SignalChain {
         adc_bits: 24,
         amplifier_noise_v_per_rt_hz: 8e-9,
         bandwidth_hz: 100.0,
+        filter: LowPassFilter::FirstOrderRc,
         excitation_accuracy: 0.0005,
         gain_accuracy: 0.001,
     }

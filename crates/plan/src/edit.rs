@@ -6,6 +6,7 @@ use gw_bridge::{
     CompletionResistor, Excitation, GaugePattern, InstrumentTemperature, LeadWire, LeadWiring,
     SignalChain, bridge::COPPER_TCR_PER_C,
 };
+use gw_bridge::signal_chain::LowPassFilter;
 use gw_mechanics::{LoadComponent, SurfacePoint};
 
 use crate::blank::{ModelKind, default_material, first_load_case, new_part};
@@ -226,6 +227,7 @@ fn add_bridge(p: &mut Project, part: usize) -> Result<Item, String> {
             adc_bits: 24,
             amplifier_noise_v_per_rt_hz: 10e-9,
             bandwidth_hz: 100.0,
+            filter: LowPassFilter::default(),
             excitation_accuracy: 0.001,
             gain_accuracy: 0.001,
         },

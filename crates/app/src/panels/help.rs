@@ -23,6 +23,10 @@ const METHOD: &[(&str, &str)] = &[
         "Apparent strain comes from the gauge lot's thermal output, the mismatch between the part's expansion and the gauge's match, gauge-factor drift, lead resistance (leads follow the part temperature) and completion-resistor drift.",
     ),
     (
+        "Noise",
+        "Johnson noise of the bridge's output resistance and the amplifier's noise density, over the channel filter's equivalent noise bandwidth: π/2 × the bandwidth for a first-order RC (taken when no filter is given), 1.11 × for a two-pole Butterworth, 1.03 × for four poles. Quantization is its own row in the uncertainty budget.",
+    ),
+    (
         "Uncertainty",
         "Linear propagation per JCGM 100:2008 with the inputs listed in the budget, k = 2; Monte Carlo per JCGM 101:2008 on request.",
     ),

@@ -1,6 +1,7 @@
 //! The inspector's fields for each kind of item: project header, gauge stock type, part,
 //! load case, gauge and bridge. One line per field of the document.
 
+use gw_bridge::signal_chain::LowPassFilter;
 use gw_bridge::{
     Excitation, GaugePattern, GaugeSpec, InstrumentTemperature, LeadWiring, ShuntLocation,
     ShuntPlan, ThermalOutput,
@@ -1717,8 +1718,8 @@ fn wiring_field(plan: &BridgePlan) -> Field<BridgePlan> {
     )
 }
 
-fn signal_fields() -> Vec<Field<BridgePlan>> {
-    vec![
+fn signal_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
+    let mut out = vec![
         num(
             "signal.gain",
             "Gain",
@@ -1759,6 +1760,9 @@ fn signal_fields() -> Vec<Field<BridgePlan>> {
             |p: &BridgePlan| p.signal.bandwidth_hz,
             |p, v| p.signal.bandwidth_hz = v,
         ),
+    ];
+    out.extend(filter_fields(plan));
+    out.extend([
         num(
             "signal.excitation_accuracy",
             "Excitation accuracy",
@@ -1802,7 +1806,58 @@ fn signal_fields() -> Vec<Field<BridgePlan>> {
             |p: &BridgePlan| p.instrument_temperature,
             |p, v| p.instrument_temperature = v,
         ),
-    ]
+    ]);
+    out
+}
+
+/// The channel's low-pass filter, and its order when it is a Butterworth.
+fn filter_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
+    let mut out = vec![choice(
+        "signal.filter",
+        "Filter",
+        "Low-pass filter whose cut-off the bandwidth is; noise is taken over its noise bandwidth (π/2 × the cut-off for one pole)",
+        vec![
+            "first-order RC".into(),
+            "Butterworth".into(),
+            "brick wall (noise bandwidth as entered)".into(),
+        ],
+        |p: &BridgePlan| {
+            Some(match p.signal.filter {
+                LowPassFilter::FirstOrderRc => 0,
+                LowPassFilter::Butterworth { .. } => 1,
+                LowPassFilter::BrickWall => 2,
+            })
+        },
+        |p, i| {
+            p.signal.filter = match (i, p.signal.filter) {
+                (0, _) => LowPassFilter::FirstOrderRc,
+                (1, LowPassFilter::Butterworth { order }) => LowPassFilter::Butterworth { order },
+                (1, _) => LowPassFilter::Butterworth {
+                    order: LowPassFilter::USUAL_BUTTERWORTH_ORDER,
+                },
+                (2, _) => LowPassFilter::BrickWall,
+                (_, f) => f,
+            }
+        },
+    )];
+    if matches!(plan.signal.filter, LowPassFilter::Butterworth { .. }) {
+        out.push(whole(
+            "signal.filter.Butterworth.order",
+            "Filter poles",
+            (1, u64::from(LowPassFilter::MAX_ORDER)),
+            "Order of the Butterworth filter (number of poles)",
+            |p: &BridgePlan| match p.signal.filter {
+                LowPassFilter::Butterworth { order } => u64::from(order),
+                _ => 0,
+            },
+            |p, v| {
+                if let LowPassFilter::Butterworth { order } = &mut p.signal.filter {
+                    *order = u32::try_from(v).unwrap_or(LowPassFilter::MAX_ORDER)
+                }
+            },
+        ));
+    }
+    out
 }
 
 fn excitation_fields() -> Vec<Field<BridgePlan>> {
@@ -2070,7 +2125,7 @@ pub fn bridge_groups(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<G
         },
         Group {
             title: "Channel",
-            fields: signal_fields(),
+            fields: signal_fields(plan),
         },
         Group {
             title: "Shunt calibration",

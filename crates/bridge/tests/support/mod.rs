@@ -93,6 +93,7 @@ pub fn bridge(arms: [ArmElement; 4], wanted: LoadComponent, bridge_factor: f64) 
             adc_bits: 24,
             amplifier_noise_v_per_rt_hz: 10e-9,
             bandwidth_hz: 100.0,
+            filter: signal_chain::LowPassFilter::FirstOrderRc,
             excitation_accuracy: 0.001,
             gain_accuracy: 0.001,
         },
