@@ -2,14 +2,16 @@
 //! displayed strain may be off by, per GUM and by Monte Carlo, with the exact circuit in the
 //! model.
 
-use gw_mechanics::{LoadVector, Member, QuadratureOrder, grid_average_state};
+use gw_mechanics::{GridFootprint, LoadVector, Member, QuadratureOrder, grid_average_state};
 use serde::{Deserialize, Serialize};
 
 use crate::bridge::ArmElement;
 use crate::error::BridgeError;
 use crate::model::{BridgeModel, Perturbation};
 use crate::signal_chain::ChannelFigures;
-use crate::uncertainty::{GumBudget, InputQuantity, MonteCarloResult, gum, monte_carlo};
+use crate::uncertainty::{
+    COVERAGE_PROBABILITY, GumBudget, InputQuantity, MonteCarloResult, gum, monte_carlo,
+};
 
 /// How well the installation and its environment are known. Defaults are ours; edit them to
 /// the job.
@@ -50,7 +52,7 @@ impl Default for InstallationTolerances {
 /// The budget of one bridge at one load case.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct BridgeUncertainty {
-    /// GUM linear propagation (k = 2).
+    /// GUM linear propagation, with the coverage factor for 95 % chosen from the budget.
     pub gum: GumBudget,
     /// Monte Carlo propagation.
     pub monte_carlo: MonteCarloResult,
@@ -97,83 +99,151 @@ pub fn bridge_uncertainty(
         0.0,
         tol.transverse_sensitivity,
     ));
-    // Geometric derivatives of each active grid's (along, across) strain at this load.
+    let geometry = grid_geometry(member, model, loads, quadrature)?;
+    let carriers = carriers(&geometry);
+    push_carrier_inputs(&mut inputs, &carriers, &geometry, tol);
+    let completions = push_completion_inputs(&mut inputs, model, tol);
+    push_channel_inputs(&mut inputs, model, channel, tol);
+    let reading = ReadingModel {
+        model,
+        loads,
+        wanted_sensitivity: s_w,
+        geometry,
+        carriers,
+        completions,
+    };
+    let f = |x: &[f64]| reading.wanted_load(x);
+    let budget = gum(&inputs, &f, COVERAGE_PROBABILITY)?;
+    let mc = monte_carlo(&inputs, &f, tol.monte_carlo_trials, tol.seed, 40);
+    Ok(BridgeUncertainty {
+        gum: budget,
+        monte_carlo: mc,
+        unit: wanted.unit(),
+    })
+}
+
+/// How one active grid's strains (along, across) change with its placement.
+#[derive(Debug, Clone, Copy)]
+struct GridGeometry {
+    /// Index of the gauge (carrier) the grid belongs to.
+    gauge: usize,
+    /// Arm the grid sits in.
+    arm: usize,
+    /// Per radian of turn.
+    d_angle: (f64, f64),
+    /// Per metre along the member.
+    d_along: (f64, f64),
+    /// Per metre across the face.
+    d_across: (f64, f64),
+}
+
+/// Geometric derivatives of each active grid's (along, across) strain at this load.
+fn grid_geometry(
+    member: &Member,
+    model: &BridgeModel,
+    loads: &LoadVector,
+    quadrature: QuadratureOrder,
+) -> Result<Vec<GridGeometry>, BridgeError> {
     let mut geometry = Vec::new();
     for k in 0..4 {
-        let ArmElement::Grid(grid) = b.arms[k] else {
+        let ArmElement::Grid(grid) = model.bridge().arms[k] else {
             continue;
         };
         let Some(fp) = model.footprint(k) else {
             continue;
         };
-        let strains = |f: gw_mechanics::GridFootprint| -> Result<(f64, f64), BridgeError> {
-            let st = grid_average_state(member, &f, loads, quadrature)?.mechanical_strain();
-            Ok((
-                st.along(fp.angle_rad),
-                st.along(fp.angle_rad + std::f64::consts::FRAC_PI_2),
-            ))
-        };
-        let h_angle = 0.5f64.to_radians();
-        let rot = |d: f64| gw_mechanics::GridFootprint {
-            angle_rad: fp.angle_rad + d,
-            ..fp
-        };
-        // A rotated grid reads along its own rotated direction.
-        let along_rot = |d: f64| -> Result<(f64, f64), BridgeError> {
-            let f = rot(d);
-            let st = grid_average_state(member, &f, loads, quadrature)?.mechanical_strain();
-            Ok((
-                st.along(f.angle_rad),
-                st.along(f.angle_rad + std::f64::consts::FRAC_PI_2),
-            ))
-        };
-        let (ap, tp) = along_rot(h_angle)?;
-        let (am, tm) = along_rot(-h_angle)?;
-        let d_angle = ((ap - am) / (2.0 * h_angle), (tp - tm) / (2.0 * h_angle));
-        let h_pos = 0.5e-3;
-        let shifted = |dx: f64, ds: f64| {
-            let mut f = fp;
-            f.center.x_m += dx;
-            f.center.s_m += ds;
-            strains(f)
-        };
-        // Near an edge of the face a one-sided difference keeps the grid on the part.
-        let derivative = |step: &dyn Fn(f64) -> Result<(f64, f64), BridgeError>| {
-            Ok(match (step(h_pos), step(-h_pos)) {
-                (Ok((a1, t1)), Ok((a0, t0))) => {
-                    ((a1 - a0) / (2.0 * h_pos), (t1 - t0) / (2.0 * h_pos))
-                }
-                (Ok((a1, t1)), Err(_)) => {
-                    let (a0, t0) = strains(fp)?;
-                    ((a1 - a0) / h_pos, (t1 - t0) / h_pos)
-                }
-                (Err(_), Ok((a0, t0))) => {
-                    let (a1, t1) = strains(fp)?;
-                    ((a1 - a0) / h_pos, (t1 - t0) / h_pos)
-                }
-                (Err(e), Err(_)) => return Err(e),
-            })
-        };
-        let d_pos = derivative(&|d| shifted(d, 0.0))?;
-        // Across the face too: beside a hole or across a flange the field changes fastest
-        // that way.
-        let d_across = derivative(&|d| shifted(0.0, d))?;
-        geometry.push((grid.gauge, k, d_angle, d_pos, d_across));
+        let (d_angle, d_along, d_across) = placement_derivatives(member, fp, loads, quadrature)?;
+        geometry.push(GridGeometry {
+            gauge: grid.gauge,
+            arm: k,
+            d_angle,
+            d_along,
+            d_across,
+        });
     }
-    // Grids on one carrier (a pair, a rosette) turn and shift together: one direction and one
-    // position per carrier, not independent draws per grid (JCGM 100:2008, 5.2 on correlated
-    // inputs; here modelled as one shared input).
+    Ok(geometry)
+}
+
+type StrainPair = (f64, f64);
+
+/// Derivatives of a grid's averaged (along, across) strain with its direction (per radian),
+/// its position along the member and across the face (per metre).
+fn placement_derivatives(
+    member: &Member,
+    fp: GridFootprint,
+    loads: &LoadVector,
+    quadrature: QuadratureOrder,
+) -> Result<(StrainPair, StrainPair, StrainPair), BridgeError> {
+    // A grid reads along its own (possibly turned) direction.
+    let strains = |f: GridFootprint| -> Result<StrainPair, BridgeError> {
+        let st = grid_average_state(member, &f, loads, quadrature)?.mechanical_strain();
+        Ok((
+            st.along(f.angle_rad),
+            st.along(f.angle_rad + std::f64::consts::FRAC_PI_2),
+        ))
+    };
+    let h_angle = 0.5f64.to_radians();
+    let turned = |d: f64| GridFootprint {
+        angle_rad: fp.angle_rad + d,
+        ..fp
+    };
+    let (ap, tp) = strains(turned(h_angle))?;
+    let (am, tm) = strains(turned(-h_angle))?;
+    let d_angle = ((ap - am) / (2.0 * h_angle), (tp - tm) / (2.0 * h_angle));
+    let h_pos = 0.5e-3;
+    let shifted = |dx: f64, ds: f64| {
+        let mut f = fp;
+        f.center.x_m += dx;
+        f.center.s_m += ds;
+        strains(f)
+    };
+    // Near an edge of the face a one-sided difference keeps the grid on the part.
+    let derivative = |step: &dyn Fn(f64) -> Result<StrainPair, BridgeError>| {
+        Ok(match (step(h_pos), step(-h_pos)) {
+            (Ok((a1, t1)), Ok((a0, t0))) => ((a1 - a0) / (2.0 * h_pos), (t1 - t0) / (2.0 * h_pos)),
+            (Ok((a1, t1)), Err(_)) => {
+                let (a0, t0) = strains(fp)?;
+                ((a1 - a0) / h_pos, (t1 - t0) / h_pos)
+            }
+            (Err(_), Ok((a0, t0))) => {
+                let (a1, t1) = strains(fp)?;
+                ((a1 - a0) / h_pos, (t1 - t0) / h_pos)
+            }
+            (Err(e), Err(_)) => return Err(e),
+        })
+    };
+    let d_along = derivative(&|d| shifted(d, 0.0))?;
+    // Across the face too: beside a hole or across a flange the field changes fastest that way.
+    let d_across = derivative(&|d| shifted(0.0, d))?;
+    Ok((d_angle, d_along, d_across))
+}
+
+/// Grids on one carrier (a pair, a rosette) turn and shift together: one direction and one
+/// position per carrier, not independent draws per grid (JCGM 100:2008, 5.2 on correlated
+/// inputs; here modelled as one shared input). Each entry: gauge index, indices into
+/// `geometry`.
+fn carriers(geometry: &[GridGeometry]) -> Vec<(usize, Vec<usize>)> {
     let mut carriers: Vec<(usize, Vec<usize>)> = Vec::new();
     for (i, g) in geometry.iter().enumerate() {
-        match carriers.iter_mut().find(|(c, _)| *c == g.0) {
+        match carriers.iter_mut().find(|(c, _)| *c == g.gauge) {
             Some((_, members)) => members.push(i),
-            None => carriers.push((g.0, vec![i])),
+            None => carriers.push((g.gauge, vec![i])),
         }
     }
-    for (_, members) in &carriers {
+    carriers
+}
+
+/// Direction, position along and position across of each carrier.
+fn push_carrier_inputs(
+    inputs: &mut Vec<InputQuantity>,
+    carriers: &[(usize, Vec<usize>)],
+    geometry: &[GridGeometry],
+    tol: &InstallationTolerances,
+) {
+    for (_, members) in carriers {
         let arms: Vec<String> = members
             .iter()
-            .map(|&i| (geometry[i].1 + 1).to_string())
+            .map(|&i| (geometry[i].arm + 1).to_string())
             .collect();
         let which = if arms.len() == 1 {
             format!("the gauge in arm {}", arms[0])
@@ -199,9 +269,17 @@ pub fn bridge_uncertainty(
             tol.position_m,
         ));
     }
+}
+
+/// Tolerance and drift of each completion resistor; returns the arms that hold one.
+fn push_completion_inputs(
+    inputs: &mut Vec<InputQuantity>,
+    model: &BridgeModel,
+    tol: &InstallationTolerances,
+) -> Vec<usize> {
     let mut completions = Vec::new();
     for k in 0..4 {
-        if let ArmElement::Completion(c) = b.arms[k] {
+        if let ArmElement::Completion(c) = model.bridge().arms[k] {
             inputs.push(InputQuantity::rectangular(
                 &format!("completion resistor in arm {} (relative)", k + 1),
                 "",
@@ -218,6 +296,17 @@ pub fn bridge_uncertainty(
             completions.push(k);
         }
     }
+    completions
+}
+
+/// Leads, part temperature, excitation, gain, quantization and noise.
+fn push_channel_inputs(
+    inputs: &mut Vec<InputQuantity>,
+    model: &BridgeModel,
+    channel: &ChannelFigures,
+    tol: &InstallationTolerances,
+) {
+    let signal = &model.bridge().signal;
     inputs.push(InputQuantity::rectangular(
         "lead resistance (relative)",
         "",
@@ -234,13 +323,13 @@ pub fn bridge_uncertainty(
         "excitation (relative)",
         "",
         0.0,
-        b.signal.excitation_accuracy,
+        signal.excitation_accuracy,
     ));
     inputs.push(InputQuantity::rectangular(
         "gain (relative)",
         "",
         0.0,
-        b.signal.gain_accuracy,
+        signal.gain_accuracy,
     ));
     inputs.push(InputQuantity::rectangular(
         "quantization",
@@ -256,41 +345,49 @@ pub fn bridge_uncertainty(
         0.0,
         channel.analog_noise_strain_rms,
     ));
-    let n_carriers = carriers.len();
-    let n_comp = completions.len();
-    let f = |x: &[f64]| -> f64 {
+}
+
+/// The measurement model: the wanted load inferred from the reading of the bridge perturbed by
+/// the inputs, in the order [`bridge_uncertainty`] lists them.
+struct ReadingModel<'a> {
+    model: &'a BridgeModel,
+    loads: &'a LoadVector,
+    wanted_sensitivity: f64,
+    geometry: Vec<GridGeometry>,
+    carriers: Vec<(usize, Vec<usize>)>,
+    completions: Vec<usize>,
+}
+
+impl ReadingModel<'_> {
+    fn wanted_load(&self, x: &[f64]) -> f64 {
         let mut p = Perturbation {
             gauge_factor_scale: 1.0 + x[0],
             kt_offset: x[1],
             ..Perturbation::default()
         };
-        for (j, (_, members)) in carriers.iter().enumerate() {
-            let (angle, pos, across) = (x[2 + 3 * j], x[3 + 3 * j], x[4 + 3 * j]);
+        for (j, (_, members)) in self.carriers.iter().enumerate() {
+            let (angle, along, across) = (x[2 + 3 * j], x[3 + 3 * j], x[4 + 3 * j]);
             for &i in members {
-                let (_, k, da, dp, dc) = geometry[i];
-                p.grid_strain_offsets[k] = (
-                    da.0 * angle + dp.0 * pos + dc.0 * across,
-                    da.1 * angle + dp.1 * pos + dc.1 * across,
+                let g = &self.geometry[i];
+                p.grid_strain_offsets[g.arm] = (
+                    g.d_angle.0 * angle + g.d_along.0 * along + g.d_across.0 * across,
+                    g.d_angle.1 * angle + g.d_along.1 * along + g.d_across.1 * across,
                 );
             }
         }
-        let base = 2 + 3 * n_carriers;
-        for (i, k) in completions.iter().enumerate() {
+        let base = 2 + 3 * self.carriers.len();
+        for (i, k) in self.completions.iter().enumerate() {
             p.completion_scale[*k] = (1.0 + x[base + 2 * i]) * (1.0 + x[base + 2 * i + 1]);
         }
-        let rest = base + 2 * n_comp;
+        let rest = base + 2 * self.completions.len();
         p.lead_scale = 1.0 + x[rest];
         p.temperature_offset_c = x[rest + 1];
-        let displayed = model.perturbed_displayed(loads, &p).unwrap_or(f64::NAN);
+        let displayed = self
+            .model
+            .perturbed_displayed(self.loads, &p)
+            .unwrap_or(f64::NAN);
         let reading =
             displayed * (1.0 + x[rest + 2]) * (1.0 + x[rest + 3]) + x[rest + 4] + x[rest + 5];
-        reading / s_w
-    };
-    let budget = gum(&inputs, &f, 2.0);
-    let mc = monte_carlo(&inputs, &f, tol.monte_carlo_trials, tol.seed, 40);
-    Ok(BridgeUncertainty {
-        gum: budget,
-        monte_carlo: mc,
-        unit: wanted.unit(),
-    })
+        reading / self.wanted_sensitivity
+    }
 }

@@ -1,10 +1,16 @@
 //! Measurement uncertainty: linear propagation per the GUM (JCGM 100:2008) and Monte Carlo
 //! propagation per JCGM 101:2008, for any model y = f(x₁ … xₙ).
 
+pub mod coverage;
+
 use rand::SeedableRng;
 use rand_distr::{Distribution, Normal, Uniform};
 use rand_xoshiro::Xoshiro256PlusPlus;
 use serde::Serialize;
+
+pub use coverage::{COVERAGE_PROBABILITY, Coverage, CoverageMethod};
+
+use crate::error::BridgeError;
 
 /// The probability distribution assigned to an input quantity.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
@@ -28,9 +34,23 @@ pub struct InputQuantity {
     pub standard_uncertainty: f64,
     /// Distribution.
     pub distribution: InputDistribution,
+    /// Degrees of freedom of the standard uncertainty (JCGM 100:2008, G.3 and G.4.2): n − 1
+    /// for the mean of n observations; `None` for infinitely many, as for an input known by
+    /// its bounds (every Type B input here). Set with
+    /// [`InputQuantity::with_degrees_of_freedom`].
+    pub degrees_of_freedom: Option<f64>,
 }
 
 impl InputQuantity {
+    /// The same input with `dof` degrees of freedom (`f64::INFINITY` is the same as none).
+    /// [`gum`] refuses a value that is not a positive number, naming the input.
+    pub fn with_degrees_of_freedom(self, dof: f64) -> Self {
+        Self {
+            degrees_of_freedom: Some(dof),
+            ..self
+        }
+    }
+
     /// A rectangular input from a ± half-width: u = a / √3 (JCGM 100:2008, 4.3.7).
     pub fn rectangular(name: &str, unit: &str, value: f64, half_width: f64) -> Self {
         Self {
@@ -39,6 +59,7 @@ impl InputQuantity {
             value,
             standard_uncertainty: half_width.abs() / 3f64.sqrt(),
             distribution: InputDistribution::Rectangular,
+            degrees_of_freedom: None,
         }
     }
 
@@ -50,6 +71,7 @@ impl InputQuantity {
             value,
             standard_uncertainty: u.abs(),
             distribution: InputDistribution::Normal,
+            degrees_of_freedom: None,
         }
     }
 }
@@ -63,6 +85,10 @@ pub struct BudgetRow {
     pub unit: String,
     /// Standard uncertainty of the input.
     pub standard_uncertainty: f64,
+    /// Distribution of the input.
+    pub distribution: InputDistribution,
+    /// Degrees of freedom of the input's standard uncertainty (`None`: infinite).
+    pub degrees_of_freedom: Option<f64>,
     /// Sensitivity coefficient ∂f/∂xᵢ.
     pub sensitivity: f64,
     /// Contribution |cᵢ| u(xᵢ).
@@ -78,15 +104,58 @@ pub struct GumBudget {
     pub rows: Vec<BudgetRow>,
     /// Combined standard uncertainty uc = √Σ(cᵢ uᵢ)² (uncorrelated inputs).
     pub combined: f64,
-    /// Coverage factor.
+    /// Coverage factor k, chosen from the budget (see [`GumBudget::coverage`]).
     pub coverage_factor: f64,
+    /// Coverage probability of the expanded uncertainty (0.95).
+    pub coverage_probability: f64,
+    /// Effective degrees of freedom of uc by Welch–Satterthwaite (`None`: infinite).
+    pub effective_degrees_of_freedom: Option<f64>,
+    /// How the coverage factor was chosen.
+    pub coverage_method: CoverageMethod,
     /// Expanded uncertainty U = k uc.
     pub expanded: f64,
 }
 
+impl GumBudget {
+    /// Why k is what it is, in a few words ("one rectangular input dominates").
+    pub fn coverage_reason(&self) -> String {
+        self.coverage_method
+            .reason(self.effective_degrees_of_freedom)
+    }
+
+    /// The coverage factor with its reason, e.g. "k = 1.78 (one rectangular input dominates)".
+    pub fn coverage_text(&self) -> String {
+        format!(
+            "k = {:.2} ({})",
+            self.coverage_factor,
+            self.coverage_reason()
+        )
+    }
+}
+
 /// Linear propagation (JCGM 100:2008, 5.1.2, eq. (10)) with sensitivity coefficients from
-/// central differences at ±uᵢ/100.
-pub fn gum(inputs: &[InputQuantity], f: &dyn Fn(&[f64]) -> f64, coverage_factor: f64) -> GumBudget {
+/// central differences at ±uᵢ/100, and the expanded uncertainty for `coverage_probability`
+/// (use [`COVERAGE_PROBABILITY`]) with k from the budget itself: Student's t at the
+/// Welch–Satterthwaite degrees of freedom, or the rectangle-and-normal factor when one
+/// rectangular input dominates (see [`coverage::coverage`]).
+///
+/// Errors: a coverage probability outside (0, 1), or an input whose degrees of freedom are
+/// not a positive number (the message names the input).
+pub fn gum(
+    inputs: &[InputQuantity],
+    f: &dyn Fn(&[f64]) -> f64,
+    coverage_probability: f64,
+) -> Result<GumBudget, BridgeError> {
+    for input in inputs {
+        if let Some(nu) = input.degrees_of_freedom
+            && (nu.is_nan() || nu <= 0.0)
+        {
+            return Err(BridgeError::Invalid {
+                what: format!("degrees of freedom of \"{}\"", input.name),
+                why: format!("{nu} must be a positive number (n − 1 for n observations)"),
+            });
+        }
+    }
     let x0: Vec<f64> = inputs.iter().map(|i| i.value).collect();
     let value = f(&x0);
     let mut rows: Vec<BudgetRow> = inputs
@@ -108,6 +177,8 @@ pub fn gum(inputs: &[InputQuantity], f: &dyn Fn(&[f64]) -> f64, coverage_factor:
                 name: input.name.clone(),
                 unit: input.unit.clone(),
                 standard_uncertainty: u,
+                distribution: input.distribution,
+                degrees_of_freedom: input.degrees_of_freedom,
                 sensitivity,
                 contribution: (sensitivity * u).abs(),
             }
@@ -119,13 +190,25 @@ pub fn gum(inputs: &[InputQuantity], f: &dyn Fn(&[f64]) -> f64, coverage_factor:
         .map(|r| r.contribution.powi(2))
         .sum::<f64>()
         .sqrt();
-    GumBudget {
+    let contributions: Vec<coverage::Contribution> = rows
+        .iter()
+        .map(|r| coverage::Contribution {
+            standard_uncertainty: r.contribution,
+            degrees_of_freedom: r.degrees_of_freedom,
+            rectangular: r.distribution == InputDistribution::Rectangular,
+        })
+        .collect();
+    let k = coverage::coverage(&contributions, coverage_probability)?;
+    Ok(GumBudget {
         value,
         rows,
         combined,
-        coverage_factor,
-        expanded: coverage_factor * combined,
-    }
+        coverage_factor: k.factor,
+        coverage_probability: k.probability,
+        effective_degrees_of_freedom: k.effective_degrees_of_freedom,
+        coverage_method: k.method,
+        expanded: k.factor * combined,
+    })
 }
 
 /// Result of a Monte Carlo propagation.

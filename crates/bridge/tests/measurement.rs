@@ -7,7 +7,7 @@ use gw_bridge::chooser::{ChooserRequest, choose};
 use gw_bridge::shunt::{nearest_e96, shunt_for_strain, simulated_strain};
 use gw_bridge::signal_chain::johnson_noise_v;
 use gw_bridge::temperature::thermal_sweep;
-use gw_bridge::uncertainty::{InputQuantity, gum, monte_carlo};
+use gw_bridge::uncertainty::{COVERAGE_PROBABILITY, InputQuantity, gum, monte_carlo};
 use gw_bridge::*;
 use gw_mechanics::*;
 use support::*;
@@ -221,14 +221,18 @@ fn gum_linear_propagation_of_a_sum() {
         InputQuantity::normal("x1", "", 1.0, 0.3),
         InputQuantity::rectangular("x2", "", 2.0, 0.5),
     ];
-    let b = gum(&inputs, &|x| x[0] + 2.0 * x[1], 2.0);
+    let b = gum(&inputs, &|x| x[0] + 2.0 * x[1], COVERAGE_PROBABILITY).unwrap();
     let u2 = 0.5 / 3f64.sqrt();
     assert_relative_eq!(
         b.combined,
         (0.09 + 4.0 * u2 * u2).sqrt(),
         max_relative = 1e-9
     );
-    assert_relative_eq!(b.expanded, 2.0 * b.combined, max_relative = 1e-15);
+    assert_relative_eq!(
+        b.expanded,
+        b.coverage_factor * b.combined,
+        max_relative = 1e-15
+    );
     assert_relative_eq!(b.value, 5.0, max_relative = 1e-15);
 }
 
@@ -242,7 +246,7 @@ fn monte_carlo_agrees_with_gum_for_a_linear_model() {
         InputQuantity::normal("x3", "", 0.0, 0.5),
     ];
     let f = |x: &[f64]| x[0] - 0.5 * x[1] + 3.0 * x[2];
-    let g = gum(&inputs, &f, 2.0);
+    let g = gum(&inputs, &f, COVERAGE_PROBABILITY).unwrap();
     let mc = monte_carlo(&inputs, &f, 200_000, 7, 40);
     assert_relative_eq!(mc.standard_deviation, g.combined, max_relative = 0.01);
 }
@@ -258,7 +262,7 @@ fn monte_carlo_shows_what_first_order_gum_misses_in_a_quadratic_model() {
         InputQuantity::normal("x2", "", 0.0, u),
     ];
     let f = |x: &[f64]| x[0] * x[0] + x[1] * x[1];
-    let g = gum(&inputs, &f, 2.0);
+    let g = gum(&inputs, &f, COVERAGE_PROBABILITY).unwrap();
     assert!(g.combined < 1e-12);
     let mc = monte_carlo(&inputs, &f, 200_000, 11, 40);
     assert_relative_eq!(mc.standard_deviation, 2.0 * u * u, max_relative = 0.02);

@@ -218,11 +218,12 @@ fn write_uncertainty(out: &mut String, b: &BridgeEvaluation) {
     let case = b.uncertainty_case.as_deref().unwrap_or("—");
     let _ = writeln!(
         out,
-        "    uncertainty at \"{case}\": {} ± {} (GUM, k = {})",
+        "    uncertainty at \"{case}\": {} ± {} (GUM, {:.0} % coverage)",
         si(u.gum.value, u.unit),
         si(u.gum.expanded, u.unit),
-        u.gum.coverage_factor
+        u.gum.coverage_probability * 100.0
     );
+    let _ = writeln!(out, "      {}", u.gum.coverage_text());
     if let Some(top) = u.gum.rows.first() {
         let _ = writeln!(out, "      largest contribution: {}", top.name);
     }

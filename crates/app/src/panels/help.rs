@@ -28,7 +28,7 @@ const METHOD: &[(&str, &str)] = &[
     ),
     (
         "Uncertainty",
-        "Linear propagation per JCGM 100:2008 with the inputs listed in the budget, k = 2; Monte Carlo per JCGM 101:2008 on request.",
+        "Linear propagation per JCGM 100:2008 with the inputs listed in the budget; the expanded uncertainty covers 95 %, with k from the budget itself (JCGM 100:2008, Annex G): Student's t at the Welch–Satterthwaite degrees of freedom (1.96 when every input is known by its bounds), or, when one rectangular input carries at least half the variance, the factor of that rectangle convolved with a normal of the rest (down to 1.65 for a rectangle alone). Monte Carlo per JCGM 101:2008 on request.",
     ),
     (
         "Margins",

@@ -272,12 +272,14 @@ fn uncertainty_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation)
     let units = doc.units;
     let q = Quantity::of(be.wanted);
     ui.label(format!(
-        "At {}: inferred {} = {}; combined standard uncertainty {}, expanded (k = 2) ± {}",
+        "At {}: inferred {} = {}; combined standard uncertainty {}, expanded ± {} for {:.0} % coverage, {}",
         be.uncertainty_case.as_deref().unwrap_or("—"),
         be.wanted.name(),
         units.format(q, u.gum.value),
         units.format(q, u.gum.combined),
-        units.format(q, u.gum.expanded)
+        units.format(q, u.gum.expanded),
+        u.gum.coverage_probability * 100.0,
+        u.gum.coverage_text()
     ));
     let bars: Vec<Bar> = u
         .gum
