@@ -25,6 +25,7 @@ pub mod shunt;
 pub mod signal_chain;
 pub mod temperature;
 pub mod uncertainty;
+pub mod units;
 
 pub use bridge::{
     ArmElement, Bridge, CompletionResistor, InstrumentSetting, InstrumentTemperature, LeadWire,

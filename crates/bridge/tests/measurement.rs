@@ -3,7 +3,6 @@
 mod support;
 
 use approx::assert_relative_eq;
-use gw_bridge::chooser::{ChooserRequest, choose};
 use gw_bridge::shunt::{nearest_e96, shunt_for_strain, simulated_strain};
 use gw_bridge::signal_chain::johnson_noise_v;
 use gw_bridge::temperature::thermal_sweep;
@@ -266,38 +265,6 @@ fn monte_carlo_shows_what_first_order_gum_misses_in_a_quadratic_model() {
     assert!(g.combined < 1e-12);
     let mc = monte_carlo(&inputs, &f, 200_000, 11, 40);
     assert_relative_eq!(mc.standard_deviation, 2.0 * u * u, max_relative = 0.02);
-}
-
-#[test]
-fn chooser_finds_the_bending_pair_that_cancels_axial_load() {
-    let member = cantilever();
-    let gauges = top_bottom();
-    let request = ChooserRequest {
-        wanted: LoadComponent::VerticalForce,
-        wanted_magnitude: 1000.0,
-        unwanted: vec![(LoadComponent::AxialForce, 20_000.0)],
-        temperature_range_c: (-10.0, 30.0),
-        reference_temperature_c: 20.0,
-        completion: completion(),
-        keep: 10,
-    };
-    let ranked = choose(&member, &gauges, &request, QuadratureOrder::default()).unwrap();
-    let best = &ranked[0];
-    assert!(best.worst_leakage() < 1e-9, "{best:?}");
-    let grids = best
-        .arms
-        .iter()
-        .filter(|a| matches!(a, ArmElement::Grid(_)))
-        .count();
-    assert_eq!(grids, 2, "{}", best.reason);
-    assert!(
-        best.reason.contains("cancels axial force"),
-        "{}",
-        best.reason
-    );
-    for pair in ranked.windows(2) {
-        assert!(pair[0].score >= pair[1].score);
-    }
 }
 
 #[test]

@@ -83,23 +83,27 @@ pub fn catalogue_spec(project: &crate::Project, part: &Part) -> gw_bridge::Gauge
         .unwrap_or_else(|| crate::document::default_gauge_spec(gw_bridge::GaugePattern::SingleGrid))
 }
 
-/// Every assignment of the part's placed grids to the arms of bridge `bridge`, ranked for the
-/// load it measures against the others the part's load cases carry (largest magnitudes), over
-/// the first load case's temperature range.
-pub fn suggest(
+/// What the chooser is asked for bridge `plan` of `part`: its wanted load at the largest value
+/// the part's load cases give it, against the others they carry (largest magnitudes), over the
+/// widest temperature range of the cases, in the bridge's own wiring, excitation and channel.
+pub fn chooser_request(
     project: &crate::Project,
     part: &Part,
-    bridge: usize,
-) -> Result<Vec<RankedArrangement>, String> {
-    use gw_bridge::chooser::{ChooserRequest, choose};
+    plan: &BridgePlan,
+) -> Result<gw_bridge::chooser::ChooserRequest, String> {
     use gw_mechanics::LoadComponent;
-    let plan = part.bridges.get(bridge).ok_or("there is no such bridge")?;
     let expected = crate::validate::expected_magnitudes(part);
     let magnitude = expected
         .iter()
         .find(|(c, _)| *c == plan.wanted)
         .map(|(_, m)| *m)
-        .unwrap_or(1.0);
+        .filter(|m| *m > 0.0)
+        .ok_or_else(|| {
+            format!(
+                "no load case applies {}; give it its rated value in a load case, then suggest again",
+                plan.wanted.name()
+            )
+        })?;
     let unwanted = expected
         .iter()
         .filter(|(c, _)| *c != plan.wanted && *c != LoadComponent::TemperatureChange)
@@ -107,25 +111,59 @@ pub fn suggest(
         .collect();
     let range = part
         .load_cases
-        .first()
+        .iter()
         .map(|c| c.temperature_range_c)
+        .reduce(|a, b| (a.0.min(b.0), a.1.max(b.1)))
         .unwrap_or((-20.0, 40.0));
     let spec = catalogue_spec(project, part);
-    let request = ChooserRequest {
+    Ok(gw_bridge::chooser::ChooserRequest {
         wanted: plan.wanted,
-        wanted_magnitude: magnitude.max(1e-12),
+        wanted_magnitude: magnitude,
         unwanted,
         temperature_range_c: range,
         reference_temperature_c: project.reference_temperature_c,
-        completion: gw_bridge::CompletionResistor {
-            ohm: spec.resistance_ohm,
-            tolerance: 0.0005,
-            tcr_per_c: 5e-6,
-        },
+        template: crate::validate::bridge_settings(plan),
+        completion: CatalogueEntry::completion_for(&spec),
+        tolerances: part.tolerances,
         keep: 8,
-    };
+    })
+}
+
+/// Every assignment of the part's placed grids to the arms of bridge `bridge`, ranked by the
+/// error each leaves in the wanted load at its rated value ([`chooser_request`]).
+pub fn suggest(
+    project: &crate::Project,
+    part: &Part,
+    bridge: usize,
+) -> Result<Vec<RankedArrangement>, String> {
+    let plan = part.bridges.get(bridge).ok_or("there is no such bridge")?;
+    let request = chooser_request(project, part, plan)?;
     let gauges = project.placed_gauges(part);
-    choose(&part.member, &gauges, &request, QuadratureOrder::default()).map_err(|e| e.to_string())
+    gw_bridge::chooser::choose(&part.member, &gauges, &request, QuadratureOrder::default())
+        .map_err(|e| e.to_string())
+}
+
+/// The bridge as wired, judged as the chooser judges its suggestions (`None` when it is not
+/// wired, does not read its wanted load positively or reads less than one count).
+pub fn assess_wired(
+    project: &crate::Project,
+    part: &Part,
+    bridge: usize,
+) -> Result<Option<RankedArrangement>, String> {
+    let plan = part.bridges.get(bridge).ok_or("there is no such bridge")?;
+    let gauges = project.placed_gauges(part);
+    let Ok(wired) = bridge_from_plan(part, &gauges, plan) else {
+        return Ok(None);
+    };
+    let request = chooser_request(project, part, plan)?;
+    gw_bridge::chooser::assess(
+        &part.member,
+        &gauges,
+        &request,
+        &wired.arms,
+        QuadratureOrder::default(),
+    )
+    .map_err(|e| e.to_string())
 }
 
 /// Adds the entry's gauges to the part (with new ids, their data in the project's gauge stock)

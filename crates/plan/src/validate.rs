@@ -227,21 +227,27 @@ pub fn bridge_from_plan(
             element: grid - 1,
         })
     };
-    let mut arms = [ArmElement::Completion(gw_bridge::CompletionResistor {
-        ohm: 350.0,
-        tolerance: 0.0,
-        tcr_per_c: 0.0,
-    }); 4];
+    let mut bridge = bridge_settings(plan);
     for (k, arm) in plan.arms.iter().enumerate() {
-        arms[k] = match arm {
+        bridge.arms[k] = match arm {
             PlanArm::Grid { gauge, grid } => ArmElement::Grid(resolve(k, gauge, *grid)?),
             PlanArm::Dummy { gauge, grid } => ArmElement::Dummy(resolve(k, gauge, *grid)?),
             PlanArm::Completion(c) => ArmElement::Completion(*c),
         };
     }
-    Ok(Bridge {
+    Ok(bridge)
+}
+
+/// The bridge's settings (wiring, leads, excitation, instrument, channel, shunt) with
+/// completion resistors in every arm: what a search fills with grids.
+pub fn bridge_settings(plan: &BridgePlan) -> Bridge {
+    Bridge {
         name: plan.name.clone(),
-        arms,
+        arms: [ArmElement::Completion(gw_bridge::CompletionResistor {
+            ohm: 350.0,
+            tolerance: 0.0,
+            tcr_per_c: 0.0,
+        }); 4],
         wiring: plan.wiring,
         lead: plan.lead,
         excitation: plan.excitation,
@@ -254,7 +260,7 @@ pub fn bridge_from_plan(
         wanted: plan.wanted,
         instrument_temperature: plan.instrument_temperature,
         shunt: plan.shunt,
-    })
+    }
 }
 
 /// The bridge with the bridge factor the instrument is set to: the engineer's override, or

@@ -12,7 +12,14 @@ use crate::panels::capitalise;
 use crate::state::{DocumentState, Selection};
 
 /// A suggestion list with the evaluation count, part and bridge it was made for.
-type Suggestions = (u64, usize, usize, Result<Vec<RankedArrangement>, String>);
+/// The ranked list for one bridge at one evaluation, with the bridge as wired judged the same
+/// way for comparison.
+type Suggestions = (
+    u64,
+    usize,
+    usize,
+    Result<(Vec<RankedArrangement>, Option<RankedArrangement>), String>,
+);
 
 /// View state: the last suggestion list and the project state it was made for.
 #[derive(Default)]
@@ -275,7 +282,10 @@ fn suggestions_ui(
             )
             .clicked()
         {
-            let result = gw_plan::arrangements::suggest(&doc.project, part, bi);
+            let result = gw_plan::arrangements::suggest(&doc.project, part, bi).and_then(|list| {
+                let wired = gw_plan::arrangements::assess_wired(&doc.project, part, bi)?;
+                Ok((list, wired))
+            });
             *suggestions = Some((doc.evaluations, sel.part, bi, result));
         }
     });
@@ -289,12 +299,21 @@ fn suggestions_ui(
         Err(e) => {
             ui.colored_label(super::palette::FAIL, e);
         }
-        Ok(list) if list.is_empty() => {
+        Ok((list, _)) if list.is_empty() => {
             ui.label(
-                "No arrangement of the placed grids responds to this load; place grids first.",
+                "No arrangement of the placed grids reads this load by more than one count of \
+                 the channel; place grids where it strains the part.",
             );
         }
-        Ok(list) => {
+        Ok((list, wired)) => {
+            ui.label(
+                "Ranked by the error each leaves in the wanted load at its rated value: \
+                 unwanted loads, temperature (leads included), nonlinearity, noise, one count \
+                 and placement tolerance.",
+            );
+            if let Some(w) = wired {
+                ui.add(egui::Label::new(format!("As wired: {}", capitalise(&w.reason))).truncate());
+            }
             egui::Grid::new("suggestions")
                 .num_columns(2)
                 .striped(true)
