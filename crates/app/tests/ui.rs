@@ -165,18 +165,20 @@ fn apply_a_catalogue_arrangement_and_a_suggested_one() {
     let mut h = harness();
     open_view(&mut h, "Bridges");
     let gauges_before = h.state().doc.project.parts[0].gauges.len();
-    h.get_by_label("Apply Bending pair, top and bottom faces")
-        .click();
+    h.get_by_label("Apply Bending pair, top and bottom").click();
     h.run();
     let doc = &h.state().doc;
     assert_eq!(
         doc.project.parts[0].bridges[0].arrangement,
-        "Bending pair, top and bottom faces"
+        "Bending pair, top and bottom"
     );
     assert_eq!(doc.project.parts[0].gauges.len(), gauges_before + 2);
     // Two grids in a bending pair read twice the first grid's strain (computed, not typed).
     assert!((doc.evaluation.parts[0].bridges[0].bridge_factor - 2.0).abs() < 1e-6);
     h.get_by_label("Suggest arrangements").click();
+    h.run();
+    // The ranked list sits below the catalogue: scroll down to it as a user would.
+    h.get_by_label("Apply suggestion 1").scroll_to_me();
     h.run();
     h.get_by_label("Apply suggestion 1").click();
     h.run();

@@ -5,11 +5,14 @@
 //! wanted load divided by the first active grid's strain, so that an instrument set to it
 //! displays the strain that grid sees from the wanted load.
 
-use gw_mechanics::{Face, LoadComponent, LoadVector, Member, SurfacePoint};
+mod layouts;
+
+use gw_mechanics::transverse::CALIBRATION_POISSON_RATIO;
+use gw_mechanics::{LoadComponent, LoadVector, Member, QuadratureOrder, grid_average_state};
 use serde::{Deserialize, Serialize};
 
 use crate::bridge::CompletionResistor;
-use crate::gauge::{GaugePattern, GaugeSpec, PlacedGauge};
+use crate::gauge::{GaugeSpec, PlacedGauge};
 
 /// What goes in an arm of a catalogue entry (gauge indices refer to the entry's own gauges).
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
@@ -27,7 +30,7 @@ pub enum ArmSlot {
 pub struct CatalogueEntry {
     /// Plain descriptive name.
     pub name: String,
-    /// One line on what it measures and what it cancels.
+    /// One line on where its grids go and what it reads, cancels and leaves on this part.
     pub description: String,
     /// Gauges to place.
     pub gauges: Vec<PlacedGauge>,
@@ -47,286 +50,189 @@ impl CatalogueEntry {
     }
 }
 
-fn gauge(
-    spec: &GaugeSpec,
-    pattern: GaugePattern,
-    face: Face,
-    x: f64,
-    s: f64,
-    angle_deg: f64,
-) -> PlacedGauge {
-    PlacedGauge {
-        id: String::new(),
-        spec: GaugeSpec {
-            pattern,
-            ..spec.clone()
-        },
-        position: SurfacePoint::new(face, x, s),
-        angle_rad: angle_deg.to_radians(),
-    }
-}
-
-const fn g(gauge: usize, element: usize) -> ArmSlot {
-    ArmSlot::Grid { gauge, element }
-}
-
-const C: ArmSlot = ArmSlot::Completion;
-
-fn entry(
-    name: &str,
-    description: &str,
-    gauges: Vec<PlacedGauge>,
-    arms: [ArmSlot; 4],
-) -> CatalogueEntry {
-    CatalogueEntry {
-        name: name.to_owned(),
-        description: description.to_owned(),
-        gauges,
-        arms,
-    }
-}
-
 /// Standard arrangements for measuring `wanted` on `member` at axial station `station_x_m`
 /// (beams, shafts, vessels; the plate uses the point across the load from the hole), all with
-/// grids of `spec`. Entries that do not apply to this part or component are left out.
+/// grids of `spec`. Only entries that read the wanted load on this part are offered: each is
+/// wired so that a positive wanted load reads positive, and its description says what it
+/// reads, cancels and leaves on this part, worked out from the part's own strain field.
 pub fn catalogue(
     member: &Member,
     wanted: LoadComponent,
     station_x_m: f64,
     spec: &GaugeSpec,
 ) -> Vec<CatalogueEntry> {
-    use GaugePattern::*;
-    use LoadComponent::*;
-    let x = station_x_m;
-    let mut out = Vec::new();
-    let single = |face, s, angle| gauge(spec, SingleGrid, face, x, s, angle);
-    let tee = |face, s, angle| gauge(spec, TwoElement90, face, x, s, angle);
-    let pair = |face, s| gauge(spec, ShearPair, face, x, s, 0.0);
-    let common = |out: &mut Vec<CatalogueEntry>, face: Face, s: f64, angle: f64, what: &str| {
-        out.push(entry(
-            "One active grid",
-            &format!("one grid along the {what}; simplest, but bending, axial load and temperature all show"),
-            vec![single(face, s, angle)],
-            [g(0, 0), C, C, C],
-        ));
-        out.push(entry(
-            "Active grid with dummy",
-            &format!("one grid along the {what} and an unstrained dummy in the adjacent arm; cancels temperature"),
-            vec![single(face, s, angle)],
-            [g(0, 0), ArmSlot::Dummy { gauge: 0, element: 0 }, C, C],
-        ));
-        out.push(entry(
-            "Active grid with Poisson grid",
-            &format!("a grid along the {what} and one across it in the adjacent arm; cancels temperature, gains 1 + ν"),
-            vec![tee(face, s, angle)],
-            [g(0, 0), g(0, 1), C, C],
-        ));
-    };
-    match member {
-        Member::Beam(beam) => {
-            let w = beam.section.width_m();
-            match wanted {
-                VerticalForce | UniformLoad | BendingMomentY => {
-                    common(&mut out, Face::Top, 0.0, 0.0, "beam axis on the top face");
-                    out.push(entry(
-                        "Bending pair, top and bottom faces",
-                        "grids on the top and bottom faces in adjacent arms; doubles bending, cancels axial load and temperature",
-                        vec![single(Face::Top, 0.0, 0.0), single(Face::Bottom, 0.0, 0.0)],
-                        [g(0, 0), g(1, 0), C, C],
-                    ));
-                    out.push(entry(
-                        "Bending, four grids on top and bottom",
-                        "two grids on each face, opposite faces in adjacent arms; four times the bending, cancels axial load, lateral bending and temperature",
-                        vec![
-                            single(Face::Top, -w / 4.0, 0.0),
-                            single(Face::Bottom, -w / 4.0, 0.0),
-                            single(Face::Top, w / 4.0, 0.0),
-                            single(Face::Bottom, w / 4.0, 0.0),
-                        ],
-                        [g(0, 0), g(1, 0), g(2, 0), g(3, 0)],
-                    ));
-                    if wanted == VerticalForce {
-                        out.push(entry(
-                            "Shear-web pair, one side",
-                            "±45° pair on the side face at the neutral axis; reads shear force whatever the bending moment, cancels axial load and temperature",
-                            vec![pair(Face::Front, 0.0)],
-                            [g(0, 0), g(0, 1), C, C],
-                        ));
-                        out.push(entry(
-                            "Shear-web pairs, both sides",
-                            "±45° pairs on both side faces at the neutral axis; shear force only, cancels bending in both planes, axial load and temperature",
-                            vec![pair(Face::Front, 0.0), pair(Face::Back, 0.0)],
-                            [g(0, 0), g(0, 1), g(1, 1), g(1, 0)],
-                        ));
-                    }
-                }
-                AxialForce => {
-                    common(&mut out, Face::Top, 0.0, 0.0, "beam axis on the top face");
-                    out.push(entry(
-                        "Axial pair, top and bottom faces",
-                        "grids on the top and bottom faces in opposite arms; doubles axial strain, cancels vertical bending",
-                        vec![single(Face::Top, 0.0, 0.0), single(Face::Bottom, 0.0, 0.0)],
-                        [g(0, 0), C, g(1, 0), C],
-                    ));
-                    out.push(entry(
-                        "Axial, four grids with Poisson pairs",
-                        "axial and transverse grids on the top and bottom faces; 2(1 + ν) times the axial strain, cancels vertical bending and temperature",
-                        vec![tee(Face::Top, 0.0, 0.0), tee(Face::Bottom, 0.0, 0.0)],
-                        [g(0, 0), g(0, 1), g(1, 0), g(1, 1)],
-                    ));
-                }
-                LateralForce | BendingMomentZ => {
-                    common(
-                        &mut out,
-                        Face::Front,
-                        0.0,
-                        0.0,
-                        "beam axis on the front face",
-                    );
-                    out.push(entry(
-                        "Lateral bending pair, front and back faces",
-                        "grids on the front and back faces in adjacent arms; doubles lateral bending, cancels axial load, vertical bending and temperature",
-                        vec![single(Face::Front, 0.0, 0.0), single(Face::Back, 0.0, 0.0)],
-                        [g(0, 0), g(1, 0), C, C],
-                    ));
-                }
-                _ => {}
-            }
+    layouts::layouts(member, wanted, station_x_m, spec)
+        .into_iter()
+        .filter_map(|e| fit_to_part(member, wanted, e))
+        .collect()
+}
+
+/// Linear responses of one entry's arms on the part: ΔR/R per unit of each load component and
+/// at a 10 °C rise (mechanically free), signed by arm.
+struct ArmResponses {
+    /// (signed sum, sum of magnitudes) per component.
+    per_component: [(f64, f64); LoadComponent::COUNT],
+    /// (signed sum, sum of magnitudes) of the thermal output at a 10 °C rise.
+    thermal: (f64, f64),
+}
+
+fn responses(member: &Member, entry: &CatalogueEntry) -> Option<ArmResponses> {
+    let mut per_component = [(0.0, 0.0); LoadComponent::COUNT];
+    let mut thermal = (0.0, 0.0);
+    let cte = member.material().cte_per_c;
+    for (slot, sign) in entry.arms.iter().zip(crate::model::ARM_SIGNS) {
+        let (gauge, element, active) = match *slot {
+            ArmSlot::Grid { gauge, element } => (gauge, element, true),
+            ArmSlot::Dummy { gauge, element } => (gauge, element, false),
+            ArmSlot::Completion => continue,
+        };
+        let placed = entry.gauges.get(gauge)?;
+        let spec = &placed.spec;
+        let th = spec.gauge_factor
+            * spec.thermal_output.apparent_strain(
+                cte,
+                spec.transverse_sensitivity,
+                spec.gauge_factor,
+                0.0,
+                10.0,
+            );
+        thermal.0 += sign * th;
+        thermal.1 += th.abs();
+        if !active {
+            continue;
         }
-        Member::Shaft(shaft) => {
-            let half_turn = std::f64::consts::PI * shaft.radius_m();
-            match wanted {
-                Torque => {
-                    out.push(entry(
-                        "Torque pair at ±45°",
-                        "one ±45° pair in adjacent arms; reads torque, cancels axial load and temperature, leaves bending",
-                        vec![pair(Face::Round, 0.0)],
-                        [g(0, 0), g(0, 1), C, C],
-                    ));
-                    out.push(entry(
-                        "Torque, four grids at ±45° on opposite sides",
-                        "two ±45° pairs half a turn apart; four times the torque strain, cancels bending, axial load and temperature",
-                        vec![pair(Face::Round, 0.0), pair(Face::Round, half_turn)],
-                        [g(0, 0), g(0, 1), g(1, 0), g(1, 1)],
-                    ));
-                }
-                BendingMomentY | BendingMomentZ => {
-                    let s0 = if wanted == BendingMomentY {
-                        0.0
-                    } else {
-                        half_turn / 2.0
-                    };
-                    common(&mut out, Face::Round, s0, 0.0, "shaft axis");
-                    out.push(entry(
-                        "Bending pair on opposite sides",
-                        "axial grids half a turn apart in adjacent arms; doubles bending, cancels axial load, torque and temperature",
-                        vec![single(Face::Round, s0, 0.0), single(Face::Round, s0 + half_turn, 0.0)],
-                        [g(0, 0), g(1, 0), C, C],
-                    ));
-                }
-                AxialForce => {
-                    common(&mut out, Face::Round, 0.0, 0.0, "shaft axis");
-                    out.push(entry(
-                        "Axial, four grids with Poisson pairs",
-                        "axial and hoop grids half a turn apart; 2(1 + ν) times the axial strain, cancels bending, torque and temperature",
-                        vec![tee(Face::Round, 0.0, 0.0), tee(Face::Round, half_turn, 0.0)],
-                        [g(0, 0), g(0, 1), g(1, 0), g(1, 1)],
-                    ));
-                }
-                _ => {}
+        let footprint = placed.footprint(element);
+        for &c in member.components() {
+            if c == LoadComponent::TemperatureChange {
+                continue;
             }
-        }
-        Member::ThinCylinder(_) | Member::ThickCylinder(_) | Member::ThinSphere(_) => {
-            if matches!(wanted, InternalPressure | ExternalPressure) {
-                let (half_turn, x) = match member {
-                    Member::ThinCylinder(v) => (std::f64::consts::PI * v.outer_diameter_m / 2.0, x),
-                    Member::ThickCylinder(v) => {
-                        (std::f64::consts::PI * v.outer_diameter_m / 2.0, x)
-                    }
-                    Member::ThinSphere(v) => (std::f64::consts::PI * v.outer_diameter_m / 2.0, 0.0),
-                    _ => (0.0, x),
-                };
-                let hoop = |s: f64| gauge(spec, SingleGrid, Face::Round, x, s, 90.0);
-                let tee_h = |s: f64| gauge(spec, TwoElement90, Face::Round, x, s, 90.0);
-                out.push(entry(
-                    "One hoop grid",
-                    "one grid round the circumference; largest strain, temperature shows",
-                    vec![hoop(0.0)],
-                    [g(0, 0), C, C, C],
-                ));
-                out.push(entry(
-                    "Hoop grid with dummy",
-                    "a hoop grid and an unstrained dummy in the adjacent arm; cancels temperature",
-                    vec![hoop(0.0)],
-                    [
-                        g(0, 0),
-                        ArmSlot::Dummy {
-                            gauge: 0,
-                            element: 0,
-                        },
-                        C,
-                        C,
-                    ],
-                ));
-                out.push(entry(
-                    "Hoop and axial pair",
-                    "hoop and axial grids in adjacent arms; cancels temperature and uniform axial load effects",
-                    vec![tee_h(0.0)],
-                    [g(0, 0), g(0, 1), C, C],
-                ));
-                out.push(entry(
-                    "Hoop and axial, four grids on opposite sides",
-                    "two hoop/axial pairs half a turn apart; doubles the pair's output and cancels bending of the shell and temperature",
-                    vec![tee_h(0.0), tee_h(half_turn)],
-                    [g(0, 0), g(0, 1), g(1, 0), g(1, 1)],
-                ));
-            }
-        }
-        Member::PlateWithHole(p) => {
-            if matches!(wanted, RemoteStressX | RemoteStressY) {
-                let a = p.hole_diameter_m / 2.0;
-                // Across the load from the hole, where the stress concentrates; the grid's
-                // centre sits one grid length from the edge.
-                let gap = a + spec.grid_width_m / 2.0 + spec.grid_length_m;
-                let (x, s, angle) = if wanted == RemoteStressX {
-                    (0.0, gap, 0.0)
-                } else {
-                    (gap, 0.0, 90.0)
-                };
-                let one = gauge(spec, SingleGrid, Face::Plate, x, s, angle);
-                out.push(entry(
-                    "One grid beside the hole",
-                    "one grid along the load across from the hole, in the raised strain near its edge",
-                    vec![one.clone()],
-                    [g(0, 0), C, C, C],
-                ));
-                out.push(entry(
-                    "Grid beside the hole with dummy",
-                    "as the single grid, with a dummy in the adjacent arm to cancel temperature",
-                    vec![one],
-                    [
-                        g(0, 0),
-                        ArmSlot::Dummy {
-                            gauge: 0,
-                            element: 0,
-                        },
-                        C,
-                        C,
-                    ],
-                ));
-            }
-        }
-        Member::GivenState(_) => {
-            if wanted == GivenStateFactor {
-                common(&mut out, Face::Plate, 0.0, 0.0, "x axis of the given state");
-            }
+            let unit = LoadVector::unit(c);
+            let st = grid_average_state(member, &footprint, &unit, QuadratureOrder::default())
+                .ok()?
+                .mechanical_strain();
+            let a = st.along(footprint.angle_rad);
+            let t = st.along(footprint.angle_rad + std::f64::consts::FRAC_PI_2);
+            let kt = spec.transverse_sensitivity;
+            let d = spec.gauge_factor * (a + kt * t) / (1.0 - CALIBRATION_POISSON_RATIO * kt);
+            per_component[c.index()].0 += sign * d;
+            per_component[c.index()].1 += d.abs();
         }
     }
-    // Keep only entries whose grids lie on the part.
-    out.retain(|e| {
-        e.gauges
-            .iter()
-            .all(|pg| member.state(&pg.position, &LoadVector::ZERO).is_ok())
-    });
-    out
+    Some(ArmResponses {
+        per_component,
+        thermal,
+    })
+}
+
+/// Below this share of the grids' own responses a signed sum is a cancellation (rounding of
+/// the strain field, not a reading).
+const CANCELLED: f64 = 1e-6;
+
+/// Below this ΔR/R per unit of a component the grids see nothing of it (rounding of a zero
+/// strain; a real response per pascal is still some 1e-12).
+const UNSEEN: f64 = 1e-20;
+
+/// The entry as it works on this part, or `None` when its grids do not all lie on the part or
+/// it does not read the wanted load (its output is zero by symmetry here).
+fn fit_to_part(
+    member: &Member,
+    wanted: LoadComponent,
+    mut entry: CatalogueEntry,
+) -> Option<CatalogueEntry> {
+    let on_part = entry
+        .gauges
+        .iter()
+        .all(|pg| member.state(&pg.position, &LoadVector::ZERO).is_ok());
+    if !on_part {
+        return None;
+    }
+    let r = responses(member, &entry)?;
+    let (sum, magnitude) = r.per_component[wanted.index()];
+    if magnitude < UNSEEN || sum.abs() <= CANCELLED * magnitude {
+        return None;
+    }
+    if sum < 0.0 {
+        // Swapping the arms of each half reverses every term: arms 1 ↔ 2 and 3 ↔ 4.
+        let [a1, a2, a3, a4] = entry.arms;
+        entry.arms = [a2, a1, a4, a3];
+    }
+    // Output relative to its most strained grid's.
+    let mut largest: f64 = 0.0;
+    for slot in entry.arms {
+        if let ArmSlot::Grid { gauge, element } = slot {
+            let one = single_grid_response(member, &entry, (gauge, element), wanted)?;
+            largest = largest.max(one.abs());
+        }
+    }
+    let factor = sum.abs() / largest;
+    entry.description = describe(member, wanted, &entry.description, &r, factor);
+    Some(entry)
+}
+
+fn single_grid_response(
+    member: &Member,
+    entry: &CatalogueEntry,
+    (gauge, element): (usize, usize),
+    wanted: LoadComponent,
+) -> Option<f64> {
+    let alone = CatalogueEntry {
+        arms: [
+            ArmSlot::Grid { gauge, element },
+            ArmSlot::Completion,
+            ArmSlot::Completion,
+            ArmSlot::Completion,
+        ],
+        ..entry.clone()
+    };
+    let (sum, _) = responses(member, &alone)?.per_component[wanted.index()];
+    Some(sum)
+}
+
+/// The layout sentence followed by what the entry does on this part.
+fn describe(
+    member: &Member,
+    wanted: LoadComponent,
+    layout: &str,
+    r: &ArmResponses,
+    factor: f64,
+) -> String {
+    let mut cancels = Vec::new();
+    let mut unseen = Vec::new();
+    let mut shows = Vec::new();
+    for &c in member.components() {
+        if c == wanted || c == LoadComponent::TemperatureChange {
+            continue;
+        }
+        let (sum, magnitude) = r.per_component[c.index()];
+        if magnitude < UNSEEN {
+            unseen.push(c.name());
+        } else if sum.abs() <= CANCELLED * magnitude {
+            cancels.push(c.name());
+        } else {
+            shows.push(c.name());
+        }
+    }
+    let (t_sum, t_magnitude) = r.thermal;
+    let temperature = if t_magnitude == 0.0 {
+        "temperature is left to the gauges' own compensation"
+    } else if t_sum.abs() <= CANCELLED * t_magnitude {
+        cancels.push("temperature");
+        ""
+    } else {
+        "temperature shows"
+    };
+    let mut text = format!("{layout}; on this part it reads {factor:.2} × its most strained grid");
+    if !cancels.is_empty() {
+        text += &format!("; cancels {}", cancels.join(", "));
+    }
+    if !unseen.is_empty() {
+        text += &format!("; its grids see no {}", unseen.join(", no "));
+    }
+    if !shows.is_empty() {
+        text += &format!("; it also reads {}", shows.join(", "));
+    }
+    if !temperature.is_empty() {
+        text += &format!("; {temperature}");
+    }
+    text
 }
