@@ -67,8 +67,10 @@ pub struct ThermalOutput {
     /// Expansion coefficient of the material the gauge is matched to, 1/°C.
     pub matched_cte_per_c: f64,
     /// Lot polynomial on the matched material: apparent strain = Σ cₖ Tᵏ (T in °C), m/m, as
-    /// indicated with the instrument set to `reference_gauge_factor`. Empty means no residual
-    /// thermal output on the matched material.
+    /// indicated with the instrument set to `reference_gauge_factor`. It is recorded on the
+    /// grid as it is, so it already holds everything the grid's resistance does with
+    /// temperature on that material, its gauge factor's change included. Empty means no
+    /// residual thermal output on the matched material.
     pub lot_polynomial: Vec<f64>,
     /// Gauge factor the instrument was set to when the lot's curve was recorded. The curve is
     /// an indicated strain, i.e. ΔR/R ÷ that factor, so on a grid of another gauge factor the
@@ -85,7 +87,10 @@ pub struct ThermalOutput {
 impl ThermalOutput {
     /// Apparent strain at part temperature `t_c` relative to `reference_c`, for a part of
     /// expansion `part_cte_per_c` and a grid of transverse sensitivity `kt` and gauge factor
-    /// `gauge_factor`, m/m (as a strain of that grid: ΔR/R = gauge_factor × result).
+    /// `gauge_factor`, m/m, as a strain of that grid at the reference temperature's gauge
+    /// factor: ΔR/R = gauge_factor × result when the gauge factor does not change with
+    /// temperature. When it does, only the mismatch part is read at the gauge factor of the
+    /// moment (see [`ThermalOutput::curve_resistance_change`]).
     pub fn apparent_strain(
         &self,
         part_cte_per_c: f64,
@@ -94,19 +99,44 @@ impl ThermalOutput {
         reference_c: f64,
         t_c: f64,
     ) -> f64 {
+        self.curve_strain(reference_c, t_c) * self.lot_scale(gauge_factor)
+            + self.mismatch_strain(part_cte_per_c, kt, reference_c, t_c)
+    }
+
+    /// The lot's curve between `reference_c` and `t_c`: the strain indicated on the matched
+    /// material with the instrument at [`ThermalOutput::curve_gauge_factor`], m/m.
+    pub fn curve_strain(&self, reference_c: f64, t_c: f64) -> f64 {
         let poly = |t: f64| {
             self.lot_polynomial
                 .iter()
                 .rev()
                 .fold(0.0, |acc, c| acc * t + c)
         };
-        let transverse = (1.0 + kt) / (1.0 - CALIBRATION_POISSON_RATIO * kt);
-        (poly(t_c) - poly(reference_c)) * self.lot_scale(gauge_factor)
-            + (part_cte_per_c - self.matched_cte_per_c) * (t_c - reference_c) * transverse
+        poly(t_c) - poly(reference_c)
     }
-}
 
-impl ThermalOutput {
+    /// The gauge factor the curve was indicated at: the stated reference, or the grid's nominal
+    /// `gauge_factor` when none is stated.
+    pub fn curve_gauge_factor(&self, gauge_factor: f64) -> f64 {
+        self.reference_gauge_factor.unwrap_or(gauge_factor)
+    }
+
+    /// ΔR/R of a grid of nominal `gauge_factor` on the matched material between `reference_c`
+    /// and `t_c`: the curve × the gauge factor it was indicated at. The curve was recorded on
+    /// the grid as it is, so it already holds the change of the grid's gauge factor with
+    /// temperature; no drift factor applies to it.
+    pub fn curve_resistance_change(&self, gauge_factor: f64, reference_c: f64, t_c: f64) -> f64 {
+        self.curve_strain(reference_c, t_c) * self.curve_gauge_factor(gauge_factor)
+    }
+
+    /// Strain the grid sees from the expansion mismatch between the part and the matched
+    /// material, (α_part − α_matched)·ΔT·(1 + Kt)/(1 − ν0 Kt), m/m: a real strain, which the
+    /// grid reads at its gauge factor of the moment.
+    pub fn mismatch_strain(&self, part_cte_per_c: f64, kt: f64, reference_c: f64, t_c: f64) -> f64 {
+        let transverse = (1.0 + kt) / (1.0 - CALIBRATION_POISSON_RATIO * kt);
+        (part_cte_per_c - self.matched_cte_per_c) * (t_c - reference_c) * transverse
+    }
+
     /// Factor from the recorded curve to a strain of a grid of `gauge_factor`:
     /// reference gauge factor ÷ gauge factor (1 when no reference is stated).
     pub fn lot_scale(&self, gauge_factor: f64) -> f64 {

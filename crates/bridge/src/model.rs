@@ -333,18 +333,23 @@ impl BridgeModel {
                     } else {
                         gf_set
                     };
+                    // The lot's curve is a resistance change already (it holds the gauge
+                    // factor's own drift); the expansion mismatch and the mechanical strain
+                    // are strains, read at the gauge factor of the moment.
+                    let mut curve = 0.0;
                     if effects.temperature {
-                        gf *= spec.gauge_factor_at(self.reference_temperature_c, t)
-                            / spec.gauge_factor;
-                        strain += spec.thermal_output.apparent_strain(
-                            self.part_cte_per_c,
-                            kt,
+                        let t_ref = self.reference_temperature_c;
+                        gf *= spec.gauge_factor_at(t_ref, t) / spec.gauge_factor;
+                        strain +=
+                            spec.thermal_output
+                                .mismatch_strain(self.part_cte_per_c, kt, t_ref, t);
+                        curve = spec.thermal_output.curve_resistance_change(
                             spec.gauge_factor,
-                            self.reference_temperature_c,
+                            t_ref,
                             t,
                         );
                     }
-                    *o = gf * strain;
+                    *o = gf * strain + curve;
                 }
                 _ => {}
             }

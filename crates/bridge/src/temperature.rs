@@ -13,9 +13,11 @@ use crate::model::{ARM_SIGNS, BridgeModel};
 pub struct ThermalPoint {
     /// Part temperature, °C.
     pub temperature_c: f64,
-    /// Gauge lot thermal output on the matched material, net over the arms.
+    /// Gauge lot thermal output on the matched material, net over the arms, as the curve records
+    /// it (the grids' gauge-factor drift is inside the curve, not added to it).
     pub gauge_thermal_output: f64,
-    /// Expansion mismatch between part and gauge match, net over the arms.
+    /// Expansion mismatch between part and gauge match, net over the arms, read at the grids'
+    /// gauge factor at that temperature.
     pub expansion_mismatch: f64,
     /// Gauge-factor drift, shown as the change of the full-load reading (span change).
     pub gauge_factor_drift: f64,
@@ -40,8 +42,6 @@ pub fn thermal_sweep(
     full_load: &LoadVector,
 ) -> Result<Vec<ThermalPoint>, BridgeError> {
     let b = model.bridge();
-    let gf_set = b.instrument.gauge_factor;
-    let bf = b.instrument.bridge_factor;
     let t_ref = model.reference_temperature_c();
     let steps = steps.max(1);
     let mut mechanical_full = *full_load;
@@ -51,40 +51,12 @@ pub fn thermal_sweep(
     for i in 0..=steps {
         let dt = low_c + (high_c - low_c) * i as f64 / steps as f64;
         let t = t_ref + dt;
-        let (mut lot, mut mismatch, mut completion, mut uncompensated) = (0.0, 0.0, 0.0, 0.0);
-        for (k, sign) in ARM_SIGNS.iter().enumerate() {
-            let follows = b.instrument_temperature == InstrumentTemperature::FollowsPart;
-            match (&b.arms[k], model.spec(k)) {
-                (ArmElement::Completion(c), _) if follows => {
-                    let d = c.tcr_per_c * dt / (gf_set * bf);
-                    completion += sign * d;
-                    uncompensated += d.abs();
-                }
-                (ArmElement::Completion(_), _) => {}
-                (_, Some(spec)) => {
-                    let kt = spec.transverse_sensitivity;
-                    let gf = spec.gauge_factor_at(t_ref, t) / gf_set / bf;
-                    let matched = spec.thermal_output.apparent_strain(
-                        spec.thermal_output.matched_cte_per_c,
-                        kt,
-                        spec.gauge_factor,
-                        t_ref,
-                        t,
-                    );
-                    let total = spec.thermal_output.apparent_strain(
-                        model.part_cte_per_c(),
-                        kt,
-                        spec.gauge_factor,
-                        t_ref,
-                        t,
-                    );
-                    lot += sign * gf * matched;
-                    mismatch += sign * gf * (total - matched);
-                    uncompensated += (gf * total).abs();
-                }
-                _ => {}
-            }
-        }
+        let ArmSplit {
+            lot,
+            mismatch,
+            completion,
+            uncompensated,
+        } = arm_split(model, dt);
         let mut thermal_only = LoadVector::ZERO;
         thermal_only[LoadComponent::TemperatureChange] = dt;
         let total = model.displayed(&thermal_only)?;
@@ -112,4 +84,60 @@ pub fn thermal_sweep(
         });
     }
     Ok(out)
+}
+
+/// The arms' share of the apparent strain at one temperature change, displayed strain, m/m.
+struct ArmSplit {
+    /// The lots' curves, net over the arms.
+    lot: f64,
+    /// The expansion mismatch, net over the arms.
+    mismatch: f64,
+    /// Completion-resistor drift, net.
+    completion: f64,
+    /// The arms' magnitudes summed, as without cancellation.
+    uncompensated: f64,
+}
+
+/// Splits the arms' apparent strain at a change `dt` from the reference temperature. A lot's
+/// curve is the resistance change it records (its gauge factor's drift is already in it); the
+/// expansion mismatch is a strain, read at the grid's gauge factor at that temperature.
+fn arm_split(model: &BridgeModel, dt: f64) -> ArmSplit {
+    let b = model.bridge();
+    let per_delta = 1.0 / (b.instrument.gauge_factor * b.instrument.bridge_factor);
+    let t_ref = model.reference_temperature_c();
+    let t = t_ref + dt;
+    let follows = b.instrument_temperature == InstrumentTemperature::FollowsPart;
+    let mut split = ArmSplit {
+        lot: 0.0,
+        mismatch: 0.0,
+        completion: 0.0,
+        uncompensated: 0.0,
+    };
+    for (k, sign) in ARM_SIGNS.iter().enumerate() {
+        match (&b.arms[k], model.spec(k)) {
+            (ArmElement::Completion(c), _) if follows => {
+                let d = c.tcr_per_c * dt * per_delta;
+                split.completion += sign * d;
+                split.uncompensated += d.abs();
+            }
+            (ArmElement::Completion(_), _) => {}
+            (_, Some(spec)) => {
+                let th = &spec.thermal_output;
+                let curve = th.curve_resistance_change(spec.gauge_factor, t_ref, t) * per_delta;
+                let mismatch = spec.gauge_factor_at(t_ref, t)
+                    * th.mismatch_strain(
+                        model.part_cte_per_c(),
+                        spec.transverse_sensitivity,
+                        t_ref,
+                        t,
+                    )
+                    * per_delta;
+                split.lot += sign * curve;
+                split.mismatch += sign * mismatch;
+                split.uncompensated += (curve + mismatch).abs();
+            }
+            _ => {}
+        }
+    }
+    split
 }

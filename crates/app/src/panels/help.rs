@@ -20,7 +20,7 @@ const METHOD: &[(&str, &str)] = &[
     ),
     (
         "Temperature",
-        "Apparent strain comes from the gauge lot's thermal output, the mismatch between the part's expansion and the gauge's match, gauge-factor drift, lead resistance (leads follow the part temperature) and completion-resistor drift.",
+        "Apparent strain comes from the gauge lot's thermal output, the mismatch between the part's expansion and the gauge's match, gauge-factor drift, lead resistance (leads follow the part temperature) and completion-resistor drift. The lot's curve counts as recorded (it already holds the gauge factor's own drift on the matched material); the mismatch and the load's strain are read at the gauge factor of the temperature.",
     ),
     (
         "Noise",
