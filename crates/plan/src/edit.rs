@@ -2,11 +2,11 @@
 //! the plan tree. Each works on a project in place and says why when it cannot apply; the app
 //! runs them on a copy and keeps the copy only when they succeed.
 
+use gw_bridge::signal_chain::LowPassFilter;
 use gw_bridge::{
     CompletionResistor, Excitation, GaugePattern, InstrumentTemperature, LeadWire, LeadWiring,
     SignalChain, bridge::COPPER_TCR_PER_C,
 };
-use gw_bridge::signal_chain::LowPassFilter;
 use gw_mechanics::{LoadComponent, SurfacePoint};
 
 use crate::blank::{ModelKind, default_material, first_load_case, new_part};
