@@ -7,6 +7,44 @@ use gw_bridge::*;
 use gw_mechanics::*;
 use std::hint::black_box;
 
+/// The bridge the arrangements go into: three-wire leads of 5 m, 5 V, a 24-bit channel.
+fn template() -> Bridge {
+    let completion = ArmElement::Completion(CompletionResistor {
+        ohm: 350.0,
+        tolerance: 0.0005,
+        tcr_per_c: 5e-6,
+    });
+    Bridge {
+        name: "bench".into(),
+        arms: [completion; 4],
+        wiring: LeadWiring::ThreeWire,
+        lead: LeadWire {
+            length_m: 5.0,
+            ohm_per_m: 0.05,
+            tcr_per_c: bridge::COPPER_TCR_PER_C,
+        },
+        excitation: Excitation::Voltage { volts: 5.0 },
+        amplifier_input_ohm: None,
+        instrument: InstrumentSetting {
+            gauge_factor: 2.0,
+            bridge_factor: 1.0,
+        },
+        signal: SignalChain {
+            gain: 100.0,
+            input_range_v: 10.0,
+            adc_bits: 24,
+            amplifier_noise_v_per_rt_hz: 10e-9,
+            bandwidth_hz: 100.0,
+            filter: signal_chain::LowPassFilter::FirstOrderRc,
+            excitation_accuracy: 0.001,
+            gain_accuracy: 0.001,
+        },
+        wanted: LoadComponent::VerticalForce,
+        instrument_temperature: InstrumentTemperature::Fixed,
+        shunt: None,
+    }
+}
+
 fn spec(pattern: GaugePattern) -> GaugeSpec {
     GaugeSpec {
         pattern,
@@ -69,11 +107,13 @@ fn bench(c: &mut Criterion) {
         ],
         temperature_range_c: (-10.0, 40.0),
         reference_temperature_c: 20.0,
+        template: template(),
         completion: CompletionResistor {
             ohm: 350.0,
             tolerance: 0.0005,
             tcr_per_c: 5e-6,
         },
+        tolerances: gw_bridge::bridge_uncertainty::InstallationTolerances::default(),
         keep: 20,
     };
     c.bench_function("chooser/12_grids", |b| {
