@@ -1,8 +1,10 @@
 //! Internal force resultants on a cross-section and the surface state they cause
-//! (elementary beam theory: Navier for normal stress, Jourawski for transverse shear,
-//! Coulomb for torsion of round sections).
+//! (elementary beam theory: Navier for normal stress, Coulomb for torsion of round sections;
+//! transverse shear by the elasticity solution on solid rectangles and solid rounds, by
+//! Jourawski's mean and the thin-wall shear flow on tubes and flanged sections).
 
 use crate::material::Material;
+use crate::rectangle_shear::RectangleShear;
 use crate::section::Section;
 use crate::surface::Face;
 use crate::surface_state::{SurfaceState, SurfaceStrain};
@@ -137,8 +139,8 @@ impl UnitStrains {
 /// Strains per unit resultant at `(face, s)`, or `None` if the face is not on the section.
 ///
 /// σx = N/A + My z/Iy − Mz y/Iz (Navier); transverse strain −ν σx / E; shear along the
-/// surface from τ = V Q / (I b) (Jourawski), the thin-wall shear flow of flanges and tube walls
-/// on top and bottom faces, and, on round sections, τ = T r / J.
+/// surface from the transverse shear (see [`shear_per_newton`]), the thin-wall shear flow of
+/// flanges and tube walls on top and bottom faces, and, on round sections, τ = T r / J.
 pub(crate) fn unit_strains(
     section: &Section,
     material: &Material,
@@ -154,19 +156,7 @@ pub(crate) fn unit_strains(
     let normal = |sigma: f64| SurfaceStrain::new(sigma / e, -nu * sigma / e, 0.0);
     let shear = |tau: f64| SurfaceStrain::new(0.0, 0.0, tau / g);
 
-    // Jourawski mean shear stress per newton at this level: along +z from Vz, along +y from Vy.
-    let width = section.width_at_m(p.z);
-    let tau_z = if width > 0.0 {
-        section.first_moment_above_m3(p.z) / (iy * width)
-    } else {
-        0.0
-    };
-    let thickness = section.thickness_at_m(p.y);
-    let tau_y = if thickness > 0.0 {
-        section.first_moment_beyond_m3(p.y) / (iz * thickness)
-    } else {
-        0.0
-    };
+    let (tau_y, tau_z) = shear_per_newton(section, nu, &p);
     let (dy, dz) = p.dir;
     let (shear_y, shear_z, torque) = if let Some((r, _)) = section.radii_m() {
         // On a free round boundary the shear stress is tangent to it; its vertical (horizontal)
@@ -208,4 +198,54 @@ pub(crate) fn unit_strains(
         normal(p.z / iy),
         normal(-p.y / iz),
     ]))
+}
+
+/// Transverse shear stress at a surface point per newton of shear force, Pa/N: along +y from
+/// Vy and along +z from Vz.
+///
+/// Solid rectangle: the elasticity (Saint-Venant flexure) value on the faces parallel to each
+/// force, Vz on the side faces and Vy on the top and bottom (Timoshenko & Goodier, *Theory of
+/// Elasticity*, 3rd ed., §124; see [`RectangleShear`]); each face shows only one of the two.
+/// Other sections: the mean across the width at that level, τ = V Q / (I b) (Jourawski; Gere &
+/// Goodno, *Mechanics of Materials*, 7th ed., §5.8), which the caller turns into the tangential
+/// value on round faces.
+fn shear_per_newton(section: &Section, nu: f64, p: &SectionPoint) -> (f64, f64) {
+    if let Section::Rectangle { width_m, height_m } = *section {
+        let (dy, dz) = p.dir;
+        let along_y = RectangleShear {
+            depth_m: width_m,
+            width_m: height_m,
+            poisson_ratio: nu,
+        };
+        let along_z = RectangleShear {
+            depth_m: height_m,
+            width_m,
+            poisson_ratio: nu,
+        };
+        // Skip the component this face does not show: the map asks for many points.
+        let tau_y = if dy != 0.0 {
+            along_y.face_stress_per_newton(p.y)
+        } else {
+            0.0
+        };
+        let tau_z = if dz != 0.0 {
+            along_z.face_stress_per_newton(p.z)
+        } else {
+            0.0
+        };
+        return (tau_y, tau_z);
+    }
+    let width = section.width_at_m(p.z);
+    let tau_z = if width > 0.0 {
+        section.first_moment_above_m3(p.z) / (section.second_moment_y_m4() * width)
+    } else {
+        0.0
+    };
+    let thickness = section.thickness_at_m(p.y);
+    let tau_y = if thickness > 0.0 {
+        section.first_moment_beyond_m3(p.y) / (section.second_moment_z_m4() * thickness)
+    } else {
+        0.0
+    };
+    (tau_y, tau_z)
 }

@@ -8,7 +8,7 @@ use crate::state::DocumentState;
 const METHOD: &[(&str, &str)] = &[
     (
         "Mechanics",
-        "Each part is a textbook model: Euler–Bernoulli beams (one or several load points) with transverse shear by τ = VQ/(Ib) (the elasticity value on solid round bars, the thin-wall shear flow in flanges and tube walls; no torsion of beam sections), round shafts (τ = Tr/J), thin-walled vessels (membrane stresses as the design figures, the outer surface's value from the thick-wall solutions as the reading, valid for mean radius ≥ 10 × wall), thick cylinders (Lamé), and an infinite plate with a circular hole (Kirsch). Strains are those of the free outer surface; the peak stress against yield includes the hole edge and the bore of a vessel.",
+        "Each part is a textbook model: Euler–Bernoulli beams (one or several load points) with transverse shear by the elasticity solution at the surface of solid round and solid rectangular sections and by the mean τ = VQ/(Ib) in tubes and webs, plus the thin-wall shear flow in flanges and tube walls (no torsion of beam sections), round shafts (τ = Tr/J), thin-walled vessels (membrane stresses as the design figures, the outer surface's value from the thick-wall solutions as the reading, valid for mean radius ≥ 10 × wall), thick cylinders (Lamé), and an infinite plate with a circular hole (Kirsch). Strains are those of the free outer surface; the peak stress against yield includes the hole edge and the bore of a vessel.",
     ),
     (
         "Grids",
