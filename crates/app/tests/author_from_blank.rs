@@ -104,6 +104,8 @@ struct BridgeEntry {
     gain: &'static str,
     channel: &'static str,
     shunt_microstrain: &'static str,
+    /// Required accuracy, % of reading ("" for none).
+    accuracy_percent: &'static str,
 }
 
 const ARM_BENDING: BridgeEntry = BridgeEntry {
@@ -114,6 +116,7 @@ const ARM_BENDING: BridgeEntry = BridgeEntry {
     gain: "400",
     channel: "1",
     shunt_microstrain: "500",
+    accuracy_percent: "2",
 };
 
 const ARM_SHEAR_WEB: BridgeEntry = BridgeEntry {
@@ -124,6 +127,7 @@ const ARM_SHEAR_WEB: BridgeEntry = BridgeEntry {
     gain: "1000",
     channel: "2",
     shunt_microstrain: "100",
+    accuracy_percent: "",
 };
 
 /// File → New, and the dialog filled for the reaction arm: a 450 mm cantilever of solid
@@ -208,6 +212,10 @@ fn add_bridge(h: &mut App, bridge: &BridgeEntry) {
     fill_leads_excitation_and_instrument(h);
     set_number(h, "Gain", bridge.gain);
     fill_shunt(h, bridge.shunt_microstrain);
+    if !bridge.accuracy_percent.is_empty() {
+        choose(h, "Required accuracy", "± % of reading");
+        set_number(h, "Within ±", bridge.accuracy_percent);
+    }
 }
 
 /// The settings both demo bridges share.

@@ -10,7 +10,7 @@ use gw_app::panels::item_fields::{
 use gw_bridge::{Excitation, ShuntLocation, ShuntPlan};
 use gw_mechanics::{GivenQuantity, Section};
 use gw_plan::blank::{ModelKind, default_material, new_part};
-use gw_plan::document::{BridgeFactorOverride, GaugeLot};
+use gw_plan::document::{BridgeFactorOverride, GaugeLot, RequiredAccuracy};
 use gw_plan::{Part, Project};
 
 /// Stored values written by the program itself, not by the engineer.
@@ -84,12 +84,14 @@ fn everything() -> Project {
         reason: "checked against a calibration".into(),
     });
     b.excitation = Excitation::Current { amps: 0.005 };
+    b.required_accuracy = Some(RequiredAccuracy::InMeasuredUnit(50.0));
     b.shunt = Some(ShuntPlan {
         arm: 1,
         target_strain: 1e-4,
         location: ShuntLocation::GaugeEnd,
     });
     p.parts[1].material_key = None;
+    p.parts[0].bridges[0].required_accuracy = Some(RequiredAccuracy::PercentOfReading(1.0));
     p
 }
 

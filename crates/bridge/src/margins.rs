@@ -45,6 +45,9 @@ pub enum MarginKind {
     Resolution,
     /// Grid power density against the allowed density (self-heating).
     SelfHeating,
+    /// Predicted error of the reading in the wanted load (its error breakdown plus the
+    /// expanded uncertainty) against the accuracy the engineer requires.
+    Accuracy,
 }
 
 impl MarginKind {
@@ -58,6 +61,7 @@ impl MarginKind {
             MarginKind::InputRange => "output vs input range",
             MarginKind::Resolution => "resolution vs required",
             MarginKind::SelfHeating => "grid power vs self-heating limit",
+            MarginKind::Accuracy => "predicted error vs required accuracy",
         }
     }
 }

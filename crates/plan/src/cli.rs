@@ -142,6 +142,9 @@ fn write_summary(out: &mut String, ev: &Evaluation, detail: Detail) {
                         m.status.word()
                     );
                 }
+                if let Some(a) = b.accuracy.iter().find(|a| a.case == c.case) {
+                    let _ = writeln!(out, "        {}", a.describe(b.wanted.unit()));
+                }
             }
             if let Some(s) = &b.shunt {
                 let _ = writeln!(

@@ -15,7 +15,7 @@ use gw_mechanics::{
 
 use crate::document::{
     BridgePlan, FORMAT_VERSION, LeadColours, LoadCase, PaperSize, Part, PlanArm, PlanGauge,
-    Project, StockGauge, default_gauge_spec, stock_base_name,
+    Project, RequiredAccuracy, StockGauge, default_gauge_spec, stock_base_name,
 };
 
 fn material(key: &str) -> gw_mechanics::Material {
@@ -118,6 +118,7 @@ fn bridge(
         instrument_temperature: InstrumentTemperature::Fixed,
         shunt,
         channel,
+        required_accuracy: None,
     }
 }
 
@@ -397,6 +398,17 @@ pub fn demo_project() -> Project {
         tolerances: InstallationTolerances::default(),
         datum_m: (0.0, 0.0),
     };
+    let mut parts = vec![arm, shaft, shell];
+    // What this invented job asks of its main bridges; the single hoop grid is the comparison
+    // and states none.
+    for (part, bridge, percent) in [(0, 0, 2.0), (1, 0, 3.0), (2, 0, 4.0)] {
+        if let Some(b) = parts
+            .get_mut(part)
+            .and_then(|p: &mut Part| p.bridges.get_mut(bridge))
+        {
+            b.required_accuracy = Some(RequiredAccuracy::PercentOfReading(percent));
+        }
+    }
     Project {
         format_version: FORMAT_VERSION,
         name: "Winch test stand (demo)".into(),
@@ -409,7 +421,7 @@ pub fn demo_project() -> Project {
         warn_utilisation: gw_bridge::margins::DEFAULT_WARN_UTILISATION,
         lead_colours: LeadColours::default(),
         gauge_stock: stock(),
-        parts: vec![arm, shaft, shell],
+        parts,
         notes: "Invented demo: a winch test stand with a reaction arm, a drum drive shaft and an \
                 hydraulic accumulator."
             .into(),

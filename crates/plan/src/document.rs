@@ -218,6 +218,37 @@ pub struct BridgePlan {
     /// Acquisition channel number on the instrument.
     #[serde(default)]
     pub channel: u32,
+    /// The accuracy the engineer needs from this bridge (`None`: none stated).
+    #[serde(default)]
+    pub required_accuracy: Option<RequiredAccuracy>,
+}
+
+/// How closely a bridge must read its wanted load: the predicted error (what the arrangement
+/// leaks from unwanted loads, temperature, leads and the rest of the error breakdown) plus the
+/// expanded uncertainty must stay inside it in every load case.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub enum RequiredAccuracy {
+    /// ± this percentage of the wanted load in each case.
+    PercentOfReading(f64),
+    /// ± this much of the wanted load, in its SI unit (N, N·m, Pa, …).
+    InMeasuredUnit(f64),
+}
+
+impl RequiredAccuracy {
+    /// The error allowed when the wanted load is `value`, in its SI unit.
+    pub fn allowed(self, value: f64) -> f64 {
+        match self {
+            RequiredAccuracy::PercentOfReading(p) => p / 100.0 * value.abs(),
+            RequiredAccuracy::InMeasuredUnit(a) => a,
+        }
+    }
+
+    /// The number as entered (percent or SI value).
+    pub fn amount(self) -> f64 {
+        match self {
+            RequiredAccuracy::PercentOfReading(v) | RequiredAccuracy::InMeasuredUnit(v) => v,
+        }
+    }
 }
 
 impl BridgePlan {

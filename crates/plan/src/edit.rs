@@ -235,6 +235,7 @@ fn add_bridge(p: &mut Project, part: usize) -> Result<Item, String> {
         instrument_temperature: InstrumentTemperature::Fixed,
         shunt: None,
         channel,
+        required_accuracy: None,
     });
     Ok(Item::Bridge {
         part,

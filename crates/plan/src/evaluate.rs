@@ -175,6 +175,8 @@ pub struct BridgeEvaluation {
     pub uncertainty: Option<BridgeUncertainty>,
     /// Load case the uncertainty refers to.
     pub uncertainty_case: Option<String>,
+    /// The reading against the required accuracy, per load case (empty when none is stated).
+    pub accuracy: Vec<crate::accuracy::AccuracyCheck>,
     /// Worst-case zero offset from resistance tolerances, ± mV/V.
     pub zero_offset_band_mv_per_v: f64,
     /// Expected resistance between connector pins (with leads), Ω.
@@ -489,6 +491,30 @@ fn push_margin(findings: &mut Vec<Finding>, m: &Margin, place: String, target: T
     });
 }
 
+/// A required accuracy that the prediction misses or nearly misses, with the prediction by
+/// cause in the wanted load's unit.
+fn accuracy_finding(
+    check: &crate::accuracy::AccuracyCheck,
+    plan: &crate::document::BridgePlan,
+    place: &str,
+    target: Target,
+    findings: &mut Vec<Finding>,
+) {
+    let (severity, advice) = match check.margin.status {
+        MarginStatus::Pass => return,
+        MarginStatus::Warn => (Severity::Warn, "little margin left"),
+        MarginStatus::Fail => (
+            Severity::Fail,
+            "choose an arrangement that cancels what leaks, or relax the requirement",
+        ),
+    };
+    findings.push(Finding {
+        severity,
+        message: format!("{place}: {} — {advice}", check.describe(plan.wanted.unit())),
+        target,
+    });
+}
+
 #[allow(clippy::too_many_arguments)]
 fn evaluate_bridge(
     project: &Project,
@@ -503,7 +529,6 @@ fn evaluate_bridge(
     let plan = &part.bridges[bi];
     let b = model.bridge();
     let member = &part.member;
-    let material = member.material();
     let warn = project.warn_utilisation;
     let channel = channel_figures(model)?;
     let target = Target::Bridge {
@@ -512,6 +537,142 @@ fn evaluate_bridge(
     };
     let place = |case: &str| format!("part \"{}\", bridge \"{}\", {case}", part.name, plan.name);
 
+    let mut cases = bridge_cases(project, part, model, &channel, &place, target, findings)?;
+
+    let vex = model.nominal_excitation_v();
+    let gf_bf = b.instrument.gauge_factor * b.instrument.bridge_factor;
+    let sensitivities = sensitivities_of(model, member, gf_bf)?;
+    let s_w = sensitivities
+        .iter()
+        .find(|s| s.component == b.wanted)
+        .map(|s| s.displayed_per_unit)
+        .unwrap_or(0.0);
+    let m_w = expected
+        .iter()
+        .find(|(c, _)| *c == b.wanted)
+        .map(|(_, m)| *m)
+        .unwrap_or(0.0);
+    no_response_finding(
+        model,
+        &channel,
+        (s_w, m_w),
+        &place("wanted load"),
+        target,
+        findings,
+    );
+    let rejection = rejections(&sensitivities, expected, b.wanted, s_w, m_w);
+    let (lo, hi) = part
+        .load_cases
+        .first()
+        .map(|c| c.temperature_range_c)
+        .unwrap_or((-20.0, 40.0));
+    let full_case = part
+        .load_cases
+        .iter()
+        .max_by(|a, b2| a.value(b.wanted).abs().total_cmp(&b2.value(b.wanted).abs()));
+    let full = full_case
+        .map(|c| c.load_vector())
+        .unwrap_or(LoadVector::ZERO);
+    let temperature = thermal_sweep(model, lo, hi, options.temperature_steps, &full)?;
+    let shunt = shunt_calibration(model)?;
+    let uncertainty = uncertainty_at(
+        part, model, &channel, options, full_case, &place, target, findings,
+    );
+    let uncertainty_case = uncertainty.as_ref().and(full_case.map(|c| c.name.clone()));
+    let accuracy =
+        crate::accuracy::accuracy_checks(part, plan.required_accuracy, model, &channel, warn)?;
+    for check in &accuracy {
+        accuracy_finding(check, plan, &place(&check.case), target, findings);
+        if let Some(c) = cases.iter_mut().find(|c| c.case == check.case) {
+            c.margins.push(check.margin.clone());
+        }
+    }
+    let zero_offset_band_mv_per_v = zero_offset_band_mv_per_v(model);
+    let pin_resistances = crate::wiring::pin_resistances(model);
+    Ok(BridgeEvaluation {
+        name: plan.name.clone(),
+        arrangement: plan.arrangement.clone(),
+        wanted: b.wanted,
+        channel_number: plan.channel,
+        excitation_v: vex,
+        gauge_factor_setting: b.instrument.gauge_factor,
+        bridge_factor: b.instrument.bridge_factor,
+        wiring: b.wiring.trade_name(b.arms.map(|a| a.at_gauge())),
+        cases,
+        sensitivities,
+        rejection,
+        temperature,
+        channel,
+        shunt,
+        uncertainty,
+        uncertainty_case,
+        accuracy,
+        zero_offset_band_mv_per_v,
+        pin_resistances,
+    })
+}
+
+/// Worst-case zero offset: each arm's resistance tolerance moves Vo/Vex by a quarter of it,
+/// ± mV/V.
+fn zero_offset_band_mv_per_v(model: &BridgeModel) -> f64 {
+    let b = model.bridge();
+    (0..4)
+        .map(|k| match b.arms[k] {
+            ArmElement::Completion(c) => c.tolerance,
+            _ => model.spec(k).map(|s| s.resistance_tolerance).unwrap_or(0.0),
+        })
+        .sum::<f64>()
+        / 4.0
+        * 1e3
+}
+
+/// Displayed strain from zero to the case's full load in `steps` steps, with the straight line
+/// through the ends for the nonlinearity plot. The case's temperature is its condition, not
+/// ramped with the load.
+fn ramp_of(
+    model: &BridgeModel,
+    loads: &LoadVector,
+    steps: u32,
+) -> Result<Vec<RampPoint>, gw_bridge::BridgeError> {
+    let wanted = model.bridge().wanted;
+    let steps = steps.max(1);
+    let mut ramp = Vec::with_capacity(steps as usize + 1);
+    for i in 0..=steps {
+        let fraction = i as f64 / steps as f64;
+        let mut l = loads.scaled(fraction);
+        l[LoadComponent::TemperatureChange] = loads[LoadComponent::TemperatureChange];
+        ramp.push(RampPoint {
+            fraction,
+            wanted_value: loads[wanted] * fraction,
+            displayed_strain: model.displayed(&l)?,
+            linear_strain: 0.0,
+        });
+    }
+    let (first, last) = (
+        ramp[0].displayed_strain,
+        ramp[ramp.len() - 1].displayed_strain,
+    );
+    for p in &mut ramp {
+        p.linear_strain = first + (last - first) * p.fraction;
+    }
+    Ok(ramp)
+}
+
+/// Each load case's reading, margins and ramp of one bridge; failed or close margins become
+/// findings.
+fn bridge_cases(
+    project: &Project,
+    part: &Part,
+    model: &BridgeModel,
+    channel: &ChannelFigures,
+    place: &dyn Fn(&str) -> String,
+    target: Target,
+    findings: &mut Vec<Finding>,
+) -> Result<Vec<BridgeCase>, gw_bridge::BridgeError> {
+    let b = model.bridge();
+    let member = &part.member;
+    let material = member.material();
+    let warn = project.warn_utilisation;
     // Grids of this bridge, for strain and stress margins.
     let grids: Vec<usize> = (0..4)
         .filter(|&k| matches!(b.arms[k], ArmElement::Grid(_)))
@@ -594,28 +755,7 @@ fn evaluate_bridge(
         for m in &margins {
             push_margin(findings, m, place(&case.name), target);
         }
-        let steps = case.ramp_steps.max(1);
-        let mut ramp = Vec::with_capacity(steps as usize + 1);
-        for i in 0..=steps {
-            let fraction = i as f64 / steps as f64;
-            let mut l = loads.scaled(fraction);
-            // Temperature is the case's condition, not ramped with the load.
-            l[LoadComponent::TemperatureChange] = loads[LoadComponent::TemperatureChange];
-            let d = model.displayed(&l)?;
-            ramp.push(RampPoint {
-                fraction,
-                wanted_value: loads[b.wanted] * fraction,
-                displayed_strain: d,
-                linear_strain: 0.0,
-            });
-        }
-        let (first, last) = (
-            ramp[0].displayed_strain,
-            ramp[ramp.len() - 1].displayed_strain,
-        );
-        for p in &mut ramp {
-            p.linear_strain = first + (last - first) * p.fraction;
-        }
+        let ramp = ramp_of(model, &loads, case.ramp_steps)?;
         cases.push(BridgeCase {
             case: case.name.clone(),
             reading,
@@ -625,8 +765,15 @@ fn evaluate_bridge(
         });
     }
 
-    let vex = model.nominal_excitation_v();
-    let gf_bf = b.instrument.gauge_factor * b.instrument.bridge_factor;
+    Ok(cases)
+}
+
+/// Displayed strain and output per unit of every component the part carries.
+fn sensitivities_of(
+    model: &BridgeModel,
+    member: &gw_mechanics::Member,
+    gf_bf: f64,
+) -> Result<Vec<Sensitivity>, gw_bridge::BridgeError> {
     let mut sensitivities = Vec::new();
     for &c in member.components() {
         let s = model.sensitivity(c)?;
@@ -636,27 +783,21 @@ fn evaluate_bridge(
             mv_per_v_per_unit: s * gf_bf / 4.0 * 1e3,
         });
     }
-    let s_w = sensitivities
+    Ok(sensitivities)
+}
+
+/// How much of each unwanted component (at its expected magnitude) reaches the reading, against
+/// the wanted load's full scale.
+fn rejections(
+    sensitivities: &[Sensitivity],
+    expected: &[(LoadComponent, f64)],
+    wanted: LoadComponent,
+    s_w: f64,
+    m_w: f64,
+) -> Vec<Rejection> {
+    sensitivities
         .iter()
-        .find(|s| s.component == b.wanted)
-        .map(|s| s.displayed_per_unit)
-        .unwrap_or(0.0);
-    let m_w = expected
-        .iter()
-        .find(|(c, _)| *c == b.wanted)
-        .map(|(_, m)| *m)
-        .unwrap_or(0.0);
-    no_response_finding(
-        model,
-        &channel,
-        (s_w, m_w),
-        &place("wanted load"),
-        target,
-        findings,
-    );
-    let rejection = sensitivities
-        .iter()
-        .filter(|s| s.component != b.wanted)
+        .filter(|s| s.component != wanted)
         .filter_map(|s| {
             let m = expected
                 .iter()
@@ -679,22 +820,24 @@ fn evaluate_bridge(
                 },
             })
         })
-        .collect();
-    let (lo, hi) = part
-        .load_cases
-        .first()
-        .map(|c| c.temperature_range_c)
-        .unwrap_or((-20.0, 40.0));
-    let full_case = part
-        .load_cases
-        .iter()
-        .max_by(|a, b2| a.value(b.wanted).abs().total_cmp(&b2.value(b.wanted).abs()));
-    let full = full_case
-        .map(|c| c.load_vector())
-        .unwrap_or(LoadVector::ZERO);
-    let temperature = thermal_sweep(model, lo, hi, options.temperature_steps, &full)?;
-    let shunt = shunt_calibration(model)?;
-    let uncertainty = match (options.uncertainty, full_case) {
+        .collect()
+}
+
+/// The uncertainty budget at the load case with the largest wanted load (GUM, with Monte Carlo
+/// when asked); a budget that cannot be formed is a warning.
+#[allow(clippy::too_many_arguments)]
+fn uncertainty_at(
+    part: &Part,
+    model: &BridgeModel,
+    channel: &ChannelFigures,
+    options: &EvalOptions,
+    full_case: Option<&crate::LoadCase>,
+    place: &dyn Fn(&str) -> String,
+    target: Target,
+    findings: &mut Vec<Finding>,
+) -> Option<BridgeUncertainty> {
+    let member = &part.member;
+    match (options.uncertainty, full_case) {
         (UncertaintyDepth::Off, _) | (_, None) => None,
         (depth, Some(case)) => {
             let mut tol = part.tolerances;
@@ -707,7 +850,7 @@ fn evaluate_bridge(
             l[LoadComponent::TemperatureChange] = case.value(LoadComponent::TemperatureChange);
             // A budget that cannot be formed (a bridge that does not respond to its wanted
             // load has no sensitivity to divide by) is reported; the rest of the bridge stands.
-            match bridge_uncertainty(member, model, &l, &channel, &tol, options.quadrature) {
+            match bridge_uncertainty(member, model, &l, channel, &tol, options.quadrature) {
                 Ok(u) => Some(u),
                 Err(e) => {
                     findings.push(Finding {
@@ -719,38 +862,7 @@ fn evaluate_bridge(
                 }
             }
         }
-    };
-    let uncertainty_case = uncertainty.as_ref().and(full_case.map(|c| c.name.clone()));
-    // Worst-case zero offset: each arm's resistance tolerance moves Vo/Vex by a quarter of it.
-    let zero_offset_band_mv_per_v = (0..4)
-        .map(|k| match b.arms[k] {
-            ArmElement::Completion(c) => c.tolerance,
-            _ => model.spec(k).map(|s| s.resistance_tolerance).unwrap_or(0.0),
-        })
-        .sum::<f64>()
-        / 4.0
-        * 1e3;
-    let pin_resistances = crate::wiring::pin_resistances(model);
-    Ok(BridgeEvaluation {
-        name: plan.name.clone(),
-        arrangement: plan.arrangement.clone(),
-        wanted: b.wanted,
-        channel_number: plan.channel,
-        excitation_v: vex,
-        gauge_factor_setting: b.instrument.gauge_factor,
-        bridge_factor: b.instrument.bridge_factor,
-        wiring: b.wiring.trade_name(b.arms.map(|a| a.at_gauge())),
-        cases,
-        sensitivities,
-        rejection,
-        temperature,
-        channel,
-        shunt,
-        uncertainty,
-        uncertainty_case,
-        zero_offset_band_mv_per_v,
-        pin_resistances,
-    })
+    }
 }
 
 /// A bridge whose output at the largest wanted load is below what its channel resolves does not

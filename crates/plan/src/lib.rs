@@ -10,6 +10,7 @@
 //!   saves atomically with a backup.
 //! - Gauges are referred to by their id in bridges ("G1", grid 2), never by list position.
 
+pub mod accuracy;
 pub mod arrangements;
 pub mod blank;
 pub mod cautions;

@@ -155,6 +155,7 @@ fn upgrade_part(p: PartV1, stock: &mut Vec<StockGauge>, reference_c: f64) -> Par
             instrument_temperature: b.instrument_temperature,
             shunt: b.shunt,
             channel: b.channel,
+            required_accuracy: None,
         };
         let computed = crate::arrangements::bridge_factor_for(&part, &p.gauges, &plan, reference_c);
         if (computed - typed).abs() > 1e-12 * typed.abs().max(1.0) {

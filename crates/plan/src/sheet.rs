@@ -669,6 +669,18 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
                 ]);
             }
             w.table(&[0.0, 140.0, 240.0, 330.0], &rows);
+            for a in &be.accuracy {
+                w.para(
+                    8.5,
+                    a.margin.status != gw_bridge::margins::MarginStatus::Pass,
+                    &format!(
+                        "Accuracy, {}: {} — {}.",
+                        a.case,
+                        a.describe(be.wanted.unit()),
+                        a.margin.status.word()
+                    ),
+                );
+            }
             if let Some(s) = &be.shunt {
                 w.para(
                     8.5,

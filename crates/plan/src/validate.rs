@@ -180,6 +180,17 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
             // An empty reason is allowed while the engineer types it; the evaluation asks
             // for it as a finding.
         }
+        if let Some(a) = plan.required_accuracy
+            && !(a.amount().is_finite() && a.amount() > 0.0)
+        {
+            return Err(invalid(
+                format!("{here} › bridge \"{}\" › required accuracy", plan.name),
+                format!(
+                    "{} must be a positive number (e.g. 1 for ±1 % of reading); clear it to state none",
+                    a.amount()
+                ),
+            ));
+        }
         if !carried.contains(&plan.wanted) {
             return Err(invalid(
                 format!("{here} › bridge \"{}\"", plan.name),

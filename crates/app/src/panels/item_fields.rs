@@ -11,7 +11,7 @@ use gw_mechanics::{
     VesselEnds,
 };
 use gw_plan::blank::ModelKind;
-use gw_plan::document::{BridgeFactorOverride, GaugeLot, PaperSize};
+use gw_plan::document::{BridgeFactorOverride, GaugeLot, PaperSize, RequiredAccuracy};
 use gw_plan::{BridgePlan, LoadCase, Part, PlanArm, PlanGauge, Project, StockGauge};
 
 use super::fields::*;
@@ -2131,7 +2131,69 @@ pub fn bridge_groups(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<G
             title: "Shunt calibration",
             fields: shunt_fields(plan),
         },
+        Group {
+            title: "Accuracy",
+            fields: accuracy_fields(plan),
+        },
     ]
+}
+
+/// The accuracy the engineer requires of the bridge: none, a percentage of reading, or an
+/// amount in the measured unit.
+fn accuracy_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
+    let mut out = vec![choice(
+        "required_accuracy",
+        "Required accuracy",
+        "How closely the bridge must read its wanted load; the predicted error (leakage, temperature, leads and the rest) plus the expanded uncertainty must fit inside it in every load case",
+        vec![
+            "none stated".into(),
+            "± % of reading".into(),
+            "± in the measured unit".into(),
+        ],
+        |p: &BridgePlan| {
+            Some(match p.required_accuracy {
+                None => 0,
+                Some(RequiredAccuracy::PercentOfReading(_)) => 1,
+                Some(RequiredAccuracy::InMeasuredUnit(_)) => 2,
+            })
+        },
+        |p, i| {
+            let kept = p.required_accuracy;
+            p.required_accuracy = match (i, kept) {
+                (1, Some(RequiredAccuracy::PercentOfReading(v))) => {
+                    Some(RequiredAccuracy::PercentOfReading(v))
+                }
+                // 1 % of reading: a usual first requirement for a load measurement (common
+                // practice); the engineer sets their own.
+                (1, _) => Some(RequiredAccuracy::PercentOfReading(1.0)),
+                (2, Some(RequiredAccuracy::InMeasuredUnit(v))) => {
+                    Some(RequiredAccuracy::InMeasuredUnit(v))
+                }
+                (2, _) => Some(RequiredAccuracy::InMeasuredUnit(1.0)),
+                _ => None,
+            }
+        },
+    )];
+    match plan.required_accuracy {
+        Some(RequiredAccuracy::PercentOfReading(_)) => out.push(num(
+            "required_accuracy.PercentOfReading",
+            "Within ±",
+            Unit::Scaled(1.0, "% of reading"),
+            "The error allowed, as a percentage of the wanted load in each load case",
+            |p: &BridgePlan| p.required_accuracy.map(|a| a.amount()).unwrap_or(f64::NAN),
+            |p, v| p.required_accuracy = Some(RequiredAccuracy::PercentOfReading(v)),
+        )),
+        Some(RequiredAccuracy::InMeasuredUnit(_)) => out.push(num(
+            "required_accuracy.InMeasuredUnit",
+            "Within ±",
+            Unit::Of(Quantity::of(plan.wanted)),
+            "The error allowed, in the unit of the wanted load, in every load case",
+            |p: &BridgePlan| p.required_accuracy.map(|a| a.amount()).unwrap_or(f64::NAN),
+            |p, v| p.required_accuracy = Some(RequiredAccuracy::InMeasuredUnit(v)),
+        )),
+        None => {}
+    }
+    out
 }
 
 /// Length, resistance and drift of the lead wires.

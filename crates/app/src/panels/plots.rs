@@ -262,6 +262,18 @@ fn margins_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
                 ui.end_row();
             }
         });
+    match be.accuracy.iter().find(|a| a.case == case.case) {
+        Some(a) => {
+            ui.colored_label(
+                status_colour(a.margin.status),
+                format!("Accuracy: {}", a.describe(be.wanted.unit())),
+            );
+        }
+        None if be.accuracy.is_empty() => {
+            ui.weak("No required accuracy stated for this bridge (Inspector › Accuracy).");
+        }
+        None => {}
+    }
 }
 
 fn uncertainty_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
