@@ -237,30 +237,35 @@ fn catalogue_ui(
     if entries.is_empty() {
         ui.label("No standard arrangement measures this load on this part.");
     }
-    egui::Grid::new("catalogue")
-        .num_columns(2)
-        .striped(true)
-        .show(ui, |ui| {
-            for e in entries {
-                if ui
-                    .button(format!("Apply {}", e.name))
-                    .on_hover_text(format!(
-                        "{} — adds its gauges and rewires this bridge",
-                        e.description
-                    ))
-                    .clicked()
-                {
-                    out.push(Command::ApplyCatalogue {
-                        part: sel.part,
-                        bridge: bi,
-                        entry: Box::new(e.clone()),
-                    });
-                }
-                // A shortened label shows its whole text on hover by itself.
-                ui.add(egui::Label::new(&e.description).truncate());
-                ui.end_row();
-            }
+    for e in entries {
+        let clicked = button_beside_text(
+            ui,
+            &format!("Apply {}", e.name),
+            "Adds its gauges and rewires this bridge",
+            &capitalise(&e.description),
+        );
+        if clicked {
+            out.push(Command::ApplyCatalogue {
+                part: sel.part,
+                bridge: bi,
+                entry: Box::new(e.clone()),
+            });
+        }
+    }
+}
+
+/// A button with its explanation wrapped beside it, the rows separated by a thin line; true
+/// when the button was clicked.
+fn button_beside_text(ui: &mut egui::Ui, label: &str, hover: &str, text: &str) -> bool {
+    let mut clicked = false;
+    ui.horizontal_top(|ui| {
+        clicked = ui.button(label).on_hover_text(hover).clicked();
+        ui.vertical(|ui| {
+            ui.add(egui::Label::new(text).wrap());
         });
+    });
+    ui.separator();
+    clicked
 }
 
 /// The Suggest button and the ranked list it produced for this bridge.
@@ -312,29 +317,24 @@ fn suggestions_ui(
                  and placement tolerance.",
             );
             if let Some(w) = wired {
-                ui.add(egui::Label::new(format!("As wired: {}", capitalise(&w.reason))).truncate());
+                ui.add(egui::Label::new(format!("As wired: {}", capitalise(&w.reason))).wrap());
+                ui.separator();
             }
-            egui::Grid::new("suggestions")
-                .num_columns(2)
-                .striped(true)
-                .show(ui, |ui| {
-                    for (i, r) in list.iter().enumerate() {
-                        if ui
-                            .button(format!("Apply suggestion {}", i + 1))
-                            .on_hover_text("Rewire this bridge to this arrangement")
-                            .clicked()
-                        {
-                            out.push(Command::ApplySuggestion {
-                                part: sel.part,
-                                bridge: bi,
-                                ranked: Box::new(r.clone()),
-                            });
-                        }
-                        let reason = capitalise(&r.reason);
-                        ui.add(egui::Label::new(&reason).truncate());
-                        ui.end_row();
-                    }
-                });
+            for (i, r) in list.iter().enumerate() {
+                let clicked = button_beside_text(
+                    ui,
+                    &format!("Apply suggestion {}", i + 1),
+                    "Rewire this bridge to this arrangement",
+                    &capitalise(&r.reason),
+                );
+                if clicked {
+                    out.push(Command::ApplySuggestion {
+                        part: sel.part,
+                        bridge: bi,
+                        ranked: Box::new(r.clone()),
+                    });
+                }
+            }
         }
     }
 }
