@@ -175,9 +175,12 @@ fn apply_a_catalogue_arrangement_and_a_suggested_one() {
     assert_eq!(doc.project.parts[0].gauges.len(), gauges_before + 2);
     // Two grids in a bending pair read twice the first grid's strain (computed, not typed).
     assert!((doc.evaluation.parts[0].bridges[0].bridge_factor - 2.0).abs() < 1e-6);
+    // The Suggest button and its ranked list sit below the catalogue: scroll down to them as
+    // a user would.
+    h.get_by_label("Suggest arrangements").scroll_to_me();
+    h.run();
     h.get_by_label("Suggest arrangements").click();
     h.run();
-    // The ranked list sits below the catalogue: scroll down to it as a user would.
     h.get_by_label("Apply suggestion 1").scroll_to_me();
     h.run();
     h.get_by_label("Apply suggestion 1").click();
