@@ -5,6 +5,7 @@
 //! could not be computed (the output is still complete), 2 when the project file is broken or
 //! unreadable, or an output file cannot be written.
 
+use gw_bridge::units::si;
 use std::fmt::Write;
 use std::path::Path;
 
@@ -253,30 +254,6 @@ fn ue_small(strain: f64) -> String {
         (2 - ue.abs().log10().floor() as i32).clamp(0, 9) as usize
     };
     format!("{ue:.decimals$} µε")
-}
-
-/// A value in an SI unit with a decimal prefix and four significant figures ("12.35 kN").
-/// Temperatures and plain numbers keep no prefix.
-fn si(value: f64, unit: &str) -> String {
-    let prefixed = !matches!(unit, "" | "°C");
-    let (scale, prefix) = match value.abs() {
-        a if !prefixed || a == 0.0 || !a.is_finite() => (1.0, ""),
-        a if a >= 1e9 => (1e9, "G"),
-        a if a >= 1e6 => (1e6, "M"),
-        a if a >= 1e3 => (1e3, "k"),
-        a if a >= 1.0 => (1.0, ""),
-        a if a >= 1e-3 => (1e-3, "m"),
-        _ => (1e-6, "µ"),
-    };
-    let scaled = value / scale;
-    let decimals = match scaled.abs() {
-        a if a >= 100.0 => 1,
-        a if a >= 10.0 => 2,
-        _ => 3,
-    };
-    format!("{scaled:.decimals$} {prefix}{unit}")
-        .trim_end()
-        .to_owned()
 }
 
 fn load_and_evaluate(path: &Path, monte_carlo: bool) -> Result<(Project, Evaluation), CliOutput> {
