@@ -8,7 +8,7 @@
 //! and amplifier loading, and the rest (grid averaging, transverse sensitivity, gauge factor
 //! setting, nonlinearity) — to which the expanded uncertainty at that case is added.
 
-use gw_bridge::bridge_uncertainty::bridge_uncertainty;
+use gw_bridge::bridge_uncertainty::{BridgeUncertainty, bridge_uncertainty};
 use gw_bridge::margins::{Margin, MarginKind};
 use gw_bridge::signal_chain::ChannelFigures;
 use gw_bridge::units::si;
@@ -96,6 +96,19 @@ impl AccuracyCheck {
     }
 }
 
+/// How the expanded uncertainty of each case is found: not at all (an evaluation without
+/// budgets), or by a GUM budget per case, reusing the one already formed at `known`'s case.
+#[derive(Clone, Copy)]
+pub enum Budgets<'a> {
+    /// No uncertainty: the check stands on the error breakdown alone.
+    Off,
+    /// A GUM budget per case; the named case's budget is given.
+    PerCase {
+        /// A budget already formed, and the case it belongs to.
+        known: Option<(&'a BridgeUncertainty, &'a str)>,
+    },
+}
+
 /// The accuracy checks of a bridge with a required accuracy, one per load case it applies to
 /// (a percentage of reading applies where the case applies the wanted load; an amount in the
 /// unit applies in every case). Empty when no accuracy is required.
@@ -105,6 +118,7 @@ pub fn accuracy_checks(
     model: &BridgeModel,
     channel: &ChannelFigures,
     warn_at: f64,
+    budgets: Budgets<'_>,
 ) -> Result<Vec<AccuracyCheck>, BridgeError> {
     let Some(required) = required else {
         return Ok(Vec::new());
@@ -121,13 +135,28 @@ pub fn accuracy_checks(
         if applied == 0.0 && matches!(required, RequiredAccuracy::PercentOfReading(_)) {
             continue;
         }
+        let budget = match budgets {
+            Budgets::Off => Budget::None,
+            Budgets::PerCase {
+                known: Some((u, name)),
+            } if name == case.name => Budget::Known(u),
+            Budgets::PerCase { .. } => Budget::Form,
+        };
         out.push(one_case(
-            part, case, required, model, channel, per_unit, warn_at,
+            part, case, required, model, channel, per_unit, warn_at, budget,
         )?);
     }
     Ok(out)
 }
 
+/// The budget of one case: none, one already formed, or one to form.
+enum Budget<'a> {
+    None,
+    Known(&'a BridgeUncertainty),
+    Form,
+}
+
+#[allow(clippy::too_many_arguments)]
 fn one_case(
     part: &Part,
     case: &LoadCase,
@@ -136,6 +165,7 @@ fn one_case(
     channel: &ChannelFigures,
     per_unit: f64,
     warn_at: f64,
+    budget: Budget<'_>,
 ) -> Result<AccuracyCheck, BridgeError> {
     let wanted = model.bridge().wanted;
     let loads = case.load_vector();
@@ -148,8 +178,8 @@ fn one_case(
     let mut l = loads;
     l[LoadComponent::TemperatureChange] = case.value(LoadComponent::TemperatureChange);
     // A budget needs a reading to divide by; without one the check stands on the error alone.
-    let budget = if applied != 0.0 {
-        bridge_uncertainty(
+    let formed = match budget {
+        Budget::Form if applied != 0.0 => bridge_uncertainty(
             &part.member,
             model,
             &l,
@@ -157,11 +187,14 @@ fn one_case(
             &tol,
             QuadratureOrder::default(),
         )
-        .ok()
-    } else {
-        None
+        .ok(),
+        _ => None,
     };
-    let (expanded_uncertainty, coverage) = budget
+    let used = match budget {
+        Budget::Known(u) => Some(u),
+        _ => formed.as_ref(),
+    };
+    let (expanded_uncertainty, coverage) = used
         .map(|u| (u.gum.expanded, u.gum.coverage_text()))
         .unwrap_or((0.0, String::new()));
     let allowed = required.allowed(applied);

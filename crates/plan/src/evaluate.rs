@@ -579,8 +579,20 @@ fn evaluate_bridge(
         part, model, &channel, options, full_case, &place, target, findings,
     );
     let uncertainty_case = uncertainty.as_ref().and(full_case.map(|c| c.name.clone()));
-    let accuracy =
-        crate::accuracy::accuracy_checks(part, plan.required_accuracy, model, &channel, warn)?;
+    let budgets = match options.uncertainty {
+        UncertaintyDepth::Off => crate::accuracy::Budgets::Off,
+        _ => crate::accuracy::Budgets::PerCase {
+            known: uncertainty.as_ref().zip(uncertainty_case.as_deref()),
+        },
+    };
+    let accuracy = crate::accuracy::accuracy_checks(
+        part,
+        plan.required_accuracy,
+        model,
+        &channel,
+        warn,
+        budgets,
+    )?;
     for check in &accuracy {
         accuracy_finding(check, plan, &place(&check.case), target, findings);
         if let Some(c) = cases.iter_mut().find(|c| c.case == check.case) {

@@ -21,10 +21,15 @@ type Suggestions = (
     Result<(Vec<RankedArrangement>, Option<RankedArrangement>), String>,
 );
 
-/// View state: the last suggestion list and the project state it was made for.
+/// The catalogue for one bridge at one evaluation and station (its key), kept so that it is
+/// worked out once per change, not every frame.
+type Catalogue = ((u64, usize, usize, u64), Vec<CatalogueEntry>);
+
+/// View state: the last suggestion list and catalogue and the project state they were made for.
 #[derive(Default)]
 pub struct BridgesPanel {
     suggestions: Option<Suggestions>,
+    catalogue: Option<Catalogue>,
 }
 
 use super::item_fields::{arm_choices, arm_text};
@@ -129,7 +134,10 @@ fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
 impl BridgesPanel {
     /// Draws the panel.
     pub fn bridges_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
-        let Self { suggestions } = self;
+        let Self {
+            suggestions,
+            catalogue,
+        } = self;
         let sel = doc.selection;
         let Some(part) = doc.project.parts.get(sel.part) else {
             return;
@@ -201,7 +209,7 @@ impl BridgesPanel {
             });
             ui.separator();
             ui.strong("Arrangements for this part");
-            catalogue_ui(ui, doc, part, bi, out);
+            catalogue_ui(ui, doc, part, bi, catalogue, out);
             ui.separator();
             suggestions_ui(ui, doc, part, bi, suggestions, out);
         });
@@ -214,6 +222,7 @@ fn catalogue_ui(
     doc: &DocumentState,
     part: &Part,
     bi: usize,
+    cache: &mut Option<Catalogue>,
     out: &mut Vec<Command>,
 ) {
     let sel = doc.selection;
@@ -232,8 +241,12 @@ fn catalogue_ui(
                 .map(|f| (f.x_range_m.0 + f.x_range_m.1) / 4.0)
                 .unwrap_or(0.0)
         });
-    let spec = gw_plan::arrangements::catalogue_spec(&doc.project, part);
-    let entries: Vec<CatalogueEntry> = catalogue(&part.member, plan.wanted, station, &spec);
+    let key = (doc.evaluations, sel.part, bi, station.to_bits());
+    if cache.as_ref().is_none_or(|(k, _)| *k != key) {
+        let spec = gw_plan::arrangements::catalogue_spec(&doc.project, part);
+        *cache = Some((key, catalogue(&part.member, plan.wanted, station, &spec)));
+    }
+    let entries = cache.as_ref().map(|(_, e)| e.clone()).unwrap_or_default();
     if entries.is_empty() {
         ui.label("No standard arrangement measures this load on this part.");
     }
