@@ -257,17 +257,31 @@ impl GaugewrightApp {
         self.modal = Some(Modal::SheetPath(String::new()));
     }
 
-    /// Writes the build sheet PDF and the channel list CSV beside it.
+    /// Writes the build sheet PDF and the channel list CSV beside it, through the safe writer;
+    /// neither may land on the open project or on another project.
     pub fn export_sheet(&mut self, pdf: &std::path::Path) {
+        use gw_plan::safe_write::{Backup, holds_a_project, same_file, write_file};
+        let csv = pdf.with_extension("csv");
+        let open = self.doc.path.clone();
+        let clash = [pdf, csv.as_path()]
+            .into_iter()
+            .find(|p| open.as_deref().is_some_and(|o| same_file(p, o)) || holds_a_project(p));
+        if let Some(p) = clash {
+            self.doc.notice = Some(Notice {
+                is_error: true,
+                text: format!(
+                    "Did not write the build sheet: {} is a project file and would be lost. Choose another name.",
+                    p.display()
+                ),
+            });
+            return;
+        }
         let ev = gw_plan::evaluate(&self.doc.project, &gw_plan::EvalOptions::default());
         let result = gw_plan::sheet::build_sheet_pdf(&self.doc.project, &ev)
-            .and_then(|bytes| std::fs::write(pdf, bytes).map_err(|e| e.to_string()))
+            .and_then(|bytes| write_file(pdf, &bytes, Backup::Replace).map_err(|e| e.to_string()))
             .and_then(|()| {
-                std::fs::write(
-                    pdf.with_extension("csv"),
-                    gw_plan::channel_list::channel_list_csv(&ev),
-                )
-                .map_err(|e| e.to_string())
+                let text = gw_plan::channel_list::channel_list_csv(&ev);
+                write_file(&csv, text.as_bytes(), Backup::Replace).map_err(|e| e.to_string())
             });
         self.doc.notice = Some(match result {
             Ok(()) => Notice {

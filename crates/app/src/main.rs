@@ -157,6 +157,9 @@ enum Command {
         /// CSV channel list to write.
         #[arg(long)]
         csv: Option<PathBuf>,
+        /// Replace an existing project at the output paths (never the project being read).
+        #[arg(long)]
+        force: bool,
     },
     /// Write the bundled demo project (or, with --gallery, one part of every model kind and
     /// beam section).
@@ -166,6 +169,9 @@ enum Command {
         /// Write the model gallery instead of the demo.
         #[arg(long)]
         gallery: bool,
+        /// Replace an existing project at OUT (the old one is kept as its .bak).
+        #[arg(long)]
+        force: bool,
     },
 }
 
@@ -262,15 +268,24 @@ fn main() -> ExitCode {
                 gw_plan::cli::eval_summary(&file, monte_carlo)
             });
         }
-        Some(Command::Demo { out, gallery }) => {
+        Some(Command::Demo {
+            out,
+            gallery,
+            force,
+        }) => {
             return finish(if gallery {
-                gw_plan::cli::write_gallery(&out)
+                gw_plan::cli::write_gallery(&out, force)
             } else {
-                gw_plan::cli::write_demo(&out)
+                gw_plan::cli::write_demo(&out, force)
             });
         }
-        Some(Command::Sheet { file, output, csv }) => {
-            return finish(gw_plan::cli::sheet(&file, &output, csv.as_deref()));
+        Some(Command::Sheet {
+            file,
+            output,
+            csv,
+            force,
+        }) => {
+            return finish(gw_plan::cli::sheet(&file, &output, csv.as_deref(), force));
         }
         None => {}
     }

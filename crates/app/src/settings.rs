@@ -62,7 +62,11 @@ impl Settings {
             let _ = std::fs::create_dir_all(dir);
         }
         if let Ok(text) = ron::ser::to_string_pretty(self, ron::ser::PrettyConfig::default()) {
-            let _ = std::fs::write(p, text);
+            let _ = gw_plan::safe_write::write_file(
+                p,
+                text.as_bytes(),
+                gw_plan::safe_write::Backup::Replace,
+            );
         }
     }
 

@@ -300,17 +300,55 @@ pub fn eval_json(path: &Path, monte_carlo: bool) -> CliOutput {
     }
 }
 
-/// `gaugewright demo OUT`: writes the bundled demo project.
-pub fn write_demo(path: &Path) -> CliOutput {
-    write_example(path, &demo_project(), "the demo project")
+/// `gaugewright demo OUT [--force]`: writes the bundled demo project; an existing project at
+/// OUT is replaced only with `force` (and then kept as its backup).
+pub fn write_demo(path: &Path, force: bool) -> CliOutput {
+    write_example(path, &demo_project(), "the demo project", force)
 }
 
-/// `gaugewright demo --gallery OUT`: one part of every model kind and beam section.
-pub fn write_gallery(path: &Path) -> CliOutput {
-    write_example(path, &crate::gallery::model_gallery(), "the model gallery")
+/// `gaugewright demo --gallery OUT [--force]`: one part of every model kind and beam section.
+pub fn write_gallery(path: &Path, force: bool) -> CliOutput {
+    write_example(
+        path,
+        &crate::gallery::model_gallery(),
+        "the model gallery",
+        force,
+    )
 }
 
-fn write_example(path: &Path, project: &crate::Project, what: &str) -> CliOutput {
+/// A refusal to write over a file the user may need, with the way out.
+fn refused(path: &Path, why: &str) -> CliOutput {
+    CliOutput {
+        code: 2,
+        stdout: String::new(),
+        stderr: format!("error: {}: {why}\n", path.display()),
+    }
+}
+
+/// Refuses an output that is the input itself (always) or an existing project (unless
+/// `force`).
+fn guard_output(out: &Path, input: Option<&Path>, force: bool) -> Option<CliOutput> {
+    use crate::safe_write::{holds_a_project, same_file};
+    if input.is_some_and(|i| same_file(out, i)) {
+        return Some(refused(
+            out,
+            "is the project being read; writing there would destroy it. Choose another file name",
+        ));
+    }
+    if !force && holds_a_project(out) {
+        return Some(refused(
+            out,
+            "is an existing project; writing there would replace it. Choose another file name, \
+             or add --force to replace it (the old file is kept as its .bak)",
+        ));
+    }
+    None
+}
+
+fn write_example(path: &Path, project: &crate::Project, what: &str, force: bool) -> CliOutput {
+    if let Some(no) = guard_output(path, None, force) {
+        return no;
+    }
     match save_project(project, path) {
         Ok(()) => CliOutput {
             code: 0,
@@ -321,8 +359,21 @@ fn write_example(path: &Path, project: &crate::Project, what: &str) -> CliOutput
     }
 }
 
-/// `gaugewright sheet FILE -o OUT.pdf [--csv OUT.csv]`: the build sheet and channel list.
-pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>) -> CliOutput {
+/// `gaugewright sheet FILE -o OUT.pdf [--csv OUT.csv] [--force]`: the build sheet and channel
+/// list. Neither may be the project itself, nor (without `force`) another project, nor the
+/// same file as each other.
+pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>, force: bool) -> CliOutput {
+    for out in std::iter::once(pdf).chain(csv) {
+        if let Some(no) = guard_output(out, Some(path), force) {
+            return no;
+        }
+    }
+    if csv.is_some_and(|c| crate::safe_write::same_file(c, pdf)) {
+        return refused(
+            pdf,
+            "is given for both the build sheet (-o) and the channel list (--csv); give each its own file",
+        );
+    }
     let project = match load_project(path) {
         Ok(p) => p,
         Err(e) => return broken(path, &e),
@@ -331,11 +382,13 @@ pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>) -> CliOutput {
     let mut stdout = String::new();
     match crate::sheet::build_sheet_pdf(&project, &ev) {
         Ok(bytes) => {
-            if let Err(e) = std::fs::write(pdf, bytes) {
+            let written =
+                crate::safe_write::write_file(pdf, &bytes, crate::safe_write::Backup::Replace);
+            if let Err(e) = written {
                 return CliOutput {
                     code: 2,
                     stdout,
-                    stderr: format!("error: could not write {}: {e}\n", pdf.display()),
+                    stderr: format!("error: {e}\n"),
                 };
             }
             let _ = writeln!(stdout, "wrote the build sheet to {}", pdf.display());
@@ -349,11 +402,14 @@ pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>) -> CliOutput {
         }
     }
     if let Some(csv) = csv {
-        if let Err(e) = std::fs::write(csv, crate::channel_list::channel_list_csv(&ev)) {
+        let text = crate::channel_list::channel_list_csv(&ev);
+        let written =
+            crate::safe_write::write_file(csv, text.as_bytes(), crate::safe_write::Backup::Replace);
+        if let Err(e) = written {
             return CliOutput {
                 code: 2,
                 stdout,
-                stderr: format!("error: could not write {}: {e}\n", csv.display()),
+                stderr: format!("error: {e}\n"),
             };
         }
         let _ = writeln!(stdout, "wrote the channel list to {}", csv.display());

@@ -1,7 +1,7 @@
 //! Reading and writing project files: RON with a format version, clear messages for broken
 //! files, atomic saves with a backup.
 
-use std::path::{Path, PathBuf};
+use std::path::Path;
 
 use serde::Deserialize;
 use thiserror::Error;
@@ -97,29 +97,12 @@ pub fn load_project(path: &Path) -> Result<Project, PlanError> {
     project_from_str(&text)
 }
 
-/// The backup kept beside a saved file.
-pub fn backup_path(path: &Path) -> PathBuf {
-    let mut p = path.as_os_str().to_owned();
-    p.push(".bak");
-    PathBuf::from(p)
-}
+pub use crate::safe_write::backup_path;
 
-/// Saves atomically: writes a temporary file beside the target, keeps the previous version as
-/// `<file>.bak`, then renames the temporary file into place.
+/// Saves through the safe writer ([`crate::safe_write`]): the previous version is kept as
+/// `<file>.bak` and the one before as `<file>.bak2`; a failed save leaves them and the file as
+/// they were.
 pub fn save_project(project: &Project, path: &Path) -> Result<(), PlanError> {
     let text = project_to_string(project)?;
-    let io = |message: String| PlanError::Io {
-        path: path.display().to_string(),
-        message,
-    };
-    let mut tmp = path.as_os_str().to_owned();
-    tmp.push(".tmp");
-    let tmp = PathBuf::from(tmp);
-    std::fs::write(&tmp, text).map_err(|e| io(format!("could not write ({e})")))?;
-    if path.exists() {
-        std::fs::copy(path, backup_path(path))
-            .map_err(|e| io(format!("could not keep the backup ({e})")))?;
-    }
-    std::fs::rename(&tmp, path).map_err(|e| io(format!("could not replace the file ({e})")))?;
-    Ok(())
+    crate::safe_write::write_file(path, text.as_bytes(), crate::safe_write::Backup::Keep)
 }

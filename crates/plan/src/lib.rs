@@ -25,6 +25,7 @@ pub mod gallery;
 pub mod io;
 pub mod migrate;
 pub mod placement;
+pub mod safe_write;
 pub mod sheet;
 pub mod validate;
 pub mod wiring;

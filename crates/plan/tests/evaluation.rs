@@ -61,7 +61,7 @@ fn check_and_eval_of_the_demo() {
     let dir = std::env::temp_dir().join(format!("gw-plan-eval-{}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();
     let path = dir.join("demo.ron");
-    assert_eq!(gw_plan::cli::write_demo(&path).code, 0);
+    assert_eq!(gw_plan::cli::write_demo(&path, true).code, 0);
     let c = check(&path);
     assert_eq!(c.code, 0, "{}", c.stdout);
     assert!(c.stdout.contains("not a certification of safety"));

@@ -27,7 +27,7 @@ fn bundled_demo_file_is_the_demo_project() {
     assert_eq!(
         project_from_str(&text).unwrap(),
         demo_project(),
-        "regenerate with `gaugewright demo assets/winch_test_stand.ron`"
+        "regenerate with `gaugewright demo --force assets/winch_test_stand.ron`"
     );
 }
 
