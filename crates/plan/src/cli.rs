@@ -28,10 +28,15 @@ pub struct CliOutput {
 }
 
 fn broken(path: &Path, e: &PlanError) -> CliOutput {
+    // A file error already names its file.
+    let stderr = match e {
+        PlanError::Io { .. } => format!("error: {e}\n"),
+        _ => format!("error: {}: {e}\n", path.display()),
+    };
     CliOutput {
         code: 2,
         stdout: String::new(),
-        stderr: format!("error: {}: {e}\n", path.display()),
+        stderr,
     }
 }
 

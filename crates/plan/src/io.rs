@@ -42,8 +42,47 @@ fn syntax(e: &ron::error::SpannedError) -> PlanError {
     PlanError::Syntax {
         line: e.span.start.line,
         column: e.span.start.col,
-        message: e.code.to_string(),
+        message: user_words(&e.code),
     }
+}
+
+/// The parser's message in the user's words: no internal type names, no advice meant for
+/// programmers, no token so long that it buries the message.
+fn user_words(code: &ron::Error) -> String {
+    if matches!(code, ron::Error::ExceededRecursionLimit) {
+        return "the file is nested too deeply to be a project (brackets inside brackets, \
+                hundreds deep)"
+            .to_owned();
+    }
+    let text = code
+        .to_string()
+        .replace(
+            "struct `VersionProbe`",
+            "a project, \
+        `(format_version: 2, …)`,",
+        )
+        .replace("`VersionProbe`", "the project");
+    shorten_quoted(&text, 40)
+}
+
+/// Every `quoted` token longer than `limit` characters cut to its start and end.
+fn shorten_quoted(text: &str, limit: usize) -> String {
+    let parts: Vec<&str> = text.split('`').collect();
+    parts
+        .iter()
+        .enumerate()
+        .map(|(i, p)| {
+            let n = p.chars().count();
+            if i % 2 == 1 && n > limit {
+                let head: String = p.chars().take(limit / 2).collect();
+                let tail: String = p.chars().skip(n - limit / 4).collect();
+                format!("{head}…{tail} ({n} characters)")
+            } else {
+                (*p).to_owned()
+            }
+        })
+        .collect::<Vec<_>>()
+        .join("`")
 }
 
 /// Reads a document of format version `from`, upgrading older versions
@@ -88,13 +127,57 @@ pub fn project_to_string(project: &Project) -> Result<String, PlanError> {
     })
 }
 
-/// Reads a project file.
+/// The largest project file read, bytes (64 MiB: far above any real plan, small enough to read
+/// at once).
+pub const MAX_PROJECT_BYTES: u64 = 64 << 20;
+
+/// Reads a project file: a regular file of at most [`MAX_PROJECT_BYTES`], UTF-8 (a byte-order
+/// mark is allowed).
 pub fn load_project(path: &Path) -> Result<Project, PlanError> {
-    let text = std::fs::read_to_string(path).map_err(|e| PlanError::Io {
-        path: path.display().to_string(),
-        message: format!("could not read the file ({e})"),
-    })?;
+    let text = read_project_text(path)?;
     project_from_str(&text)
+}
+
+/// The text of a project file, bounded and checked before anything is parsed.
+pub fn read_project_text(path: &Path) -> Result<String, PlanError> {
+    use std::io::Read;
+    let io = |message: String| PlanError::Io {
+        path: path.display().to_string(),
+        message,
+    };
+    // Looked at before opening: opening a pipe would wait for a writer.
+    let meta = std::fs::metadata(path).map_err(|e| io(format!("could not read the file ({e})")))?;
+    if !meta.is_file() {
+        return Err(io(
+            "is not a regular file (a folder, a device or a pipe); open a project file".into(),
+        ));
+    }
+    let too_big = |n: u64| {
+        io(format!(
+            "is {n} bytes; a project file is at most {} MiB, so this is not one",
+            MAX_PROJECT_BYTES >> 20
+        ))
+    };
+    if meta.len() > MAX_PROJECT_BYTES {
+        return Err(too_big(meta.len()));
+    }
+    let mut bytes = Vec::new();
+    std::fs::File::open(path)
+        .and_then(|f| f.take(MAX_PROJECT_BYTES + 1).read_to_end(&mut bytes))
+        .map_err(|e| io(format!("could not read the file ({e})")))?;
+    if bytes.len() as u64 > MAX_PROJECT_BYTES {
+        return Err(too_big(bytes.len() as u64));
+    }
+    let body = bytes.strip_prefix(b"\xEF\xBB\xBF").unwrap_or(&bytes);
+    String::from_utf8(body.to_vec()).map_err(|e| {
+        let at = e.utf8_error().valid_up_to();
+        let line = body[..at].iter().filter(|b| **b == b'\n').count() + 1;
+        io(format!(
+            "is not text in UTF-8: byte {} (line {line}) is not a character; save the file as \
+             UTF-8 or open its backup (.bak)",
+            at + 1
+        ))
+    })
 }
 
 pub use crate::safe_write::backup_path;

@@ -31,9 +31,100 @@ pub fn validate_project(project: &Project) -> Result<(), PlanError> {
             ),
         ));
     }
+    within_limit("project", "parts", project.parts.len(), LIMITS.parts)?;
+    within_limit(
+        "project",
+        "gauge types in the stock",
+        project.gauge_stock.len(),
+        LIMITS.stock,
+    )?;
     validate_stock(&project.gauge_stock)?;
     for part in &project.parts {
         validate_part(part, &project.gauge_stock)?;
+    }
+    Ok(())
+}
+
+/// How much one project may ask of the tool: far above any real plan, low enough that a file
+/// cannot make it work for minutes or allocate without bound.
+pub struct Limits {
+    /// Parts in a project.
+    pub parts: usize,
+    /// Gauge types in the stock.
+    pub stock: usize,
+    /// Load cases of a part.
+    pub load_cases: usize,
+    /// Gauges on a part.
+    pub gauges: usize,
+    /// Bridges of a part.
+    pub bridges: usize,
+    /// Monte Carlo trials of an uncertainty budget.
+    pub monte_carlo_trials: usize,
+}
+
+/// The limits every project is checked against.
+pub const LIMITS: Limits = Limits {
+    parts: 100,
+    stock: 200,
+    load_cases: 100,
+    gauges: 500,
+    bridges: 100,
+    monte_carlo_trials: 1_000_000,
+};
+
+fn within_limit(at: &str, what: &str, n: usize, limit: usize) -> Result<(), PlanError> {
+    if n > limit {
+        return Err(invalid(
+            at.to_owned(),
+            format!("{n} {what} is more than the {limit} a project may hold; split the plan"),
+        ));
+    }
+    Ok(())
+}
+
+/// How well the installation is known: each a standard uncertainty that is a number, not
+/// negative and plausible (a misalignment of more than 30° or a position known only to 50 mm
+/// is a typo, not a plan), and a trial count the machine can run.
+fn validate_tolerances(
+    here: &str,
+    t: &gw_bridge::bridge_uncertainty::InstallationTolerances,
+) -> Result<(), PlanError> {
+    let at = format!("{here} › how well the installation is known");
+    let checks = [
+        ("misalignment", t.misalignment_rad.to_degrees(), 30.0, "°"),
+        ("position", t.position_m * 1e3, 50.0, " mm"),
+        (
+            "transverse sensitivity",
+            t.transverse_sensitivity * 100.0,
+            20.0,
+            " %",
+        ),
+        (
+            "lead resistance",
+            t.lead_resistance_fraction * 100.0,
+            100.0,
+            " %",
+        ),
+        ("temperature", t.temperature_c, 100.0, " °C"),
+    ];
+    for (name, v, max, unit) in checks {
+        if !(v.is_finite() && (0.0..=max).contains(&v)) {
+            return Err(invalid(
+                at.clone(),
+                format!("{name} {v}{unit} must lie between 0 and {max}{unit}"),
+            ));
+        }
+    }
+    let trials = t.monte_carlo_trials;
+    if !(1000..=LIMITS.monte_carlo_trials).contains(&trials) {
+        return Err(invalid(
+            at,
+            format!(
+                "Monte Carlo trials {trials} must lie between 1000 and {} (JCGM 101 asks for \
+                 enough trials for a stable interval; more only takes longer)",
+                LIMITS.monte_carlo_trials
+            ),
+        ));
     }
     Ok(())
 }
@@ -75,6 +166,21 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
                 "required resolution {} must be a positive strain (e.g. 1e-6 for 1 µε)",
                 part.required_resolution_strain
             ),
+        ));
+    }
+    within_limit(
+        &here,
+        "load cases",
+        part.load_cases.len(),
+        LIMITS.load_cases,
+    )?;
+    within_limit(&here, "gauges", part.gauges.len(), LIMITS.gauges)?;
+    within_limit(&here, "bridges", part.bridges.len(), LIMITS.bridges)?;
+    validate_tolerances(&here, &part.tolerances)?;
+    if !(part.datum_m.0.is_finite() && part.datum_m.1.is_finite()) {
+        return Err(invalid(
+            here.clone(),
+            "the datum is not a number; give its x and s in millimetres",
         ));
     }
     let carried = part.member.components();

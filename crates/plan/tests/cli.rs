@@ -50,13 +50,13 @@ fn the_summary_shows_monte_carlo_only_when_asked() {
     let mut project = demo_project();
     project.parts.truncate(1);
     project.parts[0].bridges.truncate(1);
-    project.parts[0].tolerances.monte_carlo_trials = 500;
+    project.parts[0].tolerances.monte_carlo_trials = 1000;
     let path = saved(&project, "monte-carlo");
     let with = eval_summary(&path, true);
     assert_eq!(with.code, 0, "{}", with.stderr);
     assert!(
         with.stdout
-            .contains("Monte Carlo, 500 trials: 95 % interval"),
+            .contains("Monte Carlo, 1000 trials: 95 % interval"),
         "{}",
         with.stdout
     );

@@ -1242,7 +1242,7 @@ fn tolerance_fields() -> Vec<Field<Part>> {
         whole(
             "tolerances.monte_carlo_trials",
             "Monte Carlo trials",
-            (1000, 2_000_000),
+            (1000, gw_plan::validate::LIMITS.monte_carlo_trials as u64),
             "Trials of the Monte Carlo check (JCGM 101)",
             |p: &Part| p.tolerances.monte_carlo_trials as u64,
             |p, v| p.tolerances.monte_carlo_trials = v as usize,

@@ -1,0 +1,167 @@
+//! The bad-input table: each row is a file a user might hand the tool, made from the demo by one
+//! change, and the outcome it must give — a clear message naming the problem, or a correct
+//! load. No row may panic, hang or load a project that cannot be evaluated.
+
+use std::path::{Path, PathBuf};
+
+use gw_plan::demo::demo_project;
+use gw_plan::{load_project, project_to_string};
+
+/// What a row must give.
+enum Expect {
+    /// Loads.
+    Loads,
+    /// Is refused with a message containing every one of these words.
+    Refused(&'static [&'static str]),
+}
+
+fn folder() -> PathBuf {
+    let dir = std::env::temp_dir().join(format!("gw-bad-inputs-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    dir
+}
+
+fn demo_text() -> String {
+    project_to_string(&demo_project()).unwrap()
+}
+
+/// The demo's text with the first `from` replaced by `to` (the row is wrong if `from` is
+/// missing, so a change of format cannot make a row pass by doing nothing).
+fn edited(from: &str, to: &str) -> Vec<u8> {
+    let text = demo_text();
+    assert!(text.contains(from), "the demo's text has no {from:?}");
+    text.replacen(from, to, 1).into_bytes()
+}
+
+/// The table: (row name, file bytes, outcome).
+fn rows() -> Vec<(&'static str, Vec<u8>, Expect)> {
+    use Expect::*;
+    let mut bom = b"\xEF\xBB\xBF".to_vec();
+    bom.extend(demo_text().into_bytes());
+    vec![
+        ("the demo as written", demo_text().into_bytes(), Loads),
+        ("a byte-order mark before the text", bom, Loads),
+        (
+            "a byte that is not UTF-8 in a name",
+            edited("name: \"Reaction arm\"", "name: \"Reaction \u{0}arm\"")
+                .into_iter()
+                .map(|b| if b == 0 { 0xFF } else { b })
+                .collect(),
+            Refused(&["UTF-8", "byte", "line"]),
+        ),
+        (
+            "no format version",
+            edited("format_version: 2,", ""),
+            Refused(&["format_version"]),
+        ),
+        (
+            "not a project at all",
+            b"format_version: 2".to_vec(),
+            Refused(&["a project"]),
+        ),
+        (
+            "brackets nested thousands deep",
+            format!("(format_version: 2, name: {})", "[".repeat(5000)).into_bytes(),
+            Refused(&["nested too deeply"]),
+        ),
+        (
+            "a misalignment of a billion radians",
+            edited(
+                "misalignment_rad: 0.017453292519943295",
+                "misalignment_rad: 1e9",
+            ),
+            Refused(&["misalignment", "between 0 and 30"]),
+        ),
+        (
+            "a negative position uncertainty",
+            edited("position_m: 0.0005", "position_m: -0.0005"),
+            Refused(&["position", "between 0 and 50"]),
+        ),
+        (
+            "a temperature uncertainty that is not a number",
+            edited("temperature_c: 2.0", "temperature_c: NaN"),
+            Refused(&["temperature", "between 0 and 100"]),
+        ),
+        (
+            "a billion Monte Carlo trials",
+            edited(
+                "monte_carlo_trials: 20000",
+                "monte_carlo_trials: 1000000000",
+            ),
+            Refused(&["Monte Carlo trials", "1000000"]),
+        ),
+        (
+            "a datum that is not a number",
+            edited("datum_m: (0.0, 0.0)", "datum_m: (NaN, 0.0)"),
+            Refused(&["datum", "not a number"]),
+        ),
+    ]
+}
+
+fn outcome(path: &Path) -> Result<(), String> {
+    load_project(path).map(|_| ()).map_err(|e| e.to_string())
+}
+
+fn check_row(name: &str, path: &Path, expect: &Expect) {
+    match (outcome(path), expect) {
+        (Ok(()), Expect::Loads) => {}
+        (Err(e), Expect::Refused(words)) => {
+            for w in *words {
+                assert!(e.contains(w), "{name}: {e:?} lacks {w:?}");
+            }
+            assert!(
+                !e.contains("VersionProbe"),
+                "{name}: internal name in {e:?}"
+            );
+        }
+        (Ok(()), Expect::Refused(_)) => panic!("{name}: loaded but should be refused"),
+        (Err(e), Expect::Loads) => panic!("{name}: refused: {e}"),
+    }
+}
+
+#[test]
+fn every_row_of_the_table_gives_its_outcome() {
+    let dir = folder();
+    for (k, (name, bytes, expect)) in rows().iter().enumerate() {
+        let path = dir.join(format!("row-{k}.ron"));
+        std::fs::write(&path, bytes).unwrap();
+        check_row(name, &path, expect);
+    }
+}
+
+#[test]
+fn a_file_larger_than_a_project_can_be_is_refused_without_reading_it() {
+    // A sparse file: 65 MiB long, nothing on the disk.
+    let path = folder().join("huge.ron");
+    let f = std::fs::File::create(&path).unwrap();
+    f.set_len(65 << 20).unwrap();
+    check_row(
+        "a 65 MiB file",
+        &path,
+        &Expect::Refused(&["at most 64 MiB"]),
+    );
+}
+
+#[test]
+fn a_folder_is_refused() {
+    let path = folder().join("a-folder.ron");
+    std::fs::create_dir_all(&path).unwrap();
+    check_row("a folder", &path, &Expect::Refused(&["not a regular file"]));
+}
+
+#[cfg(unix)]
+#[test]
+fn a_pipe_is_refused_at_once_instead_of_waiting_for_a_writer() {
+    let path = folder().join("a-pipe.ron");
+    let _ = std::fs::remove_file(&path);
+    if !gw_verify::require_tool("mkfifo", "--version", "coreutils") {
+        return;
+    }
+    let made = std::process::Command::new("mkfifo").arg(&path).status();
+    assert!(
+        made.map(|s| s.success()).unwrap_or(false),
+        "mkfifo made the pipe"
+    );
+    // Opening a pipe with no writer would block; the loader must not open it.
+    check_row("a pipe", &path, &Expect::Refused(&["not a regular file"]));
+}
