@@ -113,9 +113,21 @@ impl GaugewrightApp {
         let mut modal = None;
         if settings.has_run
             && let Some(last) = settings.recent_files.first()
-            && let Ok(p) = gw_plan::load_project(last)
         {
-            doc = DocumentState::new(p, Some(last.clone()));
+            match gw_plan::load_project(last) {
+                Ok(p) => doc = DocumentState::new(p, Some(last.clone())),
+                // Say why, rather than showing the demo as if nothing had happened.
+                Err(e) => {
+                    doc.notice = Some(crate::state::Notice {
+                        is_error: true,
+                        text: format!(
+                            "Could not open the last project, {}: {e}. Showing the demo instead; \
+                             File → Open to choose a project.",
+                            last.display()
+                        ),
+                    })
+                }
+            }
         }
         doc.units = settings.units;
         if let Some(r) = paths.recovery.as_ref().filter(|r| r.exists()) {

@@ -79,6 +79,28 @@ fn the_last_saved_project_reopens_on_the_next_start() {
     );
 }
 
+#[test]
+fn a_last_project_that_cannot_be_opened_is_named_with_the_reason() {
+    // The last project was broken after it was saved: the app starts on the demo and says so,
+    // instead of showing the demo as if nothing had happened.
+    let p = paths("broken-last");
+    let file = p.settings.as_ref().unwrap().with_file_name("plan.ron");
+    let mut first = GaugewrightApp::new(p.clone(), None);
+    first.save_path(&file);
+    drop(first);
+    std::fs::write(&file, "(format_version: 2, name: ").unwrap();
+    let second = GaugewrightApp::new(p, None);
+    assert_eq!(second.doc.project.name, "Winch test stand (demo)");
+    assert_eq!(
+        second.doc.path, None,
+        "the broken file is not the open document"
+    );
+    let notice = second.doc.notice.as_ref().expect("the start says why");
+    assert!(notice.is_error);
+    assert!(notice.text.contains("plan.ron"), "{}", notice.text);
+    assert!(notice.text.contains("line 1"), "{}", notice.text);
+}
+
 #[derive(Debug)]
 struct DroppedPath(std::path::PathBuf);
 
