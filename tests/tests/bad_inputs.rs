@@ -91,6 +91,47 @@ fn rows() -> Vec<(&'static str, Vec<u8>, Expect)> {
             Refused(&["Monte Carlo trials", "1000000"]),
         ),
         (
+            "a lead drift that is not a number",
+            edited("tcr_per_c: 0.0039", "tcr_per_c: NaN"),
+            Refused(&["lead drift", "not plausible"]),
+        ),
+        (
+            "an excitation accuracy of 500 %",
+            edited("excitation_accuracy: 0.0005", "excitation_accuracy: 5.0"),
+            Refused(&["excitation accuracy", "not plausible"]),
+        ),
+        (
+            "an amplifier noise of one volt per root hertz",
+            edited(
+                "amplifier_noise_v_per_rt_hz: 8e-9",
+                "amplifier_noise_v_per_rt_hz: 1.0",
+            ),
+            Refused(&["amplifier noise density", "not plausible"]),
+        ),
+        (
+            "a shunt target beyond what any shunt can simulate",
+            edited("target_strain: 0.0005", "target_strain: 0.6"),
+            Refused(&["shunt target strain", "not plausible"]),
+        ),
+        (
+            "a strain limit of 80",
+            edited("strain_limit: 0.03", "strain_limit: 80.0"),
+            Refused(&["strain limit", "not plausible"]),
+        ),
+        (
+            "a gauge turned a billion radians",
+            edited("angle_rad: 0.0", "angle_rad: 1e9"),
+            Refused(&["angle", "not plausible"]),
+        ),
+        (
+            "a load case below absolute zero",
+            edited(
+                "temperature_range_c: (-10.0, 40.0)",
+                "temperature_range_c: (-400.0, 40.0)",
+            ),
+            Refused(&["below absolute zero"]),
+        ),
+        (
             "a datum that is not a number",
             edited("datum_m: (0.0, 0.0)", "datum_m: (NaN, 0.0)"),
             Refused(&["datum", "not a number"]),

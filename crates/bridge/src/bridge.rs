@@ -5,7 +5,7 @@ use gw_mechanics::LoadComponent;
 use serde::{Deserialize, Serialize};
 
 use crate::circuit::{Excitation, LeadWiring, ShuntLocation};
-use crate::error::{BridgeError, check_non_negative, check_positive};
+use crate::error::{BridgeError, check_plausible, check_positive};
 use crate::gauge::{GridRef, PlacedGauge};
 use crate::signal_chain::LowPassFilter;
 
@@ -205,10 +205,10 @@ impl Bridge {
                     }
                 }
                 ArmElement::Completion(c) => {
-                    check_positive(
-                        &what(&format!("completion resistor in arm {}", k + 1)),
-                        c.ohm,
-                    )?;
+                    let arm = |s: &str| what(&format!("completion resistor in arm {}: {s}", k + 1));
+                    check_positive(&arm("resistance"), c.ohm)?;
+                    check_plausible(&arm("tolerance"), c.tolerance, (0.0, 0.1), "")?;
+                    check_plausible(&arm("drift"), c.tcr_per_c, (-1e-3, 1e-3), " /°C")?;
                 }
             }
         }
@@ -218,19 +218,69 @@ impl Bridge {
     /// Checks leads, instrument, excitation, signal chain and shunt.
     pub fn validate_settings(&self) -> Result<(), BridgeError> {
         let what = |s: &str| format!("bridge \"{}\": {s}", self.name);
-        check_non_negative(&what("lead length"), self.lead.length_m)?;
-        check_non_negative(&what("lead resistance per metre"), self.lead.ohm_per_m)?;
+        check_plausible(
+            &what("lead length"),
+            self.lead.length_m,
+            (0.0, 10_000.0),
+            " m",
+        )?;
+        check_plausible(
+            &what("lead resistance per metre"),
+            self.lead.ohm_per_m,
+            (0.0, 10.0),
+            " Ω/m",
+        )?;
+        // Copper is 0.0039 /°C; no lead wire drifts ten times as much.
+        check_plausible(
+            &what("lead drift"),
+            self.lead.tcr_per_c,
+            (-0.04, 0.04),
+            " /°C",
+        )?;
         check_positive(
             &what("instrument gauge factor"),
             self.instrument.gauge_factor,
         )?;
         check_positive(&what("bridge factor"), self.instrument.bridge_factor)?;
         match self.excitation {
-            Excitation::Voltage { volts } => check_positive(&what("excitation voltage"), volts)?,
-            Excitation::Current { amps } => check_positive(&what("excitation current"), amps)?,
+            Excitation::Voltage { volts } => check_positive(&what("excitation voltage"), volts)
+                .and(check_plausible(
+                    &what("excitation voltage"),
+                    volts,
+                    (0.0, 50.0),
+                    " V",
+                ))?,
+            Excitation::Current { amps } => check_positive(&what("excitation current"), amps).and(
+                check_plausible(&what("excitation current"), amps, (0.0, 1.0), " A"),
+            )?,
         }
         check_positive(&what("amplifier gain"), self.signal.gain)?;
+        check_plausible(&what("amplifier gain"), self.signal.gain, (0.0, 1e6), "")?;
         check_positive(&what("input range"), self.signal.input_range_v)?;
+        check_plausible(
+            &what("input range"),
+            self.signal.input_range_v,
+            (0.0, 1000.0),
+            " V",
+        )?;
+        check_plausible(
+            &what("amplifier noise density"),
+            self.signal.amplifier_noise_v_per_rt_hz,
+            (0.0, 1e-5),
+            " V/√Hz",
+        )?;
+        check_plausible(
+            &what("excitation accuracy"),
+            self.signal.excitation_accuracy,
+            (0.0, 0.1),
+            "",
+        )?;
+        check_plausible(
+            &what("gain accuracy"),
+            self.signal.gain_accuracy,
+            (0.0, 0.1),
+            "",
+        )?;
         if !(1..=32).contains(&self.signal.adc_bits) {
             return Err(BridgeError::Invalid {
                 what: what("ADC resolution"),
@@ -238,6 +288,12 @@ impl Bridge {
             });
         }
         check_positive(&what("bandwidth"), self.signal.bandwidth_hz)?;
+        check_plausible(
+            &what("bandwidth"),
+            self.signal.bandwidth_hz,
+            (0.0, 1e7),
+            " Hz",
+        )?;
         if let Err(BridgeError::Invalid { what: field, why }) = self.signal.filter.validate() {
             return Err(BridgeError::Invalid {
                 what: what(&field),
@@ -255,6 +311,14 @@ impl Bridge {
                 });
             }
             check_positive(&what("shunt target strain"), s.target_strain)?;
+            // A shunt simulates ε = R / (GF (R + Rs)) < 1/GF: a target at or beyond that needs
+            // no resistor at all; a few percent is already far beyond any grid.
+            check_plausible(
+                &what("shunt target strain"),
+                s.target_strain,
+                (0.0, 0.05),
+                "",
+            )?;
         }
         Ok(())
     }

@@ -40,13 +40,23 @@ pub(crate) fn check_fraction(what: &str, value: f64, lo: f64, hi: f64) -> Result
     }
 }
 
-pub(crate) fn check_non_negative(what: &str, value: f64) -> Result<(), BridgeError> {
-    if value.is_finite() && value >= 0.0 {
+/// A value that must lie in a plausible range for its quantity: outside it, it is a typo or a
+/// slip of unit, not a plan. `unit` follows the numbers in the message.
+pub(crate) fn check_plausible(
+    what: &str,
+    value: f64,
+    (lo, hi): (f64, f64),
+    unit: &str,
+) -> Result<(), BridgeError> {
+    if value.is_finite() && (lo..=hi).contains(&value) {
         Ok(())
     } else {
         Err(BridgeError::Invalid {
             what: what.to_owned(),
-            why: format!("must be zero or a positive number, got {value}"),
+            why: format!(
+                "{value}{unit} is not plausible: enter a value between {lo}{unit} and {hi}{unit} \
+                 (check the unit)"
+            ),
         })
     }
 }

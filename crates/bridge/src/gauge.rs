@@ -4,7 +4,7 @@ use gw_mechanics::transverse::CALIBRATION_POISSON_RATIO;
 use gw_mechanics::{GridFootprint, SurfacePoint};
 use serde::{Deserialize, Serialize};
 
-use crate::error::{BridgeError, check_fraction, check_positive};
+use crate::error::{BridgeError, check_fraction, check_plausible, check_positive};
 
 /// The layout of grids in one gauge. Element angles are measured from the gauge's reference
 /// direction.
@@ -212,6 +212,7 @@ impl GaugeSpec {
         check_positive("strain limit", self.strain_limit)?;
         check_positive("fatigue strain limit", self.fatigue_strain_limit)?;
         check_positive("allowed power density", self.max_power_density_w_m2)?;
+        self.validate_plausible()?;
         if let Some(reference) = self.thermal_output.reference_gauge_factor {
             check_positive(
                 "reference gauge factor of the thermal-output curve",
@@ -240,6 +241,46 @@ impl GaugeSpec {
             });
         }
         Ok(())
+    }
+
+    /// Ranges outside which a value is a typo or a slip of unit, not a gauge: a strain limit
+    /// of 80 or a grid a metre long. The bounds are wide (semiconductor grids reach gauge
+    /// factors above 100; post-yield grids strain 20 %) and ours, not a maker's.
+    fn validate_plausible(&self) -> Result<(), BridgeError> {
+        check_plausible("grid length", self.grid_length_m * 1e3, (0.0, 200.0), " mm")?;
+        check_plausible("grid width", self.grid_width_m * 1e3, (0.0, 200.0), " mm")?;
+        check_plausible(
+            "grid resistance",
+            self.resistance_ohm,
+            (0.0, 100_000.0),
+            " Ω",
+        )?;
+        check_plausible("gauge factor", self.gauge_factor, (0.0, 200.0), "")?;
+        check_plausible("strain limit", self.strain_limit, (0.0, 0.3), "")?;
+        check_plausible(
+            "fatigue strain limit",
+            self.fatigue_strain_limit,
+            (0.0, 0.3),
+            "",
+        )?;
+        check_plausible(
+            "allowed power density",
+            self.max_power_density_w_m2 / 1e3,
+            (0.0, 1000.0),
+            " kW/m²",
+        )?;
+        check_plausible(
+            "gauge-factor drift",
+            self.gauge_factor_temp_coeff_per_c,
+            (-0.01, 0.01),
+            " /°C",
+        )?;
+        check_plausible(
+            "expansion of the matched material",
+            self.thermal_output.matched_cte_per_c * 1e6,
+            (-50.0, 100.0),
+            " ppm/°C",
+        )
     }
 
     /// Gauge factor at `t_c` given the reference temperature.

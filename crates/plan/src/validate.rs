@@ -14,12 +14,16 @@ fn invalid(path: String, message: impl Into<String>) -> PlanError {
     }
 }
 
+/// Absolute zero, °C: no temperature of a plan lies below it.
+const ABSOLUTE_ZERO_C: f64 = -273.15;
+
 /// Checks the whole project.
 pub fn validate_project(project: &Project) -> Result<(), PlanError> {
-    if !project.reference_temperature_c.is_finite() {
+    let t_ref = project.reference_temperature_c;
+    if !(t_ref.is_finite() && (ABSOLUTE_ZERO_C..=1000.0).contains(&t_ref)) {
         return Err(invalid(
             "project".into(),
-            "reference temperature is not a number",
+            format!("reference temperature {t_ref} °C must lie between −273.15 °C and 1000 °C"),
         ));
     }
     if !(project.warn_utilisation > 0.0 && project.warn_utilisation <= 1.0) {
@@ -41,6 +45,27 @@ pub fn validate_project(project: &Project) -> Result<(), PlanError> {
     validate_stock(&project.gauge_stock)?;
     for part in &project.parts {
         validate_part(part, &project.gauge_stock)?;
+        validate_temperatures(part, t_ref)?;
+    }
+    Ok(())
+}
+
+/// No load case takes the part below absolute zero, by its temperature change or its range.
+fn validate_temperatures(part: &Part, t_ref: f64) -> Result<(), PlanError> {
+    for case in &part.load_cases {
+        let dt = case.value(LoadComponent::TemperatureChange);
+        let lowest = (t_ref + dt)
+            .min(t_ref + case.temperature_range_c.0)
+            .min(t_ref + case.temperature_range_c.1);
+        if lowest < ABSOLUTE_ZERO_C {
+            return Err(invalid(
+                format!("part \"{}\" › load case \"{}\"", part.name, case.name),
+                format!(
+                    "takes the part to {lowest:.2} °C, below absolute zero (−273.15 °C); \
+                     temperatures here are changes from the reference {t_ref} °C"
+                ),
+            ));
+        }
     }
     Ok(())
 }
@@ -256,8 +281,12 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
         part.member
             .state(&gauge.position, &LoadVector::ZERO)
             .map_err(|e| invalid(at.clone(), e.to_string()))?;
-        if !gauge.angle_rad.is_finite() {
-            return Err(invalid(at, "angle is not a number"));
+        let degrees = gauge.angle_rad.to_degrees();
+        if !(degrees.is_finite() && degrees.abs() <= 360.0) {
+            return Err(invalid(
+                at,
+                format!("angle {degrees}° is not plausible: enter an angle between −360° and 360°"),
+            ));
         }
     }
     let gauges = crate::document::placed_gauges(stock, part);
