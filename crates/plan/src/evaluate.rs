@@ -248,7 +248,10 @@ pub fn evaluate(project: &Project, options: &EvalOptions) -> Evaluation {
     let mut findings = Vec::new();
     let mut parts = Vec::new();
     for (pi, part) in project.parts.iter().enumerate() {
-        if let Err(e) = validate_part(part, &project.gauge_stock) {
+        let checked = validate_part(part, &project.gauge_stock).and_then(|()| {
+            crate::validate::validate_temperatures(part, project.reference_temperature_c)
+        });
+        if let Err(e) = checked {
             findings.push(Finding {
                 severity: Severity::Error,
                 message: e.to_string(),
@@ -258,6 +261,7 @@ pub fn evaluate(project: &Project, options: &EvalOptions) -> Evaluation {
         }
         parts.push(evaluate_part(project, pi, part, options, &mut findings));
     }
+    findings.extend(crate::conflicts::bridge_conflicts(project));
     findings.sort_by_key(|f| f.severity);
     Evaluation {
         project: project.name.clone(),

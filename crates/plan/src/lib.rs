@@ -16,6 +16,7 @@ pub mod blank;
 pub mod cautions;
 pub mod channel_list;
 pub mod cli;
+pub mod conflicts;
 pub mod demo;
 pub mod document;
 pub mod drawing;

@@ -51,7 +51,7 @@ pub fn validate_project(project: &Project) -> Result<(), PlanError> {
 }
 
 /// No load case takes the part below absolute zero, by its temperature change or its range.
-fn validate_temperatures(part: &Part, t_ref: f64) -> Result<(), PlanError> {
+pub fn validate_temperatures(part: &Part, t_ref: f64) -> Result<(), PlanError> {
     for case in &part.load_cases {
         let dt = case.value(LoadComponent::TemperatureChange);
         let lowest = (t_ref + dt)
@@ -211,7 +211,13 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
     let carried = part.member.components();
     for case in &part.load_cases {
         let at = format!("{here} › load case \"{}\"", case.name);
-        for (c, v) in &case.loads {
+        for (k, (c, v)) in case.loads.iter().enumerate() {
+            if case.loads[..k].iter().any(|(d, _)| d == c) {
+                return Err(invalid(
+                    at.clone(),
+                    format!("{} is listed twice; keep one value", c.name()),
+                ));
+            }
             if !v.is_finite() {
                 return Err(invalid(at.clone(), format!("{} is not a number", c.name())));
             }
