@@ -326,8 +326,9 @@ fn suggestions_ui(
         Ok((list, wired)) => {
             ui.label(
                 "Ranked by the error each leaves in the wanted load at its rated value: \
-                 unwanted loads, temperature (leads included), nonlinearity, noise, one count \
-                 and placement tolerance.",
+                 unwanted loads, temperature (leads included) and nonlinearity at their worst, \
+                 plus twice the root sum of squares of noise, quantization and placement \
+                 tolerance (about a 95 % bound).",
             );
             if let Some(w) = wired {
                 ui.add(egui::Label::new(format!("As wired: {}", capitalise(&w.reason))).wrap());

@@ -31,6 +31,14 @@ const METHOD: &[(&str, &str)] = &[
         "Linear propagation per JCGM 100:2008 with the inputs listed in the budget; the expanded uncertainty covers 95 %, with k from the budget itself (JCGM 100:2008, Annex G): Student's t at the Welch–Satterthwaite degrees of freedom (1.96 when every input is known by its bounds), or, when one rectangular input carries at least half the variance, the factor of that rectangle convolved with a normal of the rest (down to 1.65 for a rectangle alone). Monte Carlo per JCGM 101:2008 on request.",
     ),
     (
+        "Suggestions",
+        "Suggest arrangements tries every assignment of the placed grids to the four arms and ranks them by the error each leaves in the wanted load at its rated value, in the load's own unit: unwanted loads, temperature (leads and completion resistors included) and nonlinearity at their worst, plus twice the root sum of squares of noise, quantization and placement tolerance. An arrangement whose full-scale output is below one count of the channel is left out; the catalogue offers only the arrangements that read the wanted load on this part.",
+    ),
+    (
+        "Accuracy",
+        "A bridge may state the accuracy it needs (± % of reading, or ± in the measured unit). In each load case its reading is converted to the wanted load with the part's strain per unit load; the error of that figure (leakage, temperature, leads, gauge effects) plus the expanded uncertainty at that case must fit inside the requirement, a margin like the others.",
+    ),
+    (
         "Margins",
         "Pass below the warning level (80 % by default), warn up to 100 %, fail above. Limits for grid strain, fatigue and power density come from the gauge data; edit them to your gauge lot.",
     ),
