@@ -65,6 +65,21 @@ fn rows() -> Vec<(&'static str, Vec<u8>, Expect)> {
             Refused(&["nested too deeply"]),
         ),
         (
+            "a misspelt field",
+            edited("warn_utilisation:", "warn_utilisaton:"),
+            Refused(&["did you mean `warn_utilisation`?", "the project"]),
+        ),
+        (
+            "a misspelt load",
+            edited("VerticalForce", "VerticalForse"),
+            Refused(&["did you mean `VerticalForce`?", "load components"]),
+        ),
+        (
+            "a field the format does not have",
+            edited("notes:", "colour_of_the_sky: 3, notes:"),
+            Refused(&["`colour_of_the_sky` is not a field", "`notes`"]),
+        ),
+        (
             "a misalignment of a billion radians",
             edited(
                 "misalignment_rad: 0.017453292519943295",
@@ -150,10 +165,14 @@ fn check_row(name: &str, path: &Path, expect: &Expect) {
             for w in *words {
                 assert!(e.contains(w), "{name}: {e:?} lacks {w:?}");
             }
-            assert!(
-                !e.contains("VersionProbe"),
-                "{name}: internal name in {e:?}"
-            );
+            for internal in [
+                "VersionProbe",
+                "`Project`",
+                "`LoadComponent`",
+                "recursion_limit",
+            ] {
+                assert!(!e.contains(internal), "{name}: {internal} in {e:?}");
+            }
         }
         (Ok(()), Expect::Refused(_)) => panic!("{name}: loaded but should be refused"),
         (Err(e), Expect::Loads) => panic!("{name}: refused: {e}"),

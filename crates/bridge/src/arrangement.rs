@@ -16,6 +16,7 @@ use crate::gauge::{GaugeSpec, PlacedGauge};
 
 /// What goes in an arm of a catalogue entry (gauge indices refer to the entry's own gauges).
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum ArmSlot {
     /// Grid `element` of the entry's gauge `gauge`.
     Grid { gauge: usize, element: usize },
@@ -27,6 +28,7 @@ pub enum ArmSlot {
 
 /// One standard arrangement on this part.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct CatalogueEntry {
     /// Plain descriptive name.
     pub name: String,

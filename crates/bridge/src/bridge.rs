@@ -11,6 +11,7 @@ use crate::signal_chain::LowPassFilter;
 
 /// A fixed resistor that completes the bridge (at the instrument).
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct CompletionResistor {
     /// Nominal resistance, Ω.
     pub ohm: f64,
@@ -22,6 +23,7 @@ pub struct CompletionResistor {
 
 /// What occupies one arm.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum ArmElement {
     /// An active grid on the part.
     Grid(GridRef),
@@ -49,6 +51,7 @@ impl ArmElement {
 
 /// Lead wires from the gauge site to the instrument (all leads alike).
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct LeadWire {
     /// Length of one lead, m.
     pub length_m: f64,
@@ -63,6 +66,7 @@ pub const COPPER_TCR_PER_C: f64 = 0.0039;
 
 /// How the instrument converts the output to a displayed strain.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct InstrumentSetting {
     /// Gauge factor set on the instrument.
     pub gauge_factor: f64,
@@ -74,6 +78,7 @@ pub struct InstrumentSetting {
 
 /// The acquisition channel behind the bridge.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct SignalChain {
     /// Amplifier voltage gain.
     pub gain: f64,
@@ -98,6 +103,7 @@ pub struct SignalChain {
 
 /// Whether the completion resistors follow the part's temperature. Default: fixed.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum InstrumentTemperature {
     /// The instrument stays at the reference temperature.
     #[default]
@@ -108,6 +114,7 @@ pub enum InstrumentTemperature {
 
 /// A planned shunt calibration.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct ShuntPlan {
     /// Arm index 0..4 the resistor goes across.
     pub arm: usize,
@@ -119,6 +126,7 @@ pub struct ShuntPlan {
 
 /// A Wheatstone bridge.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct Bridge {
     /// Name shown everywhere, e.g. "Bending at root".
     pub name: String,

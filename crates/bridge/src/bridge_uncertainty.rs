@@ -16,6 +16,7 @@ use crate::uncertainty::{
 /// How well the installation and its environment are known. Defaults are ours; edit them to
 /// the job.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct InstallationTolerances {
     /// Standard uncertainty of each grid's direction, rad (default 1°, common practice for
     /// careful hand layout).

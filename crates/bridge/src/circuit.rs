@@ -23,6 +23,7 @@ use crate::network::{CurrentSource, Network, NetworkError, Node, Solution, Volta
 
 /// How leads connect the gauge site to the instrument. Default: [`LeadWiring::ThreeWire`].
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum LeadWiring {
     /// One lead per bridge corner used at the gauge site; at a corner shared by a grid and an
     /// instrument-side resistor, the lead sits in the grid's arm (both leads of a quarter bridge
@@ -93,6 +94,7 @@ impl LeadWiring {
 
 /// Bridge excitation. Default: constant voltage 5 V.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum Excitation {
     /// Constant voltage, V.
     Voltage { volts: f64 },
@@ -108,6 +110,7 @@ impl Default for Excitation {
 
 /// Where a shunt-calibration resistor is connected. Default: at the instrument.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum ShuntLocation {
     /// Directly across the arm at the gauge site.
     GaugeEnd,

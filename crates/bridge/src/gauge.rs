@@ -9,6 +9,7 @@ use crate::error::{BridgeError, check_fraction, check_plausible, check_positive}
 /// The layout of grids in one gauge. Element angles are measured from the gauge's reference
 /// direction.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum GaugePattern {
     /// One grid along the reference direction.
     SingleGrid,
@@ -63,6 +64,7 @@ impl GaugePattern {
 /// (Dally & Riley, *Experimental Stress Analysis*, 3rd ed., Ch. 6, temperature compensation;
 /// from memory for the exact form).
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct ThermalOutput {
     /// Expansion coefficient of the material the gauge is matched to, 1/°C.
     pub matched_cte_per_c: f64,
@@ -155,6 +157,7 @@ impl ThermalOutput {
 
 /// A gauge type: what a data sheet gives for one gauge lot.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct GaugeSpec {
     /// Grid layout.
     pub pattern: GaugePattern,
@@ -296,6 +299,7 @@ impl GaugeSpec {
 
 /// A gauge placed on the part.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct PlacedGauge {
     /// Short identifier shown on drawings and the build sheet, e.g. "G1".
     pub id: String,
@@ -332,6 +336,7 @@ impl PlacedGauge {
 
 /// One grid of one placed gauge: (gauge index, element index).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct GridRef {
     /// Index into the gauge list.
     pub gauge: usize,

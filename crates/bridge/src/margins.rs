@@ -8,6 +8,7 @@ pub const DEFAULT_WARN_UTILISATION: f64 = 0.8;
 
 /// Outcome of one margin check.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum MarginStatus {
     /// Well inside the limit.
     Pass,
@@ -30,6 +31,7 @@ impl MarginStatus {
 
 /// What a margin compares.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum MarginKind {
     /// Grid strain against the gauge's strain limit.
     GridStrainLimit,

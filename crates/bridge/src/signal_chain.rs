@@ -27,6 +27,7 @@ pub fn johnson_noise_v(resistance_ohm: f64, temperature_k: f64, bandwidth_hz: f6
 /// filter set, and it has the widest noise bandwidth of the kinds here, so a channel whose
 /// filter is not stated never has its noise understated.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum LowPassFilter {
     /// One pole (an RC section, or the amplifier's own roll-off): noise bandwidth π/2 × the
     /// cut-off.

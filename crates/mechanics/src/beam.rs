@@ -13,6 +13,7 @@ use crate::surface_state::SurfaceState;
 
 /// How a beam is supported. Default: [`BeamSupport::Cantilever`].
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum BeamSupport {
     /// Fixed at x = 0, free at x = L.
     #[default]
@@ -28,6 +29,7 @@ pub enum BeamSupport {
 /// bending with a total force P is two points with multiple 0.5; two equal wheel loads of P
 /// each are two points with multiple 1.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct LoadPoint {
     /// Position along the beam, metres from x = 0.
     pub position_m: f64,
@@ -47,6 +49,7 @@ impl LoadPoint {
 
 /// A straight prismatic beam along x from 0 to `length_m`.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 #[serde(from = "BeamFile")]
 pub struct Beam {
     /// Cross-section.
@@ -64,6 +67,7 @@ pub struct Beam {
 
 /// A beam as files store it: `load_points`, or the single `load_position_m` of earlier files.
 #[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
 struct BeamFile {
     section: Section,
     material: Material,

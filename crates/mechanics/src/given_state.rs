@@ -11,6 +11,7 @@ use crate::surface_state::{SurfaceState, SurfaceStrain};
 
 /// How the user gave the state.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum GivenQuantity {
     /// Strains εx, εy, γxy, m/m.
     Strain(SurfaceStrain),
@@ -25,6 +26,7 @@ pub enum GivenQuantity {
 /// A uniform state on a rectangular patch centred on the origin. It scales with the
 /// [`LoadComponent::GivenStateFactor`] component (1 = as given).
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct GivenState {
     /// The state at factor 1.
     pub quantity: GivenQuantity,

@@ -12,6 +12,7 @@ use crate::surface_state::SurfaceState;
 /// A grid's active area on the surface: a rectangle centred on `center`, its length along
 /// `angle_rad` (from local x towards local y).
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct GridFootprint {
     /// Centre of the active grid area.
     pub center: SurfacePoint,

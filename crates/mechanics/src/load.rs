@@ -10,6 +10,7 @@ use serde::{Deserialize, Serialize};
 
 /// One kind of load a member can carry. Sign conventions are given per variant.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum LoadComponent {
     /// Axial force along the member axis, N, positive in tension.
     AxialForce,
@@ -114,6 +115,7 @@ impl LoadComponent {
 
 /// A value for every load component, SI units as given on [`LoadComponent`].
 #[derive(Debug, Clone, Copy, PartialEq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct LoadVector(pub [f64; LoadComponent::COUNT]);
 
 impl LoadVector {

@@ -6,6 +6,7 @@ use crate::error::{MechanicsError, Result, finite, positive};
 
 /// An isotropic, linear-elastic material.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct Material {
     /// Display name, e.g. "Carbon steel".
     pub name: String,

@@ -53,6 +53,7 @@ fn von_mises_3d([a, b, c]: [f64; 3]) -> f64 {
 
 /// A part whose surface strains Gaugewright can compute.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum Member {
     /// Prismatic beam or bar.
     Beam(Beam),

@@ -11,6 +11,7 @@ use crate::surface_state::SurfaceState;
 /// A plate with a central circular hole. The solution is for an infinite plate; `width_m` and
 /// `height_m` bound the region that can be gauged and drawn. Coordinates from the hole centre.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct PlateWithHole {
     /// Hole diameter, metres.
     pub hole_diameter_m: f64,

@@ -9,6 +9,7 @@ use crate::surface_state::{Principal, SurfaceState, SurfaceStrain};
 
 /// Rosette layouts. Element angles are measured from the rosette's reference direction.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum RosetteKind {
     /// Two grids at 0° and 90°.
     TwoElement90,

@@ -12,6 +12,7 @@ use crate::error::{Result, inner_smaller, positive_dimension};
 
 /// The shape of a member's cross-section. Dimensions in metres.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum Section {
     /// Solid rectangle, `width_m` along y, `height_m` along z.
     Rectangle { width_m: f64, height_m: f64 },

@@ -12,6 +12,7 @@ use crate::surface_state::SurfaceState;
 
 /// A round shaft along x from 0 to `length_m`; loads are constant along it.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct Shaft {
     /// Outer diameter, metres.
     pub outer_diameter_m: f64,

@@ -10,6 +10,7 @@ use serde::{Deserialize, Serialize};
 
 /// A face of a part.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum Face {
     /// Top face of a beam (outward normal +z); `s` runs towards +y from the centre line.
     Top,
@@ -43,6 +44,7 @@ impl Face {
 
 /// A point on a part's surface.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct SurfacePoint {
     /// Face the point is on.
     pub face: Face,

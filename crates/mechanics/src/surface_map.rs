@@ -11,6 +11,7 @@ use crate::surface_state::SurfaceState;
 
 /// The quantity a map shows.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum SurfaceQuantity {
     /// Normal strain along a direction, radians from local x; m/m.
     StrainAlong(f64),
@@ -28,6 +29,7 @@ pub enum SurfaceQuantity {
 /// load's own pattern (a shaft's neutral axis, a vessel's hoop-to-axial ratio) under one
 /// uniform shift, so maps show the mechanical strain unless asked otherwise.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum StrainBasis {
     /// Total minus free thermal strain: the part of the strain that carries stress.
     #[default]

@@ -12,6 +12,7 @@ use crate::material::Material;
 
 /// In-plane strains at a surface point, as plain ratios (m/m).
 #[derive(Debug, Clone, Copy, PartialEq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct SurfaceStrain {
     /// Normal strain along local x.
     pub normal_x: f64,
@@ -137,6 +138,7 @@ impl Mul<f64> for SurfaceStrain {
 /// In-plane stresses at a surface point, Pa, plus the stress normal to the surface
 /// (zero on a free surface, −p under an external pressure p).
 #[derive(Debug, Clone, Copy, PartialEq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct SurfaceStress {
     /// σx, Pa.
     pub normal_x_pa: f64,
@@ -173,6 +175,7 @@ impl SurfaceStress {
 ///
 /// All fields are linear in the loads, so states superpose by addition.
 #[derive(Debug, Clone, Copy, PartialEq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct SurfaceState {
     /// Total in-plane strain (what a perfectly compensated gauge reads), m/m.
     pub strain: SurfaceStrain,

@@ -11,6 +11,7 @@ use crate::thin_cylinder::VesselEnds;
 
 /// A thick-walled cylinder; gauges sit on the outer surface. Local x axial, local y hoop.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct ThickCylinder {
     /// Outer diameter, metres.
     pub outer_diameter_m: f64,

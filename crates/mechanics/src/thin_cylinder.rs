@@ -10,6 +10,7 @@ use crate::surface_state::SurfaceState;
 
 /// Whether a cylinder's ends carry the pressure axially. Default: closed.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum VesselEnds {
     /// Capped ends: the pressure on the caps loads the wall axially.
     #[default]
@@ -41,6 +42,7 @@ pub(crate) fn check_thin_wall(mean_radius_m: f64, wall_m: f64) -> Result<()> {
 /// the outer radius; the membrane stresses stay the design figures). Local x is axial, local y
 /// is hoop.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct ThinCylinder {
     /// Outer diameter, metres.
     pub outer_diameter_m: f64,

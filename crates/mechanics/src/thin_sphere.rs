@@ -13,6 +13,7 @@ use crate::thin_cylinder::check_thin_wall;
 /// radius; the membrane stress stays the design figure). Local x is meridional (`x_m` is the
 /// meridian arc from the equator), local y is along the parallel.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct ThinSphere {
     /// Outer diameter, metres.
     pub outer_diameter_m: f64,

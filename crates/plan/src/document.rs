@@ -14,6 +14,7 @@ pub const FORMAT_VERSION: u32 = 2;
 
 /// Paper size for the build sheet. Default: A4.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum PaperSize {
     /// ISO A4, 210 × 297 mm.
     #[default]
@@ -24,6 +25,7 @@ pub enum PaperSize {
 
 /// A whole plan.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct Project {
     /// Format version of the file.
     pub format_version: u32,
@@ -69,6 +71,7 @@ fn default_warn() -> f64 {
 /// Lead colours by conductor role. The default scheme is the project's own; edit to the
 /// site's practice.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct LeadColours {
     /// Excitation +.
     pub excitation_pos: String,
@@ -99,6 +102,7 @@ impl Default for LeadColours {
 
 /// One part with its loads, gauges and bridges.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct Part {
     /// Name, e.g. "Drum drive shaft".
     pub name: String,
@@ -125,6 +129,7 @@ pub struct Part {
 
 /// A named load case.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct LoadCase {
     /// Name, e.g. "Rated pull".
     pub name: String,
@@ -171,6 +176,7 @@ impl LoadCase {
 
 /// What goes in one arm, by gauge id.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum PlanArm {
     /// Grid number `grid` (1-based) of gauge `gauge`.
     Grid { gauge: String, grid: usize },
@@ -182,6 +188,7 @@ pub enum PlanArm {
 
 /// A bridge in the plan.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct BridgePlan {
     /// Name, e.g. "Drive torque".
     pub name: String,
@@ -227,6 +234,7 @@ pub struct BridgePlan {
 /// leaks from unwanted loads, temperature, leads and the rest of the error breakdown) plus the
 /// expanded uncertainty must stay inside it in every load case.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub enum RequiredAccuracy {
     /// ± this percentage of the wanted load in each case.
     PercentOfReading(f64),
@@ -260,6 +268,7 @@ impl BridgePlan {
 
 /// A bridge factor set by hand, with the reason for not using the computed one.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct BridgeFactorOverride {
     /// The bridge factor the instrument is set to.
     pub value: f64,
@@ -269,6 +278,7 @@ pub struct BridgeFactorOverride {
 
 /// A gauge type in the project's stock: what a data sheet gives, defined once.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct StockGauge {
     /// Name the placed gauges refer to, e.g. "3 mm single grid, 350 Ω".
     pub name: String,
@@ -278,6 +288,7 @@ pub struct StockGauge {
 
 /// The values of one gauge's lot where they differ from its stock type.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct GaugeLot {
     /// Lot number printed on the packet.
     #[serde(default)]
@@ -323,6 +334,7 @@ impl GaugeLot {
 /// A gauge placed on a part: a stock type (with its lot's values where they differ), a
 /// position and a direction.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
 pub struct PlanGauge {
     /// Short identifier shown on drawings and the build sheet, e.g. "G1".
     pub id: String,

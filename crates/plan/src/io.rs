@@ -42,47 +42,8 @@ fn syntax(e: &ron::error::SpannedError) -> PlanError {
     PlanError::Syntax {
         line: e.span.start.line,
         column: e.span.start.col,
-        message: user_words(&e.code),
+        message: crate::parse_errors::user_words(&e.code),
     }
-}
-
-/// The parser's message in the user's words: no internal type names, no advice meant for
-/// programmers, no token so long that it buries the message.
-fn user_words(code: &ron::Error) -> String {
-    if matches!(code, ron::Error::ExceededRecursionLimit) {
-        return "the file is nested too deeply to be a project (brackets inside brackets, \
-                hundreds deep)"
-            .to_owned();
-    }
-    let text = code
-        .to_string()
-        .replace(
-            "struct `VersionProbe`",
-            "a project, \
-        `(format_version: 2, …)`,",
-        )
-        .replace("`VersionProbe`", "the project");
-    shorten_quoted(&text, 40)
-}
-
-/// Every `quoted` token longer than `limit` characters cut to its start and end.
-fn shorten_quoted(text: &str, limit: usize) -> String {
-    let parts: Vec<&str> = text.split('`').collect();
-    parts
-        .iter()
-        .enumerate()
-        .map(|(i, p)| {
-            let n = p.chars().count();
-            if i % 2 == 1 && n > limit {
-                let head: String = p.chars().take(limit / 2).collect();
-                let tail: String = p.chars().skip(n - limit / 4).collect();
-                format!("{head}…{tail} ({n} characters)")
-            } else {
-                (*p).to_owned()
-            }
-        })
-        .collect::<Vec<_>>()
-        .join("`")
 }
 
 /// Reads a document of format version `from`, upgrading older versions

@@ -25,6 +25,7 @@ pub mod evaluate;
 pub mod gallery;
 pub mod io;
 pub mod migrate;
+pub mod parse_errors;
 pub mod placement;
 pub mod safe_write;
 pub mod sheet;

@@ -23,7 +23,11 @@ pub const KEPT_FROM_VERSION_1: &str =
     "kept from a version-1 file, where the bridge factor was typed; remove to use the computed one";
 
 #[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
 pub(crate) struct ProjectV1 {
+    /// Read (it says the file is version 1) and otherwise unused.
+    #[serde(default, rename = "format_version")]
+    _format_version: u32,
     name: String,
     #[serde(default)]
     revision: String,
@@ -50,6 +54,7 @@ fn default_warn() -> f64 {
 }
 
 #[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
 struct PartV1 {
     name: String,
     member: Member,
@@ -66,6 +71,7 @@ struct PartV1 {
 }
 
 #[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
 struct BridgePlanV1 {
     name: String,
     #[serde(default)]
