@@ -123,17 +123,17 @@ impl RankedArrangement {
     }
 }
 
-/// What each gauge or dummy costs in the ranking, as a fraction of the rated load: between two
-/// arrangements whose errors differ by less than this per extra gauge, the one with fewer
-/// gauges ranks first (our choice: fewer gauges mean less installation work and fewer things
-/// to go wrong).
-pub const GAUGE_COST_FRACTION: f64 = 1e-4;
+/// What each gauge or dummy costs in the ranking: an arrangement with one more must cut the
+/// error at rated load by about this fraction of itself to rank higher (our choice: fewer
+/// gauges mean less installation work and fewer things to go wrong, so a gauge has to earn its
+/// place; 5 % per gauge).
+pub const GAUGE_COST_FRACTION: f64 = 0.05;
 
 /// Ranking score from the error at rated load as a fraction of the rated load and the number
-/// of gauges: higher is better. Strictly decreasing in each, so an entry that is worse in one
-/// and equal in the other always ranks lower.
+/// of gauges: higher is better, −error × (1 + cost)^gauges. Strictly decreasing in each (for a
+/// non-zero error), so an entry that is worse in one and equal in the other always ranks lower.
 pub fn score(error_fraction: f64, gauge_count: usize) -> f64 {
-    -error_fraction.abs() - GAUGE_COST_FRACTION * gauge_count as f64
+    -error_fraction.abs() * (1.0 + GAUGE_COST_FRACTION).powi(gauge_count as i32)
 }
 
 /// Ranks every arm assignment of the placed grids for the request.

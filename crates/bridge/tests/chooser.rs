@@ -219,3 +219,49 @@ fn a_wanted_load_without_a_rated_value_is_refused_with_the_way_out() {
     let err = choose(&member, &gauges(), &req, QuadratureOrder::default()).unwrap_err();
     assert!(err.to_string().contains("load case"), "{err}");
 }
+
+#[test]
+fn a_dummy_is_offered_like_each_kind_of_grid_so_its_temperature_cancels() {
+    // Two gauges from lots with different thermal output: a dummy cancels a grid's
+    // temperature only if it is like that grid, so each lot gets its own dummy.
+    let member = cantilever();
+    let mut g2 = single("G2", Face::Bottom, 0.1, 0.0);
+    g2.spec.thermal_output.matched_cte_per_c = 16e-6;
+    let gauges = vec![single("G1", Face::Top, 0.1, 0.0), g2];
+    let req = request(vec![], 500);
+    let ranked = choose(&member, &gauges, &req, QuadratureOrder::default()).unwrap();
+    let like = |r: &RankedArrangement, gauge: usize| {
+        r.arms
+            .iter()
+            .any(|a| matches!(a, ArmElement::Dummy(g) if g.gauge == gauge))
+    };
+    let with_g2_dummy = ranked
+        .iter()
+        .find(|r| like(r, 1) && !like(r, 0))
+        .expect("a dummy like G2 is offered");
+    assert!(
+        with_g2_dummy.reason.contains("dummy like G2/1"),
+        "{}",
+        with_g2_dummy.reason
+    );
+    // G2 alone with its own dummy in the adjacent arm: the mismatch of its lot cancels.
+    let c = ArmElement::Completion(completion());
+    let dummy = ArmElement::Dummy(GridRef {
+        gauge: 1,
+        element: 0,
+    });
+    let own = assess(
+        &member,
+        &gauges,
+        &req,
+        &[dummy, grid(1, 0), c, c],
+        QuadratureOrder::default(),
+    )
+    .unwrap()
+    .expect("reads the load");
+    assert!(
+        own.error.temperature.abs() < 1e-6 * 1000.0,
+        "{}",
+        own.reason
+    );
+}

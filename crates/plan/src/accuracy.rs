@@ -49,6 +49,18 @@ pub struct AccuracyCheck {
 }
 
 impl AccuracyCheck {
+    /// What to do about a miss, by what dominates it: the uncertainty, or the known errors.
+    pub fn advice(&self) -> &'static str {
+        if self.expanded_uncertainty >= (self.inferred - self.applied).abs() {
+            "most of it is uncertainty: its budget names the largest input (often the lot's \
+             gauge-factor tolerance, which a calibration of the bridge removes), or relax the \
+             requirement"
+        } else {
+            "most of it is known error: choose an arrangement that cancels what leaks, shorten or \
+             compensate the leads, or relax the requirement"
+        }
+    }
+
     /// |inferred − applied| + expanded uncertainty.
     pub fn predicted(&self) -> f64 {
         (self.inferred - self.applied).abs() + self.expanded_uncertainty
@@ -58,9 +70,9 @@ impl AccuracyCheck {
     pub fn describe(&self, unit: &str) -> String {
         let asked = match self.required {
             RequiredAccuracy::PercentOfReading(p) => {
-                format!("{p} % of {}", si(self.applied.abs(), unit))
+                format!(" ({p} % of {})", si(self.applied.abs(), unit))
             }
-            RequiredAccuracy::InMeasuredUnit(_) => "as stated".to_owned(),
+            RequiredAccuracy::InMeasuredUnit(_) => String::new(),
         };
         let mut parts = Vec::new();
         // Below a millionth of the load a share is rounding, not a cause.
@@ -76,7 +88,7 @@ impl AccuracyCheck {
             }
         }
         let mut line = format!(
-            "predicted error ±{} against the required ±{} ({asked}): reads {} for {}",
+            "predicted error ±{} against the required ±{}{asked}: reads {} for {}",
             si(self.predicted(), unit),
             si(self.allowed, unit),
             si(self.inferred, unit),

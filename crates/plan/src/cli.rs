@@ -52,11 +52,9 @@ pub fn check(path: &Path) -> CliOutput {
         Ok(p) => p,
         Err(e) => return broken(path, &e),
     };
-    let options = EvalOptions {
-        uncertainty: UncertaintyDepth::Off,
-        ..EvalOptions::default()
-    };
-    let ev = evaluate(&project, &options);
+    // With the GUM budgets: a required accuracy is checked with the expanded uncertainty, as
+    // in the app, `eval` and on the build sheet.
+    let ev = evaluate(&project, &EvalOptions::default());
     summary_output(&project, &ev, Detail::Margins)
 }
 

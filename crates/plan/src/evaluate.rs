@@ -507,10 +507,7 @@ fn accuracy_finding(
     let (severity, advice) = match check.margin.status {
         MarginStatus::Pass => return,
         MarginStatus::Warn => (Severity::Warn, "little margin left"),
-        MarginStatus::Fail => (
-            Severity::Fail,
-            "choose an arrangement that cancels what leaks, or relax the requirement",
-        ),
+        MarginStatus::Fail => (Severity::Fail, check.advice()),
     };
     findings.push(Finding {
         severity,

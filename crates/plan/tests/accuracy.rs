@@ -174,3 +174,23 @@ fn a_required_accuracy_that_is_not_positive_is_refused_naming_the_place() {
     assert!(text.contains("required accuracy"), "{text}");
     assert!(text.contains("positive"), "{text}");
 }
+
+#[test]
+fn check_counts_the_uncertainty_in_the_accuracy_as_the_app_does() {
+    // The demo's four-grid bending bridge reads its proof pull within 0.2 % by its error
+    // breakdown alone, but its expanded uncertainty (the lot's gauge-factor tolerance
+    // dominates) is about 1 %: ±1 % of reading is not met, and `check` must say so.
+    let mut project = demo_project();
+    project.parts[0].bridges[0].required_accuracy = Some(RequiredAccuracy::PercentOfReading(1.0));
+    let ev = evaluate(&project, &EvalOptions::default());
+    let proof = ev.parts[0].bridges[0]
+        .accuracy
+        .iter()
+        .find(|a| a.case == "Proof pull")
+        .unwrap()
+        .clone();
+    assert!((proof.inferred - proof.applied).abs() < 0.002 * proof.applied);
+    assert!(proof.margin.utilisation > 1.0, "{proof:?}");
+    let out = check(&saved(&project, "with-uncertainty"));
+    assert_eq!(out.code, 1, "{}", out.stdout);
+}

@@ -2133,14 +2133,22 @@ pub fn bridge_groups(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<G
         },
         Group {
             title: "Accuracy",
-            fields: accuracy_fields(plan),
+            fields: accuracy_fields(part, plan),
         },
     ]
 }
 
 /// The accuracy the engineer requires of the bridge: none, a percentage of reading, or an
 /// amount in the measured unit.
-fn accuracy_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
+fn accuracy_fields(part: &Part, plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
+    // A first amount in the unit: 1 % of the largest wanted load the cases apply (common
+    // practice as a starting point), so the choice does not fail at once on a tiny default.
+    let largest = part
+        .load_cases
+        .iter()
+        .map(|c| c.value(plan.wanted).abs())
+        .fold(0.0, f64::max);
+    let first_amount = if largest > 0.0 { largest / 100.0 } else { 1.0 };
     let mut out = vec![choice(
         "required_accuracy",
         "Required accuracy",
@@ -2157,7 +2165,7 @@ fn accuracy_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
                 Some(RequiredAccuracy::InMeasuredUnit(_)) => 2,
             })
         },
-        |p, i| {
+        move |p, i| {
             let kept = p.required_accuracy;
             p.required_accuracy = match (i, kept) {
                 (1, Some(RequiredAccuracy::PercentOfReading(v))) => {
@@ -2169,7 +2177,7 @@ fn accuracy_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
                 (2, Some(RequiredAccuracy::InMeasuredUnit(v))) => {
                     Some(RequiredAccuracy::InMeasuredUnit(v))
                 }
-                (2, _) => Some(RequiredAccuracy::InMeasuredUnit(1.0)),
+                (2, _) => Some(RequiredAccuracy::InMeasuredUnit(first_amount)),
                 _ => None,
             }
         },

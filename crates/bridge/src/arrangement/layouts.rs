@@ -242,10 +242,15 @@ fn lateral_bending(out: &mut Vec<CatalogueEntry>, p: &Placer, section: &Section)
         return;
     }
     let spot = |face| beam_spot(section, face);
-    p.basic(out, spot(Face::Back), 0.0, "beam axis on the side");
+    p.basic(
+        out,
+        spot(Face::Back),
+        0.0,
+        "beam axis on the back side (+y)",
+    );
     out.push(entry(
         "Lateral bending pair, both sides",
-        "grids along the axis on the two sides, in adjacent arms",
+        "grids along the axis on the back (+y) and the front (−y) side, in adjacent arms",
         vec![
             p.single(spot(Face::Back), 0.0),
             p.single(spot(Face::Front), 0.0),

@@ -111,14 +111,21 @@ pub(super) fn explain(r: &RankedArrangement, gauges: &[PlacedGauge]) -> String {
                 .get(g.gauge)
                 .map(|p| format!("{}/{}", p.id, g.element + 1))
                 .unwrap_or_default(),
-            ArmElement::Dummy(_) => "dummy".into(),
+            ArmElement::Dummy(g) => gauges
+                .get(g.gauge)
+                .map(|p| format!("dummy like {}/{}", p.id, g.element + 1))
+                .unwrap_or_else(|| "dummy".into()),
             ArmElement::Completion(_) => "resistor".into(),
         })
         .collect();
     let total = r.total_error();
     let mut line = format!(
         "{active} active grid(s){} [{}]; {:.3} mV/V at {}; error at rated load ±{} ({:.2} %)",
-        if dummies > 0 { " and a dummy" } else { "" },
+        match dummies {
+            0 => String::new(),
+            1 => " and a dummy".to_owned(),
+            n => format!(" and {n} dummies"),
+        },
         names.join(", "),
         r.full_scale_mv_per_v,
         si(r.rated, unit),

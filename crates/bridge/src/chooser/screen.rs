@@ -17,6 +17,9 @@ use crate::model::ARM_SIGNS;
 /// How many screened assignments go on to the exact circuit, at least.
 const EXACT_AT_LEAST: usize = 24;
 
+/// How many variants of one set of active arms (differing in dummies and resistors) go on.
+const PASSIVE_VARIANTS: usize = 3;
+
 /// One candidate element for an arm, with its precomputed response.
 #[derive(Debug, Clone)]
 struct Candidate {
@@ -97,17 +100,32 @@ fn candidates(
             });
         }
     }
-    if let Some(first) = out.first().cloned() {
-        let ArmElement::Grid(grid) = first.element else {
-            return Ok(out);
+    // One dummy for each kind of grid that behaves differently with temperature (another lot,
+    // another resistance): a dummy cancels the temperature of a grid only if it is like it.
+    let mut dummies: Vec<Candidate> = Vec::new();
+    for grid in &out {
+        let ArmElement::Grid(g) = grid.element else {
+            continue;
         };
-        out.push(Candidate {
-            element: ArmElement::Dummy(grid),
-            per_unit: [0.0; LoadComponent::COUNT],
-            placement: [0.0; 3],
-            carrier: None,
-            ..first
-        });
+        let ohm = gauges[g.gauge].spec.resistance_ohm;
+        let alike = |d: &Candidate| {
+            let ArmElement::Dummy(h) = d.element else {
+                return false;
+            };
+            d.thermal == grid.thermal && gauges[h.gauge].spec.resistance_ohm == ohm
+        };
+        if !dummies.iter().any(alike) {
+            dummies.push(Candidate {
+                element: ArmElement::Dummy(g),
+                per_unit: [0.0; LoadComponent::COUNT],
+                placement: [0.0; 3],
+                carrier: None,
+                ..grid.clone()
+            });
+        }
+    }
+    if !out.is_empty() {
+        out.extend(dummies);
         out.push(Candidate {
             element: ArmElement::Completion(request.completion),
             per_unit: [0.0; LoadComponent::COUNT],
@@ -230,6 +248,26 @@ pub(super) fn screen(
         .filter_map(|idx| judge(&idx.map(|k| &options[k]), request, floor))
         .collect();
     out.sort_by(|a, b| a.estimate.total_cmp(&b.estimate));
+    // The same grids in the same arms with other passive arms (dummies, resistors) are one
+    // entry in the end: a few of each go on, so that the list is not filled by variants of one.
+    let mut seen: Vec<([Option<GridRef>; 4], usize)> = Vec::new();
+    out.retain(|s| {
+        let active = s.arms.map(|a| match a {
+            ArmElement::Grid(g) => Some(g),
+            _ => None,
+        });
+        match seen.iter_mut().find(|(a, _)| *a == active) {
+            Some((_, n)) if *n >= PASSIVE_VARIANTS => false,
+            Some((_, n)) => {
+                *n += 1;
+                true
+            }
+            None => {
+                seen.push((active, 1));
+                true
+            }
+        }
+    });
     out.truncate(EXACT_AT_LEAST.max(3 * request.keep));
     Ok(out)
 }
@@ -327,8 +365,10 @@ fn judge(
     let placement = placement_ratio(opts, &request.tolerances) / per_unit;
     let random = (noise.powi(2) + count.powi(2) / 12.0).sqrt() / per_unit;
     let gauge_count = opts.iter().map(|o| o.count).sum();
-    let estimate = ((leak + thermal) / per_unit + 2.0 * random.hypot(placement)) / rated
-        + super::GAUGE_COST_FRACTION * gauge_count as f64;
+    let estimate = -super::score(
+        ((leak + thermal) / per_unit + 2.0 * random.hypot(placement)) / rated,
+        gauge_count,
+    );
     Some(Screened {
         arms: opts.map(|o| o.element),
         placement,
