@@ -101,11 +101,11 @@ fn write_summary(out: &mut String, ev: &Evaluation, detail: Detail) {
         for c in &part.cases {
             let _ = writeln!(
                 out,
-                "  {}: peak von Mises {:.1} MPa {}, {:.2} × below yield",
+                "  {}: peak von Mises {:.1} MPa {}, {}",
                 c.case,
                 c.peak_von_mises_pa / 1e6,
                 c.peak_location,
-                c.safety_factor_to_yield
+                c.yield_words()
             );
             if let (Some(membrane), Some(outer)) = (c.membrane_hoop_pa, c.outer_hoop_pa) {
                 let _ = writeln!(

@@ -134,7 +134,8 @@ pub struct Rejection {
     pub component: LoadComponent,
     /// Its expected magnitude (largest over the load cases), SI.
     pub expected: f64,
-    /// Its output at that magnitude over the wanted output at the wanted magnitude.
+    /// Its output at that magnitude over the wanted output at the wanted magnitude (listed only
+    /// where the wanted load has a full scale).
     pub leakage_fraction: f64,
     /// 20 log10(1 / leakage), dB (capped at 200 dB for exact cancellation).
     pub rejection_db: f64,
@@ -192,13 +193,23 @@ pub struct CaseFigures {
     pub peak_von_mises_pa: f64,
     /// Where the largest stress is, in words (a face point, or the bore of a vessel).
     pub peak_location: String,
-    /// Yield strength over the peak stress.
-    pub safety_factor_to_yield: f64,
+    /// Yield strength over the peak stress (`None` when the case leaves the part unstressed).
+    pub safety_factor_to_yield: Option<f64>,
     /// Thin-walled vessels: the hoop stress at the mean radius (membrane, the design figure),
     /// Pa.
     pub membrane_hoop_pa: Option<f64>,
     /// Thin-walled vessels: the hoop stress on the outer surface, where the gauges sit, Pa.
     pub outer_hoop_pa: Option<f64>,
+}
+
+impl CaseFigures {
+    /// "2.32 × below yield", or that the case leaves the part unstressed.
+    pub fn yield_words(&self) -> String {
+        match self.safety_factor_to_yield {
+            Some(f) => format!("{f:.2} × below yield"),
+            None => "no stress from this case".to_owned(),
+        }
+    }
 }
 
 /// Everything computed for one part.
@@ -263,12 +274,19 @@ pub fn evaluate(project: &Project, options: &EvalOptions) -> Evaluation {
     }
     findings.extend(crate::conflicts::bridge_conflicts(project));
     findings.sort_by_key(|f| f.severity);
-    Evaluation {
+    let ev = Evaluation {
         project: project.name.clone(),
         parts,
         findings,
         cautions: cautions(project),
-    }
+    };
+    // Every figure that can reach a screen or a sheet is a number.
+    debug_assert!(
+        crate::finite::first_non_finite(&ev).is_none(),
+        "a figure of the evaluation is not finite: {:?}",
+        crate::finite::first_non_finite(&ev)
+    );
+    ev
 }
 
 fn evaluate_part(
@@ -315,7 +333,7 @@ fn evaluate_part(
                     case: case.name.clone(),
                     peak_von_mises_pa: peak,
                     peak_location: at.describe(),
-                    safety_factor_to_yield: m.safety_factor(),
+                    safety_factor_to_yield: (peak > 0.0).then(|| m.safety_factor()),
                     membrane_hoop_pa: hoop.map(|h| h.0),
                     outer_hoop_pa: hoop.map(|h| h.1),
                 });
@@ -816,12 +834,12 @@ fn rejections(
                 .iter()
                 .find(|(c, _)| *c == s.component)
                 .map(|(_, m)| *m)?;
+            // Without a full-scale output there is nothing to compare a leak with: no figure
+            // (the missing wanted load is a finding of its own).
             let full = (s_w * m_w).abs();
-            let leakage_fraction = if full > 0.0 {
-                (s.displayed_per_unit * m).abs() / full
-            } else {
-                f64::INFINITY
-            };
+            let leakage_fraction = (full > 0.0)
+                .then(|| (s.displayed_per_unit * m).abs() / full)
+                .filter(|f| f.is_finite())?;
             Some(Rejection {
                 component: s.component,
                 expected: m,

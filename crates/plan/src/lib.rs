@@ -22,6 +22,7 @@ pub mod document;
 pub mod drawing;
 pub mod edit;
 pub mod evaluate;
+pub mod finite;
 pub mod gallery;
 pub mod io;
 pub mod migrate;

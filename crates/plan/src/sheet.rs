@@ -549,11 +549,11 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
                 8.5,
                 false,
                 &format!(
-                    "{}: largest von Mises stress {:.1} MPa {} ({:.2} × below yield).",
+                    "{}: largest von Mises stress {:.1} MPa {} ({}).",
                     c.case,
                     c.peak_von_mises_pa / 1e6,
                     c.peak_location,
-                    c.safety_factor_to_yield
+                    c.yield_words()
                 ),
             );
             if let (Some(membrane), Some(outer)) = (c.membrane_hoop_pa, c.outer_hoop_pa) {
