@@ -147,6 +147,16 @@ fn rows() -> Vec<(&'static str, Vec<u8>, Expect)> {
             Refused(&["below absolute zero"]),
         ),
         (
+            "a section 3e298 metres wide",
+            edited("width_m: 0.03", "width_m: 3e298"),
+            Refused(&["not plausible", "check the unit"]),
+        ),
+        (
+            "a load of 6e303 newtons",
+            edited("(VerticalForce, 6000.0)", "(VerticalForce, 6e303)"),
+            Refused(&["vertical force", "not plausible"]),
+        ),
+        (
             "a datum that is not a number",
             edited("datum_m: (0.0, 0.0)", "datum_m: (NaN, 0.0)"),
             Refused(&["datum", "not a number"]),

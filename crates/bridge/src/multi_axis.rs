@@ -67,7 +67,16 @@ pub fn multi_axis(
     let sv = scaled.singular_values();
     let max = sv.iter().copied().fold(0.0, f64::max);
     let min = sv.iter().copied().fold(f64::INFINITY, f64::min);
-    let condition_number = if min > 0.0 { max / min } else { f64::INFINITY };
+    let condition_number = max / min;
+    if !(min > 0.0 && condition_number.is_finite()) {
+        return Err(BridgeError::Invalid {
+            what: "multi-bridge matrix".into(),
+            why: "the bridges do not separate the loads: together they read fewer independent \
+                  loads than they measure (a bridge that reads nothing, or two that read the \
+                  same combination)"
+                .into(),
+        });
+    }
     let recovery = s
         .clone()
         .pseudo_inverse(1e-30)

@@ -24,6 +24,15 @@ pub enum MechanicsError {
     #[error("{name} must be greater than zero, got {shown}; enter a positive dimension", shown = mm(*value_m))]
     NonPositiveDimension { name: &'static str, value_m: f64 },
 
+    /// A value far outside anything a part can have: a typo or a slip of unit.
+    #[error("{name} of {value} {unit} is not plausible (at most {limit} {unit}); check the unit")]
+    NotPlausible {
+        name: &'static str,
+        value: f64,
+        limit: f64,
+        unit: &'static str,
+    },
+
     /// An inner dimension is not smaller than the outer one it sits in.
     #[error(
         "{inner_name} {inner} must be smaller than {outer_name} {outer}; reduce the {inner_name} or enlarge the {outer_name}",
@@ -97,10 +106,32 @@ pub(crate) fn finite(name: &'static str, value: f64) -> Result<f64> {
 /// Checks that a dimension in metres is finite and strictly positive.
 pub(crate) fn positive_dimension(name: &'static str, value_m: f64) -> Result<f64> {
     finite(name, value_m)?;
-    if value_m > 0.0 {
-        Ok(value_m)
+    if value_m <= 0.0 {
+        return Err(MechanicsError::NonPositiveDimension { name, value_m });
+    }
+    at_most(name, value_m, LARGEST_DIMENSION_M, "m")
+}
+
+/// The largest dimension of a part, m: a kilometre is far beyond any gauged part, so a larger
+/// value is a typo or a slip of unit.
+pub const LARGEST_DIMENSION_M: f64 = 1000.0;
+
+/// Checks that a finite magnitude is at most `limit` (in `unit`).
+pub(crate) fn at_most(
+    name: &'static str,
+    value: f64,
+    limit: f64,
+    unit: &'static str,
+) -> Result<f64> {
+    if value.abs() <= limit {
+        Ok(value)
     } else {
-        Err(MechanicsError::NonPositiveDimension { name, value_m })
+        Err(MechanicsError::NotPlausible {
+            name,
+            value,
+            limit,
+            unit,
+        })
     }
 }
 

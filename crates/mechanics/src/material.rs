@@ -2,7 +2,7 @@
 
 use serde::{Deserialize, Serialize};
 
-use crate::error::{MechanicsError, Result, finite, positive};
+use crate::error::{MechanicsError, Result, at_most, finite, positive};
 
 /// An isotropic, linear-elastic material.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -43,6 +43,8 @@ impl Material {
     /// Checks every property: E and yield positive, ν in [0, 0.5), α finite.
     pub fn validate(&self) -> Result<()> {
         positive("Young's modulus", self.youngs_modulus_pa)?;
+        // Diamond is about 1.2 TPa; a stiffer entry is a typo.
+        at_most("Young's modulus", self.youngs_modulus_pa, 2e12, "Pa")?;
         finite("Poisson's ratio", self.poisson_ratio)?;
         if !(0.0..0.5).contains(&self.poisson_ratio) {
             return Err(MechanicsError::PoissonOutOfRange {
@@ -50,7 +52,9 @@ impl Material {
             });
         }
         finite("thermal expansion coefficient", self.cte_per_c)?;
+        at_most("thermal expansion coefficient", self.cte_per_c, 1e-3, "/°C")?;
         positive("yield strength", self.yield_strength_pa)?;
+        at_most("yield strength", self.yield_strength_pa, 1e11, "Pa")?;
         Ok(())
     }
 

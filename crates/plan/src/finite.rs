@@ -43,7 +43,13 @@ impl ser::Error for Stop {
 impl Walker {
     fn number(&mut self, v: f64) -> Result<(), Stop> {
         if !v.is_finite() && self.found.is_none() {
-            self.found = Some(self.path.join("."));
+            let names: Vec<&str> = self
+                .path
+                .iter()
+                .map(String::as_str)
+                .filter(|p| !p.is_empty())
+                .collect();
+            self.found = Some(names.join("."));
         }
         Ok(())
     }

@@ -70,6 +70,18 @@ pub fn validate_temperatures(part: &Part, t_ref: f64) -> Result<(), PlanError> {
     Ok(())
 }
 
+/// The largest magnitude a load component may have, in its SI unit: far beyond any part
+/// (a gigatonne-force, ten gigapascals, a thousand degrees), so that a value above it is a typo.
+fn plausible_load(c: LoadComponent) -> f64 {
+    use LoadComponent::*;
+    match c {
+        InternalPressure | ExternalPressure | RemoteStressX | RemoteStressY | RemoteShearXY => 1e10,
+        TemperatureChange => 1000.0,
+        GivenStateFactor => 1e6,
+        _ => 1e10,
+    }
+}
+
 /// How much one project may ask of the tool: far above any real plan, low enough that a file
 /// cannot make it work for minutes or allocate without bound.
 pub struct Limits {
@@ -220,6 +232,18 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
             }
             if !v.is_finite() {
                 return Err(invalid(at.clone(), format!("{} is not a number", c.name())));
+            }
+            let limit = plausible_load(*c);
+            if v.abs() > limit {
+                return Err(invalid(
+                    at.clone(),
+                    format!(
+                        "{} of {v} {} is not plausible (more than {limit:e} {}); check the unit",
+                        c.name(),
+                        c.unit(),
+                        c.unit()
+                    ),
+                ));
             }
             if !carried.contains(c) {
                 let names: Vec<&str> = carried.iter().map(|c| c.name()).collect();
