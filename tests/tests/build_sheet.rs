@@ -184,3 +184,27 @@ fn channel_list_parses_and_matches_the_evaluation() {
         }
     }
 }
+
+#[test]
+fn names_in_latin_greek_and_cyrillic_print_and_others_are_refused_with_the_characters() {
+    // Accented Latin, Greek and Cyrillic names print as themselves; a name the embedded fonts
+    // cannot print (here Chinese) stops the export with the characters listed, instead of a
+    // sheet with empty boxes where the name should be.
+    let mut project = demo_project();
+    project.parts[0].name = "Träger Δοκός Балка".into();
+    let ev = evaluate(&project, &EvalOptions::default());
+    let bytes = build_sheet_pdf(&project, &ev).expect("these scripts print");
+    if require_tool("pdftotext", "-v", "poppler-utils") {
+        let path = dir().join("scripts.pdf");
+        std::fs::write(&path, bytes).unwrap();
+        let text = pdftotext(&path, false);
+        for word in ["Träger", "Δοκός", "Балка"] {
+            assert!(text.contains(word), "{word} not on the sheet");
+        }
+    }
+    project.parts[0].name = "支架".into();
+    let ev = evaluate(&project, &EvalOptions::default());
+    let err = build_sheet_pdf(&project, &ev).unwrap_err();
+    assert!(err.contains('支') && err.contains('架'), "{err}");
+    assert!(err.contains("Latin, Greek and Cyrillic"), "{err}");
+}

@@ -758,7 +758,45 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
     render(project, &w)
 }
 
+/// The characters of the sheet's text that its fonts cannot print, each with the first text
+/// it occurs in: a name in a script the embedded fonts do not cover would print as empty boxes.
+fn unprintable(w: &Writer) -> Vec<(char, String)> {
+    use skrifa::MetadataProvider;
+    let maps = [
+        epaint_default_fonts::UBUNTU_LIGHT,
+        epaint_default_fonts::HACK_REGULAR,
+    ]
+    .map(|data| skrifa::FontRef::new(data).ok());
+    let mut out: Vec<(char, String)> = Vec::new();
+    for op in w.pages.iter().flatten() {
+        let Op::Text { bold, text, .. } = op else {
+            continue;
+        };
+        let Some(font) = &maps[usize::from(*bold)] else {
+            continue;
+        };
+        let charmap = font.charmap();
+        for c in text.chars() {
+            if !c.is_whitespace() && charmap.map(c).is_none() && out.iter().all(|(d, _)| *d != c)
+            {
+                out.push((c, text.clone()));
+            }
+        }
+    }
+    out
+}
+
 fn render(project: &Project, w: &Writer) -> Result<Vec<u8>, String> {
+    let missing = unprintable(w);
+    if !missing.is_empty() {
+        let chars: String = missing.iter().map(|(c, _)| *c).collect();
+        let shown: String = missing[0].1.chars().take(60).collect();
+        return Err(format!(
+            "the build sheet's fonts cannot print {chars} (first in \"{shown}\"); the sheet prints \
+             Latin, Greek and Cyrillic letters: spell names in those, or the sheet would show \
+             empty boxes where they stand"
+        ));
+    }
     let regular = Font::new(epaint_default_fonts::UBUNTU_LIGHT.into(), 0)
         .ok_or("the embedded font could not be read")?;
     let bold = Font::new(epaint_default_fonts::HACK_REGULAR.into(), 0)
