@@ -777,8 +777,7 @@ fn unprintable(w: &Writer) -> Vec<(char, String)> {
         };
         let charmap = font.charmap();
         for c in text.chars() {
-            if !c.is_whitespace() && charmap.map(c).is_none() && out.iter().all(|(d, _)| *d != c)
-            {
+            if !c.is_whitespace() && charmap.map(c).is_none() && out.iter().all(|(d, _)| *d != c) {
                 out.push((c, text.clone()));
             }
         }
