@@ -1,6 +1,6 @@
 //! Nothing non-finite reaches the user: random valid variations of the demo (loads, temperatures,
 //! leads, excitation, gain, positions, material) go through the evaluation, `check`, `eval`
-//! (summary and JSON) and the channel list, and no figure anywhere is NaN or infinite. A
+//! (summary and JSON), the channel list and the build sheet's text, and no figure anywhere is NaN or infinite. A
 //! variation the checks refuse must say why. Every number of the evaluation is looked at
 //! directly, since JSON would write a NaN as `null` like an empty option.
 
@@ -132,6 +132,8 @@ proptest! {
         prop_assert!(wrong.is_empty(), "{wrong:?}");
         let csv = gw_plan::channel_list::channel_list_csv(&ev);
         prop_assert!(non_finite_in(&csv).is_none(), "{:?}", non_finite_in(&csv));
+        let sheet = gw_plan::sheet::build_sheet_text(&project, &ev);
+        prop_assert!(non_finite_in(&sheet).is_none(), "{:?}", non_finite_in(&sheet));
     }
 }
 

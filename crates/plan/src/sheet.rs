@@ -502,6 +502,25 @@ fn wiring_diagram(
 
 /// Renders the build sheet to PDF bytes.
 pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, String> {
+    render(project, &compose(project, ev))
+}
+
+/// Every text the build sheet prints, page by page, one item per line: what a reader of the
+/// sheet sees, for checks that need no PDF reader.
+pub fn build_sheet_text(project: &Project, ev: &Evaluation) -> String {
+    let w = compose(project, ev);
+    let mut out = String::new();
+    for op in w.pages.iter().flatten() {
+        if let Op::Text { text, .. } = op {
+            out.push_str(text);
+            out.push('\n');
+        }
+    }
+    out
+}
+
+/// Lays out the whole sheet.
+fn compose(project: &Project, ev: &Evaluation) -> Writer {
     let mut w = Writer::new(project.paper);
     w.heading("Strain-gauge installation build sheet");
     let failures = failure_lines(ev);
@@ -755,7 +774,7 @@ pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, St
     ] {
         w.checkbox_line(step, blank);
     }
-    render(project, &w)
+    w
 }
 
 /// The characters of the sheet's text that its fonts cannot print, each with the first text
