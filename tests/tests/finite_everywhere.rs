@@ -1,8 +1,8 @@
-//! Nothing non-finite reaches the user: random valid variations of the demo (loads, temperatures,
-//! leads, excitation, gain, positions, material) go through the evaluation, `check`, `eval`
-//! (summary and JSON), the channel list and the build sheet's text, and no figure anywhere is NaN or infinite. A
-//! variation the checks refuse must say why. Every number of the evaluation is looked at
-//! directly, since JSON would write a NaN as `null` like an empty option.
+//! Nothing non-finite reaches the user: random valid variations of the demo (loads,
+//! temperatures, leads, excitation, gain, positions, material) go through the evaluation,
+//! `check`, `eval` (summary and JSON), the channel list and the build sheet's text, and no figure
+//! anywhere is NaN or infinite. A variation the checks refuse must say why. Every number of the
+//! evaluation is looked at directly, since JSON would write a NaN as `null` like an empty option.
 
 use std::path::PathBuf;
 
