@@ -1,6 +1,7 @@
-//! A structure-aware fuzz of the whole road from file to sheet, run with every test: the demo's
-//! text with random edits (characters deleted, swapped for digits, signs and brackets, numbers
-//! scaled) goes through load, validation, evaluation, the JSON and the build sheet. Each step
+//! A structure-aware fuzz of the whole road from file to sheet, run with every test: the text of
+//! the demo or of the model gallery with random edits (characters deleted, swapped for digits,
+//! signs and brackets, numbers scaled) goes through load, validation, evaluation, the JSON and
+//! the build sheet. Each step
 //! gives a result or a message, never a panic, and whatever loads evaluates to finite figures.
 //! (The coverage-guided target in crates/fuzz goes further when run by hand.)
 
@@ -80,9 +81,12 @@ proptest! {
 
     #[test]
     fn edited_files_load_or_say_why_and_what_loads_evaluates_to_finite_figures(
-        edits in prop::collection::vec(edit(), 1..4)
+        edits in prop::collection::vec(edit(), 1..4),
+        gallery in proptest::bool::ANY,
     ) {
-        let mut text = project_to_string(&demo_project()).unwrap();
+        // The demo (bridges on three parts) or the gallery (every model kind and section).
+        let base = if gallery { gw_plan::gallery::model_gallery() } else { demo_project() };
+        let mut text = project_to_string(&base).unwrap();
         for e in &edits {
             apply(&mut text, e);
         }

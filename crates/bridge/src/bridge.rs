@@ -250,6 +250,18 @@ impl Bridge {
             self.instrument.gauge_factor,
         )?;
         check_positive(&what("bridge factor"), self.instrument.bridge_factor)?;
+        check_plausible(
+            &what("instrument gauge factor"),
+            self.instrument.gauge_factor,
+            (0.0, 200.0),
+            "",
+        )?;
+        check_plausible(
+            &what("bridge factor"),
+            self.instrument.bridge_factor,
+            (0.0, 1000.0),
+            "",
+        )?;
         match self.excitation {
             Excitation::Voltage { volts } => check_positive(&what("excitation voltage"), volts)
                 .and(check_plausible(
@@ -310,6 +322,7 @@ impl Bridge {
         }
         if let Some(rin) = self.amplifier_input_ohm {
             check_positive(&what("amplifier input resistance"), rin)?;
+            check_plausible(&what("amplifier input resistance"), rin, (0.0, 1e15), " Ω")?;
         }
         if let Some(s) = self.shunt {
             if s.arm > 3 {

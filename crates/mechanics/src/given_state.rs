@@ -3,7 +3,7 @@
 
 use serde::{Deserialize, Serialize};
 
-use crate::error::{Result, finite, positive_dimension};
+use crate::error::{Result, at_most, finite, positive_dimension};
 use crate::load::{LoadComponent, LoadVector};
 use crate::material::Material;
 use crate::surface::{Face, FaceExtent, SurfacePoint};
@@ -50,19 +50,30 @@ impl GivenState {
         positive_dimension("patch length", self.length_m)?;
         positive_dimension("patch width", self.width_m)?;
         match self.quantity {
+            // A strain of one (100 %) or a stress of 10 GPa is beyond any gauged part.
             GivenQuantity::Strain(s) => {
-                finite("given strain along x", s.normal_x)?;
-                finite("given strain along y", s.normal_y)?;
-                finite("given shear strain", s.shear_xy)?;
+                for (name, v) in [
+                    ("given strain along x", s.normal_x),
+                    ("given strain along y", s.normal_y),
+                    ("given shear strain", s.shear_xy),
+                ] {
+                    finite(name, v)?;
+                    at_most(name, v, 1.0, "m/m")?;
+                }
             }
             GivenQuantity::Stress {
                 normal_x_pa,
                 normal_y_pa,
                 shear_xy_pa,
             } => {
-                finite("given stress along x", normal_x_pa)?;
-                finite("given stress along y", normal_y_pa)?;
-                finite("given shear stress", shear_xy_pa)?;
+                for (name, v) in [
+                    ("given stress along x", normal_x_pa),
+                    ("given stress along y", normal_y_pa),
+                    ("given shear stress", shear_xy_pa),
+                ] {
+                    finite(name, v)?;
+                    at_most(name, v, 1e10, "Pa")?;
+                }
             }
         }
         self.material.validate()

@@ -214,10 +214,12 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
     within_limit(&here, "gauges", part.gauges.len(), LIMITS.gauges)?;
     within_limit(&here, "bridges", part.bridges.len(), LIMITS.bridges)?;
     validate_tolerances(&here, &part.tolerances)?;
-    if !(part.datum_m.0.is_finite() && part.datum_m.1.is_finite()) {
+    let (dx, ds) = part.datum_m;
+    if !(dx.is_finite() && ds.is_finite() && dx.abs() <= 1000.0 && ds.abs() <= 1000.0) {
         return Err(invalid(
             here.clone(),
-            "the datum is not a number; give its x and s in millimetres",
+            "the datum is not a number or lies more than a kilometre off; give its x and s in \
+             millimetres on the part",
         ));
     }
     let carried = part.member.components();
@@ -259,10 +261,13 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
             }
         }
         let (lo, hi) = case.temperature_range_c;
-        if !(lo.is_finite() && hi.is_finite() && lo <= hi) {
+        if !(lo.is_finite() && hi.is_finite() && lo <= hi && lo >= -1000.0 && hi <= 1000.0) {
             return Err(invalid(
                 at,
-                format!("temperature range {lo} to {hi} °C must run from low to high"),
+                format!(
+                    "temperature range {lo} to {hi} °C must run from low to high, within ±1000 °C \
+                     of the reference"
+                ),
             ));
         }
         if case.ramp_steps == 0 || case.ramp_steps > 1000 {
