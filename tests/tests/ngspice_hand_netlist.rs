@@ -329,21 +329,13 @@ RLEN tab_exc_n 0 1.5
 RLS tab_mid amp_p 1.5
 ";
 
-#[test]
-fn half_bridge_shunt_at_the_gauge_end_matches_ngspice() {
-    if !require_tool("ngspice", "--version", "ngspice") {
-        return;
-    }
-    let case = "half bridge, shunt at the gauge end";
-    let ours = solve(&half_bridge_with_shunt(ShuntLocation::GaugeEnd));
-    let netlist = format!(
-        "{case}\n{HALF_BRIDGE}\
-* Shunt soldered straight across grid 2's tabs: no lead in series with it.
-RSH tab_exc_p tab_mid 174650
-"
-    );
+/// The half bridge with its shunt placed by `shunt_lines` (netlist text), against ours with the
+/// shunt at `location`.
+fn half_bridge_shunt_case(case: &str, tag: &str, location: ShuntLocation, shunt_lines: &str) {
+    let ours = solve(&half_bridge_with_shunt(location));
+    let netlist = format!("{case}\n{HALF_BRIDGE}{shunt_lines}");
     let v = ngspice(
-        "half-shunt-gauge-end",
+        tag,
         &netlist,
         &[
             ("vout", "v(amp_p) - v(amp_n)"),
@@ -360,34 +352,36 @@ RSH tab_exc_p tab_mid 174650
 }
 
 #[test]
+fn half_bridge_shunt_at_the_gauge_end_matches_ngspice() {
+    if !require_tool("ngspice", "--version", "ngspice") {
+        return;
+    }
+    half_bridge_shunt_case(
+        "half bridge, shunt at the gauge end",
+        "half-shunt-gauge-end",
+        ShuntLocation::GaugeEnd,
+        "\
+* Shunt soldered straight across grid 2's tabs: no lead in series with it.
+RSH tab_exc_p tab_mid 174650
+",
+    );
+}
+
+#[test]
 fn half_bridge_shunt_at_the_instrument_end_matches_ngspice() {
     if !require_tool("ngspice", "--version", "ngspice") {
         return;
     }
-    let case = "half bridge, shunt at the instrument end";
-    let ours = solve(&half_bridge_with_shunt(ShuntLocation::InstrumentEnd));
-    let netlist = format!(
-        "{case}\n{HALF_BRIDGE}\
+    half_bridge_shunt_case(
+        "half bridge, shunt at the instrument end",
+        "half-shunt-instrument-end",
+        ShuntLocation::InstrumentEnd,
+        "\
 * Shunt switched in at the instrument across grid 2's terminals, excitation + and signal:
 * its current runs out along the excitation + lead and back along the signal lead, so both
 * leads sit in series with it and the signal lead now carries current.
 RSH exc_p amp_p 174650
-"
-    );
-    let v = ngspice(
-        "half-shunt-instrument-end",
-        &netlist,
-        &[
-            ("vout", "v(amp_p) - v(amp_n)"),
-            ("vgauges", "v(tab_exc_p) - v(tab_exc_n)"),
-        ],
-    );
-    agree(case, "output", ours.output_v, v[0]);
-    agree(
-        case,
-        "excitation across the gauge half",
-        ours.bridge_excitation_v,
-        v[1],
+",
     );
 }
 
