@@ -50,6 +50,16 @@ fn rows() -> Vec<(&'static str, Vec<u8>, Expect)> {
             Refused(&["UTF-8", "byte", "line"]),
         ),
         (
+            "a file cut short",
+            {
+                // Cut at the end of a line half-way through, as a full disk would leave it.
+                let text = demo_text();
+                let at = text[..text.len() / 2].rfind('\n').unwrap_or(0);
+                text.as_bytes()[..at].to_vec()
+            },
+            Refused(&["cut short", "line"]),
+        ),
+        (
             "no format version",
             edited("format_version: 2,", ""),
             Refused(&["format_version"]),

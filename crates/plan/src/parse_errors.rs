@@ -9,6 +9,7 @@ pub fn user_words(code: &ron::Error) -> String {
         ExceededRecursionLimit => "the file is nested too deeply to be a project (brackets \
                                    inside brackets, hundreds deep)"
             .to_owned(),
+        Eof => "the file ends before the project does: it may have been cut short".to_owned(),
         NoSuchStructField {
             expected,
             found,
