@@ -152,6 +152,10 @@ pub struct Bridge {
     pub shunt: Option<ShuntPlan>,
 }
 
+/// One setting to check: its name, value, whether it must be positive, its plausible range and
+/// its unit.
+type SettingCheck<'a> = (&'a str, f64, bool, (f64, f64), &'a str);
+
 impl Bridge {
     /// Checks the bridge against the placed gauges.
     pub fn validate(&self, gauges: &[PlacedGauge]) -> Result<(), BridgeError> {
@@ -225,123 +229,133 @@ impl Bridge {
 
     /// Checks leads, instrument, excitation, signal chain and shunt.
     pub fn validate_settings(&self) -> Result<(), BridgeError> {
-        let what = |s: &str| format!("bridge \"{}\": {s}", self.name);
-        check_plausible(
-            &what("lead length"),
-            self.lead.length_m,
-            (0.0, 10_000.0),
-            " m",
-        )?;
-        check_plausible(
-            &what("lead resistance per metre"),
-            self.lead.ohm_per_m,
-            (0.0, 10.0),
-            " Ω/m",
-        )?;
-        // Copper is 0.0039 /°C; no lead wire drifts ten times as much.
-        check_plausible(
-            &what("lead drift"),
-            self.lead.tcr_per_c,
-            (-0.04, 0.04),
-            " /°C",
-        )?;
-        check_positive(
-            &what("instrument gauge factor"),
-            self.instrument.gauge_factor,
-        )?;
-        check_positive(&what("bridge factor"), self.instrument.bridge_factor)?;
-        check_plausible(
-            &what("instrument gauge factor"),
-            self.instrument.gauge_factor,
-            (0.0, 200.0),
-            "",
-        )?;
-        check_plausible(
-            &what("bridge factor"),
-            self.instrument.bridge_factor,
-            (0.0, 1000.0),
-            "",
-        )?;
-        match self.excitation {
-            Excitation::Voltage { volts } => check_positive(&what("excitation voltage"), volts)
-                .and(check_plausible(
-                    &what("excitation voltage"),
-                    volts,
-                    (0.0, 50.0),
-                    " V",
-                ))?,
-            Excitation::Current { amps } => check_positive(&what("excitation current"), amps).and(
-                check_plausible(&what("excitation current"), amps, (0.0, 1.0), " A"),
-            )?,
+        self.validate_leads_and_instrument()?;
+        self.validate_channel()?;
+        self.validate_shunt()
+    }
+
+    /// `field` of this bridge, for messages.
+    fn field(&self, field: &str) -> String {
+        format!("bridge \"{}\": {field}", self.name)
+    }
+
+    /// Each value positive where it must be, then inside its plausible range: (name, value,
+    /// must be positive, range, unit).
+    fn check_each(&self, checks: &[SettingCheck<'_>]) -> Result<(), BridgeError> {
+        for &(name, value, positive, range, unit) in checks {
+            if positive {
+                check_positive(&self.field(name), value)?;
+            }
+            check_plausible(&self.field(name), value, range, unit)?;
         }
-        check_positive(&what("amplifier gain"), self.signal.gain)?;
-        check_plausible(&what("amplifier gain"), self.signal.gain, (0.0, 1e6), "")?;
-        check_positive(&what("input range"), self.signal.input_range_v)?;
-        check_plausible(
-            &what("input range"),
-            self.signal.input_range_v,
-            (0.0, 1000.0),
-            " V",
-        )?;
-        check_plausible(
-            &what("amplifier noise density"),
-            self.signal.amplifier_noise_v_per_rt_hz,
-            (0.0, 1e-5),
-            " V/√Hz",
-        )?;
-        check_plausible(
-            &what("excitation accuracy"),
-            self.signal.excitation_accuracy,
-            (0.0, 0.1),
-            "",
-        )?;
-        check_plausible(
-            &what("gain accuracy"),
-            self.signal.gain_accuracy,
-            (0.0, 0.1),
-            "",
-        )?;
-        if !(1..=32).contains(&self.signal.adc_bits) {
+        Ok(())
+    }
+
+    fn validate_leads_and_instrument(&self) -> Result<(), BridgeError> {
+        let (excitation, value, range, unit) = match self.excitation {
+            Excitation::Voltage { volts } => ("excitation voltage", volts, (0.0, 50.0), " V"),
+            Excitation::Current { amps } => ("excitation current", amps, (0.0, 1.0), " A"),
+        };
+        self.check_each(&[
+            (
+                "lead length",
+                self.lead.length_m,
+                false,
+                (0.0, 10_000.0),
+                " m",
+            ),
+            (
+                "lead resistance per metre",
+                self.lead.ohm_per_m,
+                false,
+                (0.0, 10.0),
+                " Ω/m",
+            ),
+            // Copper is 0.0039 /°C; no lead wire drifts ten times as much.
+            (
+                "lead drift",
+                self.lead.tcr_per_c,
+                false,
+                (-0.04, 0.04),
+                " /°C",
+            ),
+            (
+                "instrument gauge factor",
+                self.instrument.gauge_factor,
+                true,
+                (0.0, 200.0),
+                "",
+            ),
+            (
+                "bridge factor",
+                self.instrument.bridge_factor,
+                true,
+                (0.0, 1000.0),
+                "",
+            ),
+            (excitation, value, true, range, unit),
+        ])
+    }
+
+    fn validate_channel(&self) -> Result<(), BridgeError> {
+        let s = &self.signal;
+        self.check_each(&[
+            ("amplifier gain", s.gain, true, (0.0, 1e6), ""),
+            ("input range", s.input_range_v, true, (0.0, 1000.0), " V"),
+            (
+                "amplifier noise density",
+                s.amplifier_noise_v_per_rt_hz,
+                false,
+                (0.0, 1e-5),
+                " V/√Hz",
+            ),
+            (
+                "excitation accuracy",
+                s.excitation_accuracy,
+                false,
+                (0.0, 0.1),
+                "",
+            ),
+            ("gain accuracy", s.gain_accuracy, false, (0.0, 0.1), ""),
+        ])?;
+        if !(1..=32).contains(&s.adc_bits) {
             return Err(BridgeError::Invalid {
-                what: what("ADC resolution"),
-                why: format!("{} bits is outside 1 to 32", self.signal.adc_bits),
+                what: self.field("ADC resolution"),
+                why: format!("{} bits is outside 1 to 32", s.adc_bits),
             });
         }
-        check_positive(&what("bandwidth"), self.signal.bandwidth_hz)?;
-        check_plausible(
-            &what("bandwidth"),
-            self.signal.bandwidth_hz,
-            (0.0, 1e7),
-            " Hz",
-        )?;
-        if let Err(BridgeError::Invalid { what: field, why }) = self.signal.filter.validate() {
+        self.check_each(&[("bandwidth", s.bandwidth_hz, true, (0.0, 1e7), " Hz")])?;
+        if let Err(BridgeError::Invalid { what: field, why }) = s.filter.validate() {
             return Err(BridgeError::Invalid {
-                what: what(&field),
+                what: self.field(&field),
                 why,
             });
         }
         if let Some(rin) = self.amplifier_input_ohm {
-            check_positive(&what("amplifier input resistance"), rin)?;
-            check_plausible(&what("amplifier input resistance"), rin, (0.0, 1e15), " Ω")?;
-        }
-        if let Some(s) = self.shunt {
-            if s.arm > 3 {
-                return Err(BridgeError::Invalid {
-                    what: what("shunt arm"),
-                    why: "choose arm 1 to 4".into(),
-                });
-            }
-            check_positive(&what("shunt target strain"), s.target_strain)?;
-            // A shunt simulates ε = R / (GF (R + Rs)) < 1/GF: a target at or beyond that needs
-            // no resistor at all; a few percent is already far beyond any grid.
-            check_plausible(
-                &what("shunt target strain"),
-                s.target_strain,
-                (0.0, 0.05),
-                "",
-            )?;
+            self.check_each(&[("amplifier input resistance", rin, true, (0.0, 1e15), " Ω")])?;
         }
         Ok(())
+    }
+
+    fn validate_shunt(&self) -> Result<(), BridgeError> {
+        let Some(s) = self.shunt else {
+            return Ok(());
+        };
+        if s.arm > 3 {
+            return Err(BridgeError::Invalid {
+                what: self.field("shunt arm"),
+                why: "choose arm 1 to 4".into(),
+            });
+        }
+        // A shunt simulates ε = R / (GF (R + Rs)) < 1/GF: a target at or beyond that needs no
+        // resistor at all; a few percent is already far beyond any grid.
+        self.check_each(&[(
+            "shunt target strain",
+            s.target_strain,
+            true,
+            (0.0, 0.05),
+            "",
+        )])
     }
 
     /// Number of gauges' grids at the gauge site (active and dummy).

@@ -11,6 +11,39 @@ use gw_bridge::*;
 use gw_mechanics::*;
 use support::*;
 
+/// The budget of the top/bottom bending pair at 1000 N on a converter of `adc_bits`, with the
+/// channel it was formed for.
+fn bending_pair_budget(
+    adc_bits: u32,
+) -> (
+    bridge_uncertainty::BridgeUncertainty,
+    signal_chain::ChannelFigures,
+) {
+    let member = cantilever();
+    let gauges = top_bottom();
+    let c = ArmElement::Completion(completion());
+    let mut b = bridge(
+        [grid(0, 0), grid(1, 0), c, c],
+        LoadComponent::VerticalForce,
+        2.0,
+    );
+    b.signal.adc_bits = adc_bits;
+    let s = setup(&member, &gauges);
+    let model = BridgeModel::new(&s, &b).unwrap();
+    let channel = signal_chain::channel_figures(&model).unwrap();
+    let loads = LoadVector::from_pairs(&[(LoadComponent::VerticalForce, 1000.0)]);
+    let u = bridge_uncertainty::bridge_uncertainty(
+        &member,
+        &model,
+        &loads,
+        &channel,
+        &Default::default(),
+        s.quadrature,
+    )
+    .unwrap();
+    (u, channel)
+}
+
 fn top_bottom() -> Vec<PlacedGauge> {
     vec![
         placed(
@@ -272,27 +305,7 @@ fn bridge_uncertainty_gum_and_monte_carlo_agree_for_a_near_linear_bridge() {
     // JCGM 101:2008, 8 (validation of the GUM framework): for a near-linear model the GUM
     // uncertainty and the Monte Carlo standard deviation agree; here within 5 % with 20 000
     // trials.
-    let member = cantilever();
-    let gauges = top_bottom();
-    let c = ArmElement::Completion(completion());
-    let b = bridge(
-        [grid(0, 0), grid(1, 0), c, c],
-        LoadComponent::VerticalForce,
-        2.0,
-    );
-    let s = setup(&member, &gauges);
-    let model = BridgeModel::new(&s, &b).unwrap();
-    let channel = signal_chain::channel_figures(&model).unwrap();
-    let loads = LoadVector::from_pairs(&[(LoadComponent::VerticalForce, 1000.0)]);
-    let u = bridge_uncertainty::bridge_uncertainty(
-        &member,
-        &model,
-        &loads,
-        &channel,
-        &Default::default(),
-        s.quadrature,
-    )
-    .unwrap();
+    let (u, _) = bending_pair_budget(24);
     assert_relative_eq!(u.gum.value, 1000.0, max_relative = 1e-3);
     assert_relative_eq!(
         u.monte_carlo.standard_deviation,
@@ -451,29 +464,8 @@ fn quantization_is_counted_once_in_the_uncertainty_budget() {
     // channel's total noise is Johnson, amplifier and quantization noise in quadrature; the
     // budget lists quantization (a rectangular distribution of one count, u = q/√12) and the
     // noise as two rows, so together they must make exactly the total, not more.
-    let member = cantilever();
-    let gauges = top_bottom();
-    let c = ArmElement::Completion(completion());
-    let mut b = bridge(
-        [grid(0, 0), grid(1, 0), c, c],
-        LoadComponent::VerticalForce,
-        2.0,
-    );
     // A coarse converter, so quantization is a visible share of the noise.
-    b.signal.adc_bits = 12;
-    let s = setup(&member, &gauges);
-    let model = BridgeModel::new(&s, &b).unwrap();
-    let channel = signal_chain::channel_figures(&model).unwrap();
-    let loads = LoadVector::from_pairs(&[(LoadComponent::VerticalForce, 1000.0)]);
-    let u = bridge_uncertainty::bridge_uncertainty(
-        &member,
-        &model,
-        &loads,
-        &channel,
-        &Default::default(),
-        s.quadrature,
-    )
-    .unwrap();
+    let (u, channel) = bending_pair_budget(12);
     let row = |start: &str| {
         u.gum
             .rows

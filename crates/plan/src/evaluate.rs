@@ -598,26 +598,14 @@ fn evaluate_bridge(
         part, model, &channel, options, full_case, &place, target, findings,
     );
     let uncertainty_case = uncertainty.as_ref().and(full_case.map(|c| c.name.clone()));
-    let budgets = match options.uncertainty {
-        UncertaintyDepth::Off => crate::accuracy::Budgets::Off,
-        _ => crate::accuracy::Budgets::PerCase {
-            known: uncertainty.as_ref().zip(uncertainty_case.as_deref()),
-        },
-    };
-    let accuracy = crate::accuracy::accuracy_checks(
-        part,
-        plan.required_accuracy,
-        model,
-        &channel,
+    let accuracy = accuracy_of(
+        (part, plan, model, &channel),
+        options,
+        (uncertainty.as_ref(), uncertainty_case.as_deref()),
+        (&place, target),
+        (&mut cases, findings),
         warn,
-        budgets,
     )?;
-    for check in &accuracy {
-        accuracy_finding(check, plan, &place(&check.case), target, findings);
-        if let Some(c) = cases.iter_mut().find(|c| c.case == check.case) {
-            c.margins.push(check.margin.clone());
-        }
-    }
     let zero_offset_band_mv_per_v = zero_offset_band_mv_per_v(model);
     let pin_resistances = crate::wiring::pin_resistances(model);
     Ok(BridgeEvaluation {
@@ -689,21 +677,55 @@ fn ramp_of(
     Ok(ramp)
 }
 
-/// Each load case's reading, margins and ramp of one bridge; failed or close margins become
-/// findings.
-fn bridge_cases(
-    project: &Project,
-    part: &Part,
-    model: &BridgeModel,
-    channel: &ChannelFigures,
-    place: &dyn Fn(&str) -> String,
-    target: Target,
-    findings: &mut Vec<Finding>,
-) -> Result<Vec<BridgeCase>, gw_bridge::BridgeError> {
+/// The required accuracy of a bridge checked in each case, its margins added to the cases and
+/// its misses to the findings (the budget at the largest load is reused).
+fn accuracy_of(
+    (part, plan, model, channel): (
+        &Part,
+        &crate::document::BridgePlan,
+        &BridgeModel,
+        &ChannelFigures,
+    ),
+    options: &EvalOptions,
+    (uncertainty, uncertainty_case): (Option<&BridgeUncertainty>, Option<&str>),
+    (place, target): (&dyn Fn(&str) -> String, Target),
+    (cases, findings): (&mut [BridgeCase], &mut Vec<Finding>),
+    warn: f64,
+) -> Result<Vec<crate::accuracy::AccuracyCheck>, gw_bridge::BridgeError> {
+    let budgets = match options.uncertainty {
+        UncertaintyDepth::Off => crate::accuracy::Budgets::Off,
+        _ => crate::accuracy::Budgets::PerCase {
+            known: uncertainty.zip(uncertainty_case),
+        },
+    };
+    let accuracy = crate::accuracy::accuracy_checks(
+        part,
+        plan.required_accuracy,
+        model,
+        channel,
+        warn,
+        budgets,
+    )?;
+    for check in &accuracy {
+        accuracy_finding(check, plan, &place(&check.case), target, findings);
+        if let Some(c) = cases.iter_mut().find(|c| c.case == check.case) {
+            c.margins.push(check.margin.clone());
+        }
+    }
+    Ok(accuracy)
+}
+
+/// What the grids of a bridge may take: the lowest strain and fatigue limits of its grids and
+/// the arm nearest its power limit (density, limit).
+struct GridLimits {
+    grids: Vec<usize>,
+    strain_limit: f64,
+    fatigue_limit: f64,
+    power_util: (f64, f64),
+}
+
+fn grid_limits(model: &BridgeModel, channel: &ChannelFigures) -> GridLimits {
     let b = model.bridge();
-    let member = &part.member;
-    let material = member.material();
-    let warn = project.warn_utilisation;
     // Grids of this bridge, for strain and stress margins.
     let grids: Vec<usize> = (0..4)
         .filter(|&k| matches!(b.arms[k], ArmElement::Grid(_)))
@@ -727,6 +749,36 @@ fn bridge_cases(
         .fold((0.0, f64::INFINITY), |(d, l), (dk, lk)| {
             if dk / lk > d / l { (dk, lk) } else { (d, l) }
         });
+
+    GridLimits {
+        grids,
+        strain_limit,
+        fatigue_limit,
+        power_util,
+    }
+}
+
+/// Each load case's reading, margins and ramp of one bridge; failed or close margins become
+/// findings.
+fn bridge_cases(
+    project: &Project,
+    part: &Part,
+    model: &BridgeModel,
+    channel: &ChannelFigures,
+    place: &dyn Fn(&str) -> String,
+    target: Target,
+    findings: &mut Vec<Finding>,
+) -> Result<Vec<BridgeCase>, gw_bridge::BridgeError> {
+    let b = model.bridge();
+    let member = &part.member;
+    let material = member.material();
+    let warn = project.warn_utilisation;
+    let GridLimits {
+        grids,
+        strain_limit,
+        fatigue_limit,
+        power_util,
+    } = grid_limits(model, channel);
 
     let mut cases = Vec::new();
     for case in &part.load_cases {

@@ -222,6 +222,14 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
              millimetres on the part",
         ));
     }
+    validate_load_cases(part, &here)?;
+    validate_gauges(part, stock, &here)?;
+    validate_bridges(part, stock, &here)
+}
+
+/// Each load case: loads that are numbers, plausible, carried by the model and listed once; a
+/// temperature range from low to high; a ramp of 1 to 1000 steps.
+fn validate_load_cases(part: &Part, here: &str) -> Result<(), PlanError> {
     let carried = part.member.components();
     for case in &part.load_cases {
         let at = format!("{here} › load case \"{}\"", case.name);
@@ -277,12 +285,18 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
             ));
         }
     }
+    Ok(())
+}
+
+/// Each gauge: an id of its own, a stock type that exists, valid lot values, a place on the
+/// part and a plausible angle.
+fn validate_gauges(part: &Part, stock: &[StockGauge], here: &str) -> Result<(), PlanError> {
     let mut ids: Vec<&str> = Vec::new();
     for gauge in &part.gauges {
         let at = format!("{here} › gauge \"{}\"", gauge.id);
         if gauge.id.trim().is_empty() {
             return Err(invalid(
-                here.clone(),
+                here.to_owned(),
                 "a gauge has no identifier; give every gauge a short id such as G1",
             ));
         }
@@ -324,6 +338,13 @@ pub fn validate_part(part: &Part, stock: &[StockGauge]) -> Result<(), PlanError>
             ));
         }
     }
+    Ok(())
+}
+
+/// Each bridge: its arms resolve, its settings (and its circuit when wired) are valid, a typed
+/// bridge factor and a required accuracy are positive, and the part carries its wanted load.
+fn validate_bridges(part: &Part, stock: &[StockGauge], here: &str) -> Result<(), PlanError> {
+    let carried = part.member.components();
     let gauges = crate::document::placed_gauges(stock, part);
     for plan in &part.bridges {
         let bridge = bridge_from_plan(part, &gauges, plan)?;
