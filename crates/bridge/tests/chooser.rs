@@ -143,9 +143,9 @@ fn an_arrangement_below_one_count_of_the_channel_is_rejected() {
 #[test]
 fn two_wire_leads_warming_with_the_part_show_in_the_temperature_error() {
     // A quarter bridge wired with two leads of 0.5 Ω each has 1 Ω of copper in the active arm;
-    // warmed by 30 °C it grows by 1 Ω × 0.00393/°C × 30 °C = 0.118 Ω, which the bridge reads as
-    // a strain ΔR / (R GF) (Dally & Riley, Experimental Stress Analysis, 3rd ed., Ch. 7,
-    // lead-wire effects; from memory for the section). In newtons it is that strain over the
+    // warmed by 30 °C it grows by 1 Ω × 0.00393/°C (copper near 20 °C, from memory) × 30 °C
+    // = 0.118 Ω, which the bridge reads as a strain ΔR / (R GF) (Dally & Riley, Experimental
+    // Stress Analysis, 3rd ed., Ch. 7, lead-wire effects; from memory for the section). In newtons it is that strain over the
     // grid's strain per newton, σ/E = (0.4 m / Z) / E per newton at 0.1 m from the root of a
     // cantilever loaded at 0.5 m (Z = b h² / 6, any mechanics-of-materials text). The grid is
     // matched to the part, so the leads are the only thermal cause.
