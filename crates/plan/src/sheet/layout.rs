@@ -331,6 +331,22 @@ pub(crate) fn problems(ops: &[Op], width: f32, height: f32) -> Vec<String> {
             }
         }
     }
+    for (i, op) in ops.iter().enumerate() {
+        let filled = match op {
+            Op::Rect { fill, .. } | Op::Path { fill, .. } => fill.is_some(),
+            _ => false,
+        };
+        if filled {
+            let cover = op_area(op);
+            for earlier in &ops[..i] {
+                if let Some((a, t)) = checked_area(earlier)
+                    && a.overlaps(&cover)
+                {
+                    out.push(format!("a filled shape drawn after \"{t}\" hides it"));
+                }
+            }
+        }
+    }
     for op in ops {
         for (p, q) in segments(op) {
             for (a, t) in &texts {
@@ -428,5 +444,17 @@ mod tests {
         assert_eq!(problems(&crossed, 595.0, 842.0).len(), 1);
         let outside = vec![text(30.0, 100.0, "first")];
         assert_eq!(problems(&outside, 595.0, 842.0).len(), 1);
+        let fill = Op::Rect {
+            x: 95.0,
+            y: 85.0,
+            w: 60.0,
+            h: 20.0,
+            fill: Some(235),
+            stroke: 0.0,
+        };
+        let hidden = vec![text(100.0, 100.0, "first"), fill.clone()];
+        assert_eq!(problems(&hidden, 595.0, 842.0).len(), 1);
+        let under = vec![fill, text(100.0, 100.0, "first")];
+        assert!(problems(&under, 595.0, 842.0).is_empty());
     }
 }
