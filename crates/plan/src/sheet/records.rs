@@ -61,7 +61,14 @@ fn ruled_row(w: &mut Writer, xs: &[f32], row: &[String], bold: bool, min_height:
         w.line([*x, top], [*x, top + h], 0.6, 0);
     }
     for (cell, x) in row.iter().zip(xs.windows(2)) {
-        w.wrapped(x[0] + PAD, top + PAD, x[1] - x[0] - 2.0 * PAD, BODY, bold, cell);
+        w.wrapped(
+            x[0] + PAD,
+            top + PAD,
+            x[1] - x[0] - 2.0 * PAD,
+            BODY,
+            bold,
+            cell,
+        );
     }
     w.y = top + h;
 }

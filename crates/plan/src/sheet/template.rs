@@ -1,0 +1,1 @@
+//! The 1:1 marking template of a face.
