@@ -26,6 +26,7 @@ pub mod signal_chain;
 pub mod temperature;
 pub mod uncertainty;
 pub mod units;
+pub mod zero_band;
 
 pub use bridge::{
     ArmElement, Bridge, CompletionResistor, InstrumentSetting, InstrumentTemperature, LeadWire,
