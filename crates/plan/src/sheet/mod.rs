@@ -131,3 +131,51 @@ fn compose(project: &Project, ev: &Evaluation) -> Writer {
     w.finish();
     w
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::document::RequiredAccuracy;
+
+    fn page_text(w: &Writer, page: usize) -> String {
+        w.pages[page]
+            .iter()
+            .filter_map(|op| match op {
+                Op::Text { text, .. } => Some(text.as_str()),
+                _ => None,
+            })
+            .collect::<Vec<_>>()
+            .join(" ")
+    }
+
+    #[test]
+    fn a_missed_accuracy_stands_on_the_first_page() {
+        let mut p = crate::demo::demo_project();
+        p.parts[0].bridges[0].required_accuracy = Some(RequiredAccuracy::PercentOfReading(0.001));
+        let ev = crate::evaluate(&p, &crate::EvalOptions::default());
+        let misses: Vec<_> = ev.parts[0].bridges[0]
+            .accuracy
+            .iter()
+            .filter(|a| a.margin.status == gw_bridge::margins::MarginStatus::Fail)
+            .collect();
+        assert!(!misses.is_empty(), "0.001 % of reading cannot be met");
+        let w = compose(&p, &ev);
+        let first = page_text(&w, 0);
+        assert!(first.contains("MARGIN FAILS"), "{first}");
+        for a in misses {
+            let words = a.describe(ev.parts[0].bridges[0].wanted.unit());
+            let start: String = words.chars().take(30).collect();
+            assert!(first.contains(&start), "{start} not on page 1: {first}");
+        }
+    }
+
+    #[test]
+    fn a_plan_that_passes_says_so_without_a_banner() {
+        let p = crate::demo::demo_project();
+        let ev = crate::evaluate(&p, &crate::EvalOptions::default());
+        assert!(!ev.has_failures());
+        let first = page_text(&compose(&p, &ev), 0);
+        assert!(!first.contains("MARGIN FAILS"));
+        assert!(first.contains("not a certification"));
+    }
+}
