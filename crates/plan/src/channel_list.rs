@@ -12,21 +12,46 @@ fn field(s: &str) -> String {
     }
 }
 
+/// Six significant digits, without an exponent (loads per mV/V run from mN to MPa).
+fn significant(value: f64) -> String {
+    let magnitude = if value == 0.0 {
+        0
+    } else {
+        value.abs().log10().floor() as i32
+    };
+    let decimals = (5 - magnitude).clamp(0, 12) as usize;
+    format!("{value:.decimals$}")
+}
+
 /// One line per bridge: channel, bridge, part, arrangement, excitation, instrument gauge factor
-/// and bridge factor, conversion (µε per mV/V), shunt value and its expected reading, and the
-/// expected reading (mV/V and µε) at every load case of the part.
+/// and bridge factor, conversion (µε per mV/V), the wanted load per mV/V in its unit (empty when
+/// the bridge does not respond to it), the zero reading expected at no load with its statistical
+/// ± (at the stated coverage factor) and worst-case limits (mV/V), shunt value and its expected
+/// reading, and the expected reading (mV/V and µε) at every load case of the part.
 pub fn channel_list_csv(ev: &Evaluation) -> String {
     let mut out = String::new();
     let _ = writeln!(
         out,
         "channel,part,bridge,arrangement,excitation_v,gauge_factor_setting,bridge_factor,\
-         microstrain_per_mv_per_v,shunt_ohm,shunt_arm,shunt_expected_microstrain,load_case,\
+         microstrain_per_mv_per_v,wanted_load,wanted_unit,wanted_per_mv_per_v,zero_mv_per_v,\
+         zero_statistical_mv_per_v,zero_coverage_k,zero_worst_low_mv_per_v,\
+         zero_worst_high_mv_per_v,shunt_ohm,shunt_arm,shunt_expected_microstrain,load_case,\
          expected_mv_per_v,expected_microstrain"
     );
     for part in &ev.parts {
         for b in &part.bridges {
             // Displayed strain = 4 (Vo/Vex) / (GF · bridge factor): µε per mV/V.
             let microstrain_per_mv_per_v = 4000.0 / (b.gauge_factor_setting * b.bridge_factor);
+            let wanted_per_mv_per_v = b.wanted_per_mv_per_v.map(significant).unwrap_or_default();
+            let z = &b.zero_band;
+            let zero = format!(
+                "{:.4},{:.4},{},{:.4},{:.4}",
+                z.centre_mv_per_v,
+                z.statistical_mv_per_v,
+                z.coverage_k,
+                z.worst_low_mv_per_v,
+                z.worst_high_mv_per_v
+            );
             let (shunt_ohm, shunt_arm, shunt_reading) = match &b.shunt {
                 Some(s) => (
                     format!("{:.0}", s.e96_ohm),
@@ -38,7 +63,7 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
             for c in &b.cases {
                 let _ = writeln!(
                     out,
-                    "{},{},{},{},{:.3},{:.3},{:.4},{:.3},{},{},{},{},{:.4},{:.1}",
+                    "{},{},{},{},{:.3},{:.3},{:.4},{:.3},{},{},{},{},{},{},{},{},{:.4},{:.1}",
                     b.channel_number,
                     field(&part.name),
                     field(&b.name),
@@ -47,6 +72,10 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
                     b.gauge_factor_setting,
                     b.bridge_factor,
                     microstrain_per_mv_per_v,
+                    field(b.wanted.name()),
+                    field(b.wanted.unit()),
+                    wanted_per_mv_per_v,
+                    zero,
                     shunt_ohm,
                     shunt_arm,
                     shunt_reading,
@@ -58,4 +87,17 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
         }
     }
     out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::significant;
+
+    #[test]
+    fn six_significant_digits_whatever_the_size() {
+        assert_eq!(significant(7692.307692), "7692.31");
+        assert_eq!(significant(-0.001234567), "-0.00123457");
+        assert_eq!(significant(1.5e8), "150000000");
+        assert_eq!(significant(0.0), "0.00000");
+    }
 }

@@ -193,7 +193,8 @@ fn write_settings(out: &mut String, b: &BridgeEvaluation) {
     );
 }
 
-/// Rejection of unwanted loads, noise and resolution, and the zero offset band.
+/// Rejection of unwanted loads, noise and resolution, the zero band and the conversion to the
+/// wanted load's unit.
 fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation) {
     if !b.rejection.is_empty() {
         let list: Vec<String> = b
@@ -212,11 +213,29 @@ fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation) {
     }
     let _ = writeln!(
         out,
-        "    noise {} rms, resolution {} per count, zero offset within ± {:.3} mV/V",
+        "    noise {} rms, resolution {} per count",
         ue_small(b.channel.noise_strain_rms),
         ue_small(b.channel.resolution_strain),
-        b.zero_offset_band_mv_per_v
     );
+    let z = &b.zero_band;
+    let _ = writeln!(
+        out,
+        "    zero at no load {:.4} mV/V: ± {:.4} mV/V from resistance tolerances (k = {}), \
+         {:.4} to {:.4} mV/V at worst",
+        z.centre_mv_per_v,
+        z.statistical_mv_per_v,
+        z.coverage_k,
+        z.worst_low_mv_per_v,
+        z.worst_high_mv_per_v
+    );
+    if let Some(f) = b.wanted_per_mv_per_v {
+        let _ = writeln!(
+            out,
+            "    {} per mV/V: {}",
+            b.wanted.name(),
+            si(f, b.wanted.unit())
+        );
+    }
 }
 
 /// The uncertainty of the wanted load inferred from the reading, when it was computed.

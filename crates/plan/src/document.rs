@@ -51,6 +51,10 @@ pub struct Project {
     /// Utilisation above which a margin warns, fraction (default 0.8, ours).
     #[serde(default = "default_warn")]
     pub warn_utilisation: f64,
+    /// Fraction of a bridge's full scale its zero band may take before a finding notes it
+    /// (default 0.1, common practice).
+    #[serde(default = "default_zero_band_fraction")]
+    pub zero_band_fraction: f64,
     /// Lead colours of our own default scheme, by conductor role (editable).
     #[serde(default)]
     pub lead_colours: LeadColours,
@@ -66,6 +70,10 @@ pub struct Project {
 
 fn default_warn() -> f64 {
     gw_bridge::margins::DEFAULT_WARN_UTILISATION
+}
+
+fn default_zero_band_fraction() -> f64 {
+    gw_bridge::zero_band::DEFAULT_ZERO_BAND_FRACTION
 }
 
 /// Lead colours by conductor role. The default scheme is the project's own; edit to the

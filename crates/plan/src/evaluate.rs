@@ -7,6 +7,7 @@ use gw_bridge::multi_axis::{MultiAxis, multi_axis};
 use gw_bridge::shunt::{ShuntCalibration, shunt_calibration};
 use gw_bridge::signal_chain::{ChannelFigures, adc_volts, channel_figures};
 use gw_bridge::temperature::{ThermalPoint, thermal_sweep};
+use gw_bridge::zero_band::{ZeroBand, ZeroBandLimit, zero_band_of_model};
 use gw_bridge::{ArmElement, BridgeModel, Reading, Setup};
 use gw_mechanics::{LoadComponent, LoadVector, QuadratureOrder};
 use serde::Serialize;
@@ -178,8 +179,14 @@ pub struct BridgeEvaluation {
     pub uncertainty_case: Option<String>,
     /// The reading against the required accuracy, per load case (empty when none is stated).
     pub accuracy: Vec<crate::accuracy::AccuracyCheck>,
-    /// Worst-case zero offset from resistance tolerances, ± mV/V.
-    pub zero_offset_band_mv_per_v: f64,
+    /// The zero reading expected at no load and its spread from the arms' resistance
+    /// tolerances (statistical and worst case), judged against the full scale.
+    pub zero_band: ZeroBand,
+    /// The wanted load per mV/V of output (N per mV/V, N·m per mV/V, …) from the bridge's
+    /// sensitivity at zero load; `None` (left out of the JSON) when the bridge does not
+    /// respond to it.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub wanted_per_mv_per_v: Option<f64>,
     /// Expected resistance between connector pins (with leads), Ω.
     pub pin_resistances: Vec<(String, f64)>,
 }
@@ -606,7 +613,14 @@ fn evaluate_bridge(
         (&mut cases, findings),
         warn,
     )?;
-    let zero_offset_band_mv_per_v = zero_offset_band_mv_per_v(model);
+    let zero_band = zero_band_of(
+        model,
+        &cases,
+        project.zero_band_fraction,
+        (&place("zero reading"), target),
+        findings,
+    )?;
+    let wanted_per_mv_per_v = wanted_per_mv_per_v(&sensitivities, b.wanted, m_w, &channel);
     let pin_resistances = crate::wiring::pin_resistances(model);
     Ok(BridgeEvaluation {
         name: plan.name.clone(),
@@ -626,23 +640,78 @@ fn evaluate_bridge(
         uncertainty,
         uncertainty_case,
         accuracy,
-        zero_offset_band_mv_per_v,
+        zero_band,
+        wanted_per_mv_per_v,
         pin_resistances,
     })
 }
 
-/// Worst-case zero offset: each arm's resistance tolerance moves Vo/Vex by a quarter of it,
-/// ± mV/V.
-fn zero_offset_band_mv_per_v(model: &BridgeModel) -> f64 {
-    let b = model.bridge();
-    (0..4)
-        .map(|k| match b.arms[k] {
-            ArmElement::Completion(c) => c.tolerance,
-            _ => model.spec(k).map(|s| s.resistance_tolerance).unwrap_or(0.0),
-        })
-        .sum::<f64>()
-        / 4.0
-        * 1e3
+/// The zero band of a bridge judged against its full scale (the largest |reading| over its load
+/// cases); a band wider than `fraction` of it becomes a warning that says what to do.
+fn zero_band_of(
+    model: &BridgeModel,
+    cases: &[BridgeCase],
+    fraction: f64,
+    (place, target): (&str, Target),
+    findings: &mut Vec<Finding>,
+) -> Result<ZeroBand, gw_bridge::BridgeError> {
+    let full_scale_mv_per_v = cases
+        .iter()
+        .map(|c| c.reading.mv_per_v.abs())
+        .fold(0.0, f64::max);
+    let band = zero_band_of_model(
+        model,
+        ZeroBandLimit {
+            full_scale_mv_per_v,
+            fraction,
+        },
+    )?;
+    if band.exceeds.exceeded() {
+        findings.push(Finding {
+            severity: Severity::Warn,
+            message: zero_band_message(place, &band),
+            target,
+        });
+    }
+    Ok(band)
+}
+
+/// The words of a zero band that is wide against full scale.
+fn zero_band_message(place: &str, band: &ZeroBand) -> String {
+    format!(
+        "{place}: the zero band is wide against full scale: at no load the bridge should read \
+         {:.4} mV/V, ± {:.4} mV/V from resistance tolerances (k = {}, about 95 %) and \
+         {:.4} to {:.4} mV/V at worst, against a full scale of {:.4} mV/V ({:.0} % of it is \
+         {:.4} mV/V); a wrong connection may pass the zero check and the offset takes input \
+         range: use gauges or completion resistors of tighter resistance tolerance, or zero the \
+         bridge electrically and record the offset",
+        band.centre_mv_per_v,
+        band.statistical_mv_per_v,
+        band.coverage_k,
+        band.worst_low_mv_per_v,
+        band.worst_high_mv_per_v,
+        band.full_scale_mv_per_v,
+        band.limit_fraction * 100.0,
+        band.limit_mv_per_v()
+    )
+}
+
+/// The wanted load per mV/V of output, from the sensitivity to the wanted component at zero
+/// load. `None` when the bridge does not respond to it: a sensitivity of zero, or a response at
+/// the largest wanted load (`largest`) below what the channel resolves, where the factor would
+/// only scale noise.
+fn wanted_per_mv_per_v(
+    sensitivities: &[Sensitivity],
+    wanted: LoadComponent,
+    largest: f64,
+    channel: &ChannelFigures,
+) -> Option<f64> {
+    let s = sensitivities.iter().find(|s| s.component == wanted)?;
+    let resolvable = channel.resolution_strain.max(channel.noise_strain_rms);
+    if largest != 0.0 && (s.displayed_per_unit * largest).abs() < resolvable {
+        return None;
+    }
+    Some(1.0 / s.mv_per_v_per_unit).filter(|f| f.is_finite())
 }
 
 /// Displayed strain from zero to the case's full load in `steps` steps, with the straight line

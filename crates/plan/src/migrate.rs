@@ -113,6 +113,7 @@ impl ProjectV1 {
             paper: self.paper,
             reference_temperature_c: reference,
             warn_utilisation: self.warn_utilisation,
+            zero_band_fraction: gw_bridge::zero_band::DEFAULT_ZERO_BAND_FRACTION,
             lead_colours: self.lead_colours,
             gauge_stock: stock,
             parts,

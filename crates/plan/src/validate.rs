@@ -35,6 +35,16 @@ pub fn validate_project(project: &Project) -> Result<(), PlanError> {
             ),
         ));
     }
+    let f = project.zero_band_fraction;
+    if !(f > 0.0 && f <= 1.0) {
+        return Err(invalid(
+            "project".into(),
+            format!(
+                "zero band fraction {f} of full scale must lie above 0 and at most 1 \
+                 (e.g. 0.1 for a tenth)"
+            ),
+        ));
+    }
     within_limit("project", "parts", project.parts.len(), LIMITS.parts)?;
     within_limit(
         "project",

@@ -11,7 +11,11 @@ use crate::evaluate::BridgeEvaluation;
 
 /// The zero reading expected with the part unloaded, in words for a table cell.
 pub(crate) fn zero_expected(be: &BridgeEvaluation) -> String {
-    format!("0 ± {:.3} (worst case)", be.zero_offset_band_mv_per_v)
+    format!(
+        "{:.3} ± {:.3} (worst case)",
+        be.zero_band.centre_mv_per_v,
+        be.zero_band.worst_half_width_mv_per_v()
+    )
 }
 
 /// The instrument settings of a bridge, as rows of a two-column table.
