@@ -17,6 +17,7 @@ pub mod cautions;
 pub mod channel_list;
 pub mod cli;
 pub mod conflicts;
+pub mod connector;
 pub mod demo;
 pub mod document;
 pub mod drawing;
