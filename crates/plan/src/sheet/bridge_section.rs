@@ -9,13 +9,69 @@ use super::{um, wiring_diagram};
 use crate::document::{BridgePlan, Part, Project};
 use crate::evaluate::BridgeEvaluation;
 
-/// The zero reading expected with the part unloaded, in words for a table cell.
+/// The zero reading expected with the part unloaded, in words for a table cell: the
+/// statistical band (root-sum-square of the arms' tolerances) and the worst case, mV/V.
 pub(crate) fn zero_expected(be: &BridgeEvaluation) -> String {
+    let z = &be.zero_band;
     format!(
-        "{:.3} ± {:.3} (worst case)",
-        be.zero_band.centre_mv_per_v,
-        be.zero_band.worst_half_width_mv_per_v()
+        "{:.3} ± {:.3} (k = {:.0}); worst case {:.3} to {:.3}",
+        z.centre_mv_per_v,
+        z.statistical_mv_per_v,
+        z.coverage_k,
+        z.worst_low_mv_per_v,
+        z.worst_high_mv_per_v
     )
+}
+
+/// The zero check in full: both bands, how they were formed, and a note when either takes
+/// more than the project's chosen fraction of full scale.
+fn zero_words(be: &BridgeEvaluation) -> String {
+    use gw_bridge::zero_band::ZeroBandExcess;
+    let z = &be.zero_band;
+    let mut s = format!(
+        "Zero with the part unloaded: {:.3} mV/V expected with every element at its nominal \
+         value and the leads in place. Statistical band ± {:.3} mV/V: each arm's resistance \
+         tolerance taken as a rectangular distribution and combined root-sum-square, coverage \
+         factor k = {:.0} (about 95 % for a near-normal sum; GUM, JCGM 100:2008, 4.3.7 and \
+         G). Worst case, every arm at the tolerance limit that pushes zero furthest: {:.3} to \
+         {:.3} mV/V.",
+        z.centre_mv_per_v,
+        z.statistical_mv_per_v,
+        z.coverage_k,
+        z.worst_low_mv_per_v,
+        z.worst_high_mv_per_v
+    );
+    let band = match z.exceeds {
+        ZeroBandExcess::Within | ZeroBandExcess::NoFullScale => None,
+        ZeroBandExcess::StatisticalOnly => Some("The statistical band"),
+        ZeroBandExcess::WorstCaseOnly => Some("The worst case"),
+        ZeroBandExcess::Both => Some("Both bands"),
+    };
+    if let Some(band) = band {
+        s.push_str(&format!(
+            " Note: {band} exceed{} {:.0} % of full scale ({:.4} mV/V): a zero inside the band \
+             proves little about the installation; zero the bridge electrically and record \
+             the offset, or use closer-tolerance gauges or completion resistors.",
+            if band == "Both bands" { "" } else { "s" },
+            z.limit_fraction * 100.0,
+            z.full_scale_mv_per_v
+        ));
+    }
+    s
+}
+
+/// The wanted load per mV/V of output, in words.
+fn conversion_words(be: &BridgeEvaluation) -> String {
+    match be.wanted_per_mv_per_v {
+        Some(k) => format!(
+            "Conversion to engineering units: {} per mV/V of output (the wanted load divided by \
+             the output, from the bridge's sensitivity on this part).",
+            si(k, be.wanted.unit())
+        ),
+        None => "Conversion to engineering units: none, the bridge does not respond to the \
+                 wanted load on this part."
+            .to_owned(),
+    }
 }
 
 /// The instrument settings of a bridge, as rows of a two-column table.
@@ -150,12 +206,9 @@ pub(crate) fn draw(
             ),
         );
     }
+    w.para(BODY, false, &conversion_words(be));
     w.subheading("Checks before the first test");
-    w.para(
-        BODY,
-        false,
-        &format!("Zero with the part unloaded: {} mV/V.", zero_expected(be)),
-    );
+    w.para(BODY, false, &zero_words(be));
     if let Some(s) = shunt_words(be, plan) {
         w.para(BODY, true, &s);
     }

@@ -35,6 +35,7 @@ fn channel_rows(project: &Project, ev: &Evaluation) -> Vec<Vec<String>> {
             "Part / bridge",
             "Measures",
             "Largest reading",
+            "Load per mV/V",
             "Zero expected (mV/V)",
         ]
         .map(String::from)
@@ -57,6 +58,9 @@ fn channel_rows(project: &Project, ev: &Evaluation) -> Vec<Vec<String>> {
                 format!("{} / {}", part.name, be.name),
                 be.wanted.name().to_owned(),
                 largest,
+                be.wanted_per_mv_per_v
+                    .map(|k| gw_bridge::units::si(k, be.wanted.unit()))
+                    .unwrap_or_else(|| "none".to_owned()),
                 bridge_section::zero_expected(be),
             ]);
         }
@@ -80,7 +84,7 @@ pub(crate) fn draw(w: &mut Writer, project: &Project, ev: &Evaluation) {
         failure_banner(w, &failures);
     }
     w.subheading("Channels");
-    w.table(&[0.7, 2.2, 1.6, 1.2, 1.6], &channel_rows(project, ev));
+    w.table(&[0.75, 2.0, 1.5, 1.1, 1.0, 2.0], &channel_rows(project, ev));
     w.subheading("Cautions");
     for c in &ev.cautions {
         w.para(9.0, true, &c.title);
