@@ -79,8 +79,16 @@ impl Area {
             && o.y1 <= self.y1 + 0.01
     }
 
+    /// The box grown by `by` on every side (shrunk when negative; a side shrunk past the
+    /// middle collapses onto it).
     pub fn grown(&self, by: f32) -> Area {
-        Area::new(self.x0 - by, self.y0 - by, self.x1 + by, self.y1 + by)
+        let (cx, cy) = ((self.x0 + self.x1) / 2.0, (self.y0 + self.y1) / 2.0);
+        Area {
+            x0: (self.x0 - by).min(cx),
+            y0: (self.y0 - by).min(cy),
+            x1: (self.x1 + by).max(cx),
+            y1: (self.y1 + by).max(cy),
+        }
     }
 
     /// True when the segment from `a` to `b` passes through the interior (Liang–Barsky
@@ -288,16 +296,18 @@ pub(crate) fn op_area(op: &Op) -> Area {
         Op::Line { x1, y1, x2, y2, .. } => Area::new(*x1, *y1, *x2, *y2),
         Op::Rect { x, y, w, h, .. } => Area::new(*x, *y, x + w, y + h),
         Op::Path { points, .. } => {
-            points
-                .iter()
-                .fold(Area::new(f32::MAX, f32::MAX, f32::MIN, f32::MIN), |a, p| {
-                    Area {
-                        x0: a.x0.min(p[0]),
-                        y0: a.y0.min(p[1]),
-                        x1: a.x1.max(p[0]),
-                        y1: a.y1.max(p[1]),
-                    }
-                })
+            let empty = Area {
+                x0: f32::MAX,
+                y0: f32::MAX,
+                x1: f32::MIN,
+                y1: f32::MIN,
+            };
+            points.iter().fold(empty, |a, p| Area {
+                x0: a.x0.min(p[0]),
+                y0: a.y0.min(p[1]),
+                x1: a.x1.max(p[0]),
+                y1: a.y1.max(p[1]),
+            })
         }
     }
 }
@@ -456,5 +466,25 @@ mod tests {
         assert_eq!(problems(&hidden, 595.0, 842.0).len(), 1);
         let under = vec![fill, text(100.0, 100.0, "first")];
         assert!(problems(&under, 595.0, 842.0).is_empty());
+        let path = Op::Path {
+            points: vec![[100.0, 200.0], [120.0, 210.0], [110.0, 230.0]],
+            closed: true,
+            width: 0.5,
+            grey: 0,
+            fill: Some(200),
+        };
+        let a = op_area(&path);
+        assert_eq!((a.x0, a.y0, a.x1, a.y1), (100.0, 200.0, 120.0, 230.0));
+        let beside = vec![text(100.0, 100.0, "first"), path];
+        assert!(problems(&beside, 595.0, 842.0).is_empty());
+        let on_margin = Op::Line {
+            x1: MARGIN,
+            y1: 100.0,
+            x2: MARGIN,
+            y2: 200.0,
+            width: 0.5,
+            grey: 0,
+        };
+        assert!(problems(&[on_margin], 595.0, 842.0).is_empty());
     }
 }
