@@ -6,6 +6,7 @@ use gw_bridge::units::si;
 
 use super::writer::{BODY, Writer};
 use super::{um, wiring_diagram};
+use crate::connector::Pinout;
 use crate::document::{BridgePlan, Part, Project};
 use crate::evaluate::BridgeEvaluation;
 
@@ -163,16 +164,21 @@ fn case_rows(part: &Part, be: &BridgeEvaluation) -> Vec<Vec<String>> {
 }
 
 /// The shunt check in words: the resistor, where it goes, and what to expect.
-fn shunt_words(be: &BridgeEvaluation, plan: &BridgePlan) -> Option<String> {
+fn shunt_words(be: &BridgeEvaluation, plan: &BridgePlan, pins: &Pinout) -> Option<String> {
     let s = be.shunt.as_ref()?;
+    let at = match plan.shunt.map(|p| p.location) {
+        Some(gw_bridge::ShuntLocation::GaugeEnd) => {
+            format!("at the gauge, across arm {}", s.arm + 1)
+        }
+        _ => format!(
+            "at the connector, across arm {} {}",
+            s.arm + 1,
+            pins.shunt_words(s.arm)
+        ),
+    };
     Some(format!(
-        "Shunt calibration: {:.0} Ω (E96) across arm {} at the {}; expect {}.",
+        "Shunt calibration: {:.0} Ω (E96) {at}; expect {}.",
         s.e96_ohm,
-        s.arm + 1,
-        match plan.shunt.map(|p| p.location) {
-            Some(gw_bridge::ShuntLocation::GaugeEnd) => "gauge",
-            _ => "instrument",
-        },
         um(s.expected_reading_strain)
     ))
 }
@@ -191,7 +197,7 @@ pub(crate) fn draw(
         be.name, be.channel_number
     ));
     w.table(&[1.0, 2.0], &settings_rows(be, plan));
-    wiring_diagram::draw(w, project, part, be, &plan.arms);
+    wiring_diagram::draw_plan(w, project, part, plan);
     w.subheading("Expected readings");
     w.table(&[1.3, 1.1, 1.1, 1.0, 1.0, 1.1], &case_rows(part, be));
     for a in &be.accuracy {
@@ -209,7 +215,8 @@ pub(crate) fn draw(
     w.para(BODY, false, &conversion_words(be));
     w.subheading("Checks before the first test");
     w.para(BODY, false, &zero_words(be));
-    if let Some(s) = shunt_words(be, plan) {
+    let pins = Pinout::for_bridge(plan, &project.lead_colours);
+    if let Some(s) = shunt_words(be, plan, &pins) {
         w.para(BODY, true, &s);
     }
     let mut rows = vec![vec![
@@ -217,7 +224,8 @@ pub(crate) fn draw(
         "Expect".to_owned(),
     ]];
     for (name, r) in &be.pin_resistances {
-        rows.push(vec![name.clone(), format!("{r:.2} Ω")]);
+        let pair = pins.pair_words(name).unwrap_or_else(|| name.clone());
+        rows.push(vec![pair, format!("{r:.2} Ω")]);
     }
     w.table(&[2.0, 1.0], &rows);
 }

@@ -459,32 +459,6 @@ fn cable_caption(f: &Facts) -> String {
     )
 }
 
-/// The schematic of the bridge the evaluation `be` is of, found in the part by its name and
-/// arms; [`draw_plan`] takes the plan itself.
-pub(crate) fn draw(
-    w: &mut Writer,
-    project: &Project,
-    part: &Part,
-    be: &crate::evaluate::BridgeEvaluation,
-    arms: &[PlanArm; 4],
-) {
-    let found = part
-        .bridges
-        .iter()
-        .find(|b| b.name == be.name && &b.arms == arms);
-    match found {
-        Some(plan) => draw_plan(w, project, part, plan),
-        None => w.para(
-            8.5,
-            true,
-            &format!(
-                "No wiring diagram: bridge \"{}\" is not in the plan.",
-                be.name
-            ),
-        ),
-    }
-}
-
 /// Draws the wiring schematic of bridge `plan` of `part` at the writer's position, with its
 /// notes below it.
 pub(crate) fn draw_plan(w: &mut Writer, project: &Project, part: &Part, plan: &BridgePlan) {
