@@ -101,7 +101,7 @@ fn printed_readings_shunts_and_resistances_equal_the_evaluation() {
                 checked += 1;
             }
             if let Some(s) = &b.shunt {
-                let want = format!("{:.0} Ω (E96)", s.e96_ohm);
+                let want = format!("{} (E96)", gw_bridge::units::si(s.e96_ohm, "Ω"));
                 assert!(text.contains(&want), "no {want}");
                 let arm = format!("across arm {}", s.arm + 1);
                 assert!(text.contains(&arm), "no {arm}");

@@ -177,8 +177,8 @@ fn shunt_words(be: &BridgeEvaluation, plan: &BridgePlan, pins: &Pinout) -> Optio
         ),
     };
     Some(format!(
-        "Shunt calibration: {:.0} Ω (E96) {at}; expect {}.",
-        s.e96_ohm,
+        "Shunt calibration: {} (E96) {at}; expect {}.",
+        si(s.e96_ohm, "Ω"),
         um(s.expected_reading_strain)
     ))
 }
