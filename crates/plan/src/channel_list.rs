@@ -23,6 +23,20 @@ fn significant(value: f64) -> String {
     format!("{value:.decimals$}")
 }
 
+/// Four decimals, without a minus sign on a value that rounds to zero.
+fn four_decimals(value: f64) -> String {
+    let text = format!("{value:.4}");
+    if text
+        .trim_start_matches('-')
+        .chars()
+        .all(|c| c == '0' || c == '.')
+    {
+        text.trim_start_matches('-').to_owned()
+    } else {
+        text
+    }
+}
+
 /// One line per bridge: channel, bridge, part, arrangement, excitation, instrument gauge factor
 /// and bridge factor, conversion (µε per mV/V), the wanted load per mV/V in its unit (empty when
 /// the bridge does not respond to it), the zero reading expected at no load with its statistical
@@ -44,14 +58,14 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
             let microstrain_per_mv_per_v = 4000.0 / (b.gauge_factor_setting * b.bridge_factor);
             let wanted_per_mv_per_v = b.wanted_per_mv_per_v.map(significant).unwrap_or_default();
             let z = &b.zero_band;
-            let zero = format!(
-                "{:.4},{:.4},{},{:.4},{:.4}",
-                z.centre_mv_per_v,
-                z.statistical_mv_per_v,
-                z.coverage_k,
-                z.worst_low_mv_per_v,
-                z.worst_high_mv_per_v
-            );
+            let zero = [
+                four_decimals(z.centre_mv_per_v),
+                four_decimals(z.statistical_mv_per_v),
+                format!("{}", z.coverage_k),
+                four_decimals(z.worst_low_mv_per_v),
+                four_decimals(z.worst_high_mv_per_v),
+            ]
+            .join(",");
             let (shunt_ohm, shunt_arm, shunt_reading) = match &b.shunt {
                 Some(s) => (
                     format!("{:.0}", s.e96_ohm),
@@ -91,7 +105,14 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
 
 #[cfg(test)]
 mod tests {
-    use super::significant;
+    use super::{four_decimals, significant};
+
+    #[test]
+    fn a_value_that_rounds_to_zero_has_no_minus_sign() {
+        assert_eq!(four_decimals(-1e-9), "0.0000");
+        assert_eq!(four_decimals(-0.00012), "-0.0001");
+        assert_eq!(four_decimals(0.92684), "0.9268");
+    }
 
     #[test]
     fn six_significant_digits_whatever_the_size() {

@@ -218,15 +218,17 @@ fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation) {
         ue_small(b.channel.resolution_strain),
     );
     let z = &b.zero_band;
+    // A zero that rounds to nothing is shown without a minus sign.
+    let centre = if z.centre_mv_per_v.abs() < 0.5e-4 {
+        0.0
+    } else {
+        z.centre_mv_per_v
+    };
     let _ = writeln!(
         out,
         "    zero at no load {:.4} mV/V: ± {:.4} mV/V from resistance tolerances (k = {}), \
          {:.4} to {:.4} mV/V at worst",
-        z.centre_mv_per_v,
-        z.statistical_mv_per_v,
-        z.coverage_k,
-        z.worst_low_mv_per_v,
-        z.worst_high_mv_per_v
+        centre, z.statistical_mv_per_v, z.coverage_k, z.worst_low_mv_per_v, z.worst_high_mv_per_v
     );
     if let Some(f) = b.wanted_per_mv_per_v {
         let _ = writeln!(

@@ -196,3 +196,40 @@ fn a_file_without_the_zero_band_fraction_takes_the_default() {
         gw_bridge::zero_band::DEFAULT_ZERO_BAND_FRACTION
     );
 }
+
+#[test]
+fn the_channel_list_carries_the_zero_band_and_the_conversion() {
+    let ev = evaluate(&demo_project(), &quick());
+    let csv = gw_plan::channel_list::channel_list_csv(&ev);
+    let mut lines = csv.lines();
+    let header: Vec<&str> = lines.next().unwrap().split(',').collect();
+    let col = |name: &str| header.iter().position(|h| *h == name).unwrap();
+    // Quoted fields may hold commas.
+    let parse = |line: &str| -> Vec<String> {
+        let mut out = vec![String::new()];
+        let mut quoted = false;
+        for ch in line.chars() {
+            match ch {
+                '"' => quoted = !quoted,
+                ',' if !quoted => out.push(String::new()),
+                c => out.last_mut().unwrap().push(c),
+            }
+        }
+        out
+    };
+    let rows: Vec<Vec<String>> = lines.map(parse).collect();
+    for b in ev.parts.iter().flat_map(|p| &p.bridges) {
+        let row = rows.iter().find(|r| r[col("bridge")] == b.name).unwrap();
+        assert_eq!(row.len(), header.len());
+        let num = |name: &str| row[col(name)].parse::<f64>().unwrap();
+        let z = &b.zero_band;
+        assert!((num("zero_mv_per_v") - z.centre_mv_per_v).abs() <= 0.5e-4);
+        assert!((num("zero_statistical_mv_per_v") - z.statistical_mv_per_v).abs() <= 0.5e-4);
+        assert!((num("zero_worst_low_mv_per_v") - z.worst_low_mv_per_v).abs() <= 0.5e-4);
+        assert!((num("zero_worst_high_mv_per_v") - z.worst_high_mv_per_v).abs() <= 0.5e-4);
+        assert_eq!(num("zero_coverage_k"), z.coverage_k);
+        assert_eq!(row[col("wanted_unit")], b.wanted.unit());
+        let f = b.wanted_per_mv_per_v.unwrap();
+        assert_relative_eq!(num("wanted_per_mv_per_v"), f, max_relative = 1e-5);
+    }
+}
