@@ -16,7 +16,7 @@ fn quick() -> EvalOptions {
     }
 }
 
-fn bridge<'a>(ev: &'a Evaluation, part: usize, bridge: usize) -> &'a BridgeEvaluation {
+fn bridge(ev: &Evaluation, part: usize, bridge: usize) -> &BridgeEvaluation {
     let pe = ev.parts.iter().find(|p| p.part_index == part).unwrap();
     let k = pe.bridge_indices.iter().position(|&b| b == bridge).unwrap();
     &pe.bridges[k]

@@ -141,6 +141,15 @@ fn header_fields() -> Vec<Field<Project>> {
             |p: &Project| p.warn_utilisation,
             |p, v| p.warn_utilisation = v,
         ),
+        num(
+            "zero_band_fraction",
+            "Zero band above",
+            PERCENT,
+            "Fraction of a bridge's full scale its zero band may take before a finding notes it \
+             (10 % is common practice)",
+            |p: &Project| p.zero_band_fraction,
+            |p, v| p.zero_band_fraction = v,
+        ),
         Field {
             path: "notes",
             label: "Notes".into(),

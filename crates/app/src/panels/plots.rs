@@ -154,6 +154,7 @@ fn output_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
             microstrain(nl)
         ));
     }
+    zero_and_conversion_ui(ui, doc, be);
     Plot::new("output vs load")
         .legend(Legend::default())
         .height(300.0)
@@ -187,6 +188,51 @@ fn output_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
                 );
             }
         });
+}
+
+/// The zero reading a technician should see at no load, with its statistical and worst-case
+/// spread, and the wanted load per mV/V in the display unit.
+fn zero_and_conversion_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
+    let z = &be.zero_band;
+    ui.label(format!(
+        "Zero at no load: {:.4} mV/V, ± {:.4} mV/V from resistance tolerances (k = {}), {:.4} to \
+         {:.4} mV/V at worst",
+        z.centre_mv_per_v,
+        z.statistical_mv_per_v,
+        z.coverage_k,
+        z.worst_low_mv_per_v,
+        z.worst_high_mv_per_v
+    ))
+    .on_hover_text(
+        "Nominal zero of the exact circuit (leads included); the ± treats each arm's resistance \
+         tolerance as rectangular (JCGM 100:2008 §4.3.7), the worst case puts every arm at the \
+         end of its tolerance",
+    );
+    let q = Quantity::of(be.wanted);
+    match be.wanted_per_mv_per_v {
+        Some(f) => {
+            // A ratio: scale only (a unit offset does not apply to a load per mV/V).
+            let scale = doc.units.to_display(q, 1.0) - doc.units.to_display(q, 0.0);
+            let shown = f * scale;
+            let magnitude = if shown == 0.0 {
+                0
+            } else {
+                shown.abs().log10().floor() as i32
+            };
+            let decimals = (5 - magnitude).clamp(0, 9) as usize;
+            ui.label(format!(
+                "{} per mV/V: {shown:.decimals$} {}",
+                capitalise(be.wanted.name()),
+                doc.units.label(q)
+            ));
+        }
+        None => {
+            ui.label(format!(
+                "No conversion to {}: the bridge does not respond to it",
+                be.wanted.name()
+            ));
+        }
+    }
 }
 
 fn temperature_ui(ui: &mut egui::Ui, be: &BridgeEvaluation) {
