@@ -174,6 +174,9 @@ pub fn zero_band(
 ) -> Result<ZeroBand, BridgeError> {
     check_inputs(tolerances, excitation_v, limit)?;
     let centre = zero_reading_mv_per_v(circuit, [1.0; 4], excitation_v)?;
+    // A balanced bridge solves to a few 1e-16 V of rounding, not to zero: below a nano-mV/V
+    // (far under any instrument's resolution) the centre is zero, without a stray sign.
+    let centre = if centre.abs() < 1e-9 { 0.0 } else { centre };
     let mut sensitivities = [0.0; 4];
     for (k, s) in sensitivities.iter_mut().enumerate() {
         let mut up = [1.0; 4];

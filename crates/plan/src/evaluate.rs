@@ -679,12 +679,11 @@ fn zero_band_of(
 /// The words of a zero band that is wide against full scale.
 fn zero_band_message(place: &str, band: &ZeroBand) -> String {
     format!(
-        "{place}: the zero band is wide against full scale: at no load the bridge should read \
-         {:.4} mV/V, ± {:.4} mV/V from resistance tolerances (k = {}, about 95 %) and \
-         {:.4} to {:.4} mV/V at worst, against a full scale of {:.4} mV/V ({:.0} % of it is \
-         {:.4} mV/V); a wrong connection may pass the zero check and the offset takes input \
-         range: use gauges or completion resistors of tighter resistance tolerance, or zero the \
-         bridge electrically and record the offset",
+        "{place}: the zero band is wide against full scale: expect {:.4} mV/V at no load, \
+         ± {:.4} mV/V from resistance tolerances (k = {}, about 95 %), {:.4} to {:.4} mV/V at \
+         worst, against a full scale of {:.4} mV/V ({:.0} %: {:.4} mV/V); use gauges or \
+         completion resistors of tighter resistance tolerance, or zero the bridge electrically \
+         and record the offset",
         band.centre_mv_per_v,
         band.statistical_mv_per_v,
         band.coverage_k,
