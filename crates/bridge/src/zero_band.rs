@@ -117,6 +117,28 @@ impl ZeroBand {
     pub fn limit_mv_per_v(&self) -> f64 {
         self.limit_fraction * self.full_scale_mv_per_v
     }
+
+    /// A note for the technician and the engineer when a band takes more than the chosen
+    /// fraction of full scale: a zero inside such a band says little about the installation.
+    /// `None` when both bands are within it. A note, not a warning: with ordinary gauge
+    /// tolerances most bridges are zeroed electrically anyway (common practice).
+    pub fn note(&self) -> Option<String> {
+        let band = match self.exceeds {
+            ZeroBandExcess::Within | ZeroBandExcess::NoFullScale => return None,
+            ZeroBandExcess::StatisticalOnly => "the statistical band exceeds",
+            ZeroBandExcess::WorstCaseOnly => "the worst case exceeds",
+            ZeroBandExcess::Both => "both bands exceed",
+        };
+        Some(format!(
+            "Note: {band} {:.0} % of full scale ({:.4} of {:.4} mV/V), so a zero reading inside \
+             the band proves little about the installation: zero the bridge electrically and \
+             record the offset, or use gauges or completion resistors of closer resistance \
+             tolerance.",
+            self.limit_fraction * 100.0,
+            self.limit_mv_per_v(),
+            self.full_scale_mv_per_v
+        ))
+    }
 }
 
 /// Resistance tolerance of each arm of a prepared bridge: the completion resistor's tolerance,

@@ -230,6 +230,9 @@ fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation) {
          {:.4} to {:.4} mV/V at worst",
         centre, z.statistical_mv_per_v, z.coverage_k, z.worst_low_mv_per_v, z.worst_high_mv_per_v
     );
+    if let Some(note) = z.note() {
+        let _ = writeln!(out, "    {note}");
+    }
     if let Some(f) = b.wanted_per_mv_per_v {
         let _ = writeln!(
             out,

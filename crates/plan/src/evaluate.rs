@@ -613,13 +613,7 @@ fn evaluate_bridge(
         (&mut cases, findings),
         warn,
     )?;
-    let zero_band = zero_band_of(
-        model,
-        &cases,
-        project.zero_band_fraction,
-        (&place("zero reading"), target),
-        findings,
-    )?;
+    let zero_band = zero_band_of(model, &cases, project.zero_band_fraction)?;
     let wanted_per_mv_per_v = wanted_per_mv_per_v(&sensitivities, b.wanted, m_w, &channel);
     let pin_resistances = crate::wiring::pin_resistances(model);
     Ok(BridgeEvaluation {
@@ -647,51 +641,22 @@ fn evaluate_bridge(
 }
 
 /// The zero band of a bridge judged against its full scale (the largest |reading| over its load
-/// cases); a band wider than `fraction` of it becomes a warning that says what to do.
+/// cases); a band wider than `fraction` of it carries a note (`ZeroBand::note`).
 fn zero_band_of(
     model: &BridgeModel,
     cases: &[BridgeCase],
     fraction: f64,
-    (place, target): (&str, Target),
-    findings: &mut Vec<Finding>,
 ) -> Result<ZeroBand, gw_bridge::BridgeError> {
     let full_scale_mv_per_v = cases
         .iter()
         .map(|c| c.reading.mv_per_v.abs())
         .fold(0.0, f64::max);
-    let band = zero_band_of_model(
+    zero_band_of_model(
         model,
         ZeroBandLimit {
             full_scale_mv_per_v,
             fraction,
         },
-    )?;
-    if band.exceeds.exceeded() {
-        findings.push(Finding {
-            severity: Severity::Warn,
-            message: zero_band_message(place, &band),
-            target,
-        });
-    }
-    Ok(band)
-}
-
-/// The words of a zero band that is wide against full scale.
-fn zero_band_message(place: &str, band: &ZeroBand) -> String {
-    format!(
-        "{place}: the zero band is wide against full scale: expect {:.4} mV/V at no load, \
-         ± {:.4} mV/V from resistance tolerances (k = {}, about 95 %), {:.4} to {:.4} mV/V at \
-         worst, against a full scale of {:.4} mV/V ({:.0} %: {:.4} mV/V); use gauges or \
-         completion resistors of tighter resistance tolerance, or zero the bridge electrically \
-         and record the offset",
-        band.centre_mv_per_v,
-        band.statistical_mv_per_v,
-        band.coverage_k,
-        band.worst_low_mv_per_v,
-        band.worst_high_mv_per_v,
-        band.full_scale_mv_per_v,
-        band.limit_fraction * 100.0,
-        band.limit_mv_per_v()
     )
 }
 

@@ -208,6 +208,9 @@ fn zero_and_conversion_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEva
          tolerance as rectangular (JCGM 100:2008 §4.3.7), the worst case puts every arm at the \
          end of its tolerance",
     );
+    if let Some(note) = z.note() {
+        ui.label(note);
+    }
     let q = Quantity::of(be.wanted);
     match be.wanted_per_mv_per_v {
         Some(f) => {

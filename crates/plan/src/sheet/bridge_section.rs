@@ -27,7 +27,6 @@ pub(crate) fn zero_expected(be: &BridgeEvaluation) -> String {
 /// The zero check in full: both bands, how they were formed, and a note when either takes
 /// more than the project's chosen fraction of full scale.
 fn zero_words(be: &BridgeEvaluation) -> String {
-    use gw_bridge::zero_band::ZeroBandExcess;
     let z = &be.zero_band;
     let mut s = format!(
         "Zero with the part unloaded: {:.3} mV/V expected with every element at its nominal \
@@ -42,21 +41,9 @@ fn zero_words(be: &BridgeEvaluation) -> String {
         z.worst_low_mv_per_v,
         z.worst_high_mv_per_v
     );
-    let band = match z.exceeds {
-        ZeroBandExcess::Within | ZeroBandExcess::NoFullScale => None,
-        ZeroBandExcess::StatisticalOnly => Some("The statistical band"),
-        ZeroBandExcess::WorstCaseOnly => Some("The worst case"),
-        ZeroBandExcess::Both => Some("Both bands"),
-    };
-    if let Some(band) = band {
-        s.push_str(&format!(
-            " Note: {band} exceed{} {:.0} % of full scale ({:.4} mV/V): a zero inside the band \
-             proves little about the installation; zero the bridge electrically and record \
-             the offset, or use closer-tolerance gauges or completion resistors.",
-            if band == "Both bands" { "" } else { "s" },
-            z.limit_fraction * 100.0,
-            z.full_scale_mv_per_v
-        ));
+    if let Some(note) = z.note() {
+        s.push(' ');
+        s.push_str(&note);
     }
     s
 }
