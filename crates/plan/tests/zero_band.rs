@@ -5,7 +5,7 @@ use approx::assert_relative_eq;
 use gw_bridge::LeadWiring;
 use gw_plan::demo::demo_project;
 use gw_plan::document::{PlanArm, Project};
-use gw_plan::evaluate::{BridgeEvaluation, EvalOptions, Evaluation, Severity, evaluate};
+use gw_plan::evaluate::{BridgeEvaluation, EvalOptions, Evaluation, evaluate};
 use gw_plan::io::{project_from_str, project_to_string};
 use gw_plan::validate::validate_project;
 
