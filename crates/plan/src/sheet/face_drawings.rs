@@ -1,143 +1,233 @@
-//! Each face that carries gauges drawn to scale, with its gauges.
+//! Each face that carries gauges drawn to a stated scale from the standard series, seen from
+//! a stated side, with the names of what lies beyond each edge, the gauges with their grid
+//! lines, solder tabs and directions, and dimension lines from the datum. Long faces show only
+//! the regions round the gauges and the datum, with break lines between; round faces are
+//! unrolled (axial position across, arc length up) with the seam away from the gauges.
+
+pub(super) mod marks;
+pub(super) mod piece;
+pub(super) mod plan;
 
 use gw_mechanics::Face;
 
-use super::layout::{MARGIN, Op};
-use super::mm;
+use self::marks::Frame;
+use self::plan::{FaceSetup, Scale};
+use super::layout::{Area, MARGIN, ascent, descent, line_pitch, text_width, wrap};
 use super::writer::Writer;
 use crate::document::Part;
 
-/// Draws each face that carries gauges, to scale (round faces unrolled: axial position across,
-/// arc length up), with the gauges, their ids and grid directions.
+/// Size of labels on the drawings, points.
+pub(crate) const LABEL: f32 = 7.0;
+/// One row of labels, points.
+pub(super) const ROW: f32 = 11.5;
+/// Height of one tier of horizontal dimensions, points.
+const TIER: f32 = 16.0;
+/// Face shown round each gauge, points on the page.
+const PAD_PT: f64 = 40.0;
+/// Largest height of a drawn face, points.
+const MAX_FACE_PT: f32 = 300.0;
+/// Dimensions shorter than this are not drawn: the gauge lies on the datum's line, metres.
+const ON_LINE_M: f64 = 0.05e-3;
+
+/// Draws each face that carries gauges (see the module's description), from `w.y` down.
 pub(crate) fn draw(w: &mut Writer, part: &Part, placed: &[gw_bridge::PlacedGauge]) {
-    let faces = part.member.faces();
-    for extent in faces {
-        let gauges: Vec<_> = placed
-            .iter()
-            .filter(|g| g.position.face == extent.face)
-            .collect();
-        if gauges.is_empty() {
-            continue;
+    let mut drawn = 0;
+    for extent in part.member.faces() {
+        if let Some(setup) = FaceSetup::new(&part.member, extent, placed, part.datum_m) {
+            draw_face(w, &setup);
+            drawn += 1;
         }
-        let (x0, x1) = extent.x_range_m;
-        let (s0, s1) = extent.s_range_m;
-        let avail_w = w.width - 2.0 * MARGIN;
-        let scale = (avail_w as f64 / (x1 - x0)).min(160.0 / (s1 - s0));
-        let h = ((s1 - s0) * scale) as f32;
-        w.room(h + 40.0);
-        let y0 = w.y;
-        let title = if extent.face == Face::Round {
-            format!(
-                "{} (unrolled: axial position across, arc length up), scale 1:{:.1}",
-                extent.face.name(),
-                1.0 / (scale / 2834.6)
-            )
-        } else {
-            format!(
-                "{}, scale 1:{:.1}",
-                extent.face.name(),
-                1.0 / (scale / 2834.6)
-            )
-        };
-        w.text_at(MARGIN, y0, 9.0, true, title);
-        let top = y0 + 6.0;
-        let to = |x: f64, s: f64| -> (f32, f32) {
-            (
-                MARGIN + ((x - x0) * scale) as f32,
-                top + ((s1 - s) * scale) as f32,
-            )
-        };
-        w.ops().push(Op::Rect {
-            x: MARGIN,
-            y: top,
-            w: ((x1 - x0) * scale) as f32,
-            h,
-            fill: Some(245),
-            stroke: 0.8,
-        });
-        if let Some(a) = extent.hole_radius_m {
-            let (cx, cy) = to(0.0, 0.0);
-            let r = (a * scale) as f32;
-            w.ops().push(Op::Rect {
-                x: cx - r,
-                y: cy - r,
-                w: 2.0 * r,
-                h: 2.0 * r,
-                fill: Some(255),
-                stroke: 0.8,
-            });
-        }
-        let (dx, ds) = part.datum_m;
-        let (ux, uy) = to(dx, ds);
-        w.ops().push(Op::Line {
-            x1: ux - 5.0,
-            y1: uy,
-            x2: ux + 5.0,
-            y2: uy,
-            width: 0.8,
-            grey: 0,
-        });
-        w.ops().push(Op::Line {
-            x1: ux,
-            y1: uy - 5.0,
-            x2: ux,
-            y2: uy + 5.0,
-            width: 0.8,
-            grey: 0,
-        });
-        for g in &gauges {
-            for e in 0..g.element_count() {
-                let fp = g.footprint(e);
-                let c = fp.corners();
-                for k in 0..4 {
-                    let (ax, ay) = to(c[k].x_m, c[k].s_m);
-                    let (bx, by) = to(c[(k + 1) % 4].x_m, c[(k + 1) % 4].s_m);
-                    w.ops().push(Op::Line {
-                        x1: ax,
-                        y1: ay,
-                        x2: bx,
-                        y2: by,
-                        width: 0.9,
-                        grey: 0,
-                    });
-                }
-                let (sin, cos) = fp.angle_rad.sin_cos();
-                let half = fp.length_m;
-                let (ax, ay) = to(fp.center.x_m - half * cos, fp.center.s_m - half * sin);
-                let (bx, by) = to(fp.center.x_m + half * cos, fp.center.s_m + half * sin);
-                w.ops().push(Op::Line {
-                    x1: ax,
-                    y1: ay,
-                    x2: bx,
-                    y2: by,
-                    width: 0.4,
-                    grey: 80,
-                });
-            }
-            let (gx, gy) = to(g.position.x_m, g.position.s_m);
-            w.text_at(gx + 4.0, gy - 4.0, 8.0, true, g.id.clone());
-            // Dimensions from the datum beside each gauge.
-            w.text_at(
-                gx + 4.0,
-                gy + 6.0,
-                6.5,
-                false,
-                format!(
-                    "{:.1} / {:.1} mm",
-                    (g.position.x_m - dx) * 1e3,
-                    (g.position.s_m - ds) * 1e3
-                ),
-            );
-        }
-        w.y = top + h + 14.0;
-        w.para(
-            8.0,
-            false,
-            &format!(
-                "Datum (+) at x = {}, s = {}. Positions below are measured from the datum.",
-                mm(dx),
-                mm(ds)
-            ),
-        );
+    }
+    if drawn > 0 {
+        labels::key(w);
     }
 }
+
+/// A length in mm with one decimal.
+pub(crate) fn mm1(v_m: f64) -> String {
+    format!("{:.1} mm", v_m * 1e3)
+}
+
+/// The face's name with a capital.
+pub(crate) fn face_title(face: Face) -> String {
+    let name = face.name();
+    let mut c = name.chars();
+    c.next()
+        .map(|f| f.to_uppercase().collect::<String>() + c.as_str())
+        .unwrap_or_default()
+}
+
+/// One dimension from the datum to a gauge, along x or s.
+#[derive(Debug, Clone)]
+struct Dim {
+    /// Signed distance from the datum, metres.
+    value_m: f64,
+    /// The gauge measured to.
+    gauge: usize,
+}
+
+impl Dim {
+    fn text(&self) -> String {
+        format!("{:.1}", self.value_m * 1e3)
+    }
+}
+
+/// Dimensions along x (`along_x`) or s: one per distinct distance from the datum, to the gauge
+/// nearest the dimension lines (lowest for x, rightmost for s), shortest first. The gauges on
+/// the datum's own line are returned apart.
+fn dims(setup: &FaceSetup, along_x: bool) -> (Vec<Dim>, Vec<usize>) {
+    let coord = |i: usize| {
+        let p = setup.gauges[i].position;
+        if along_x {
+            p.x_m - setup.datum.0
+        } else {
+            p.s_m - setup.datum.1
+        }
+    };
+    let nearer = |i: usize, j: usize| {
+        let (p, q) = (setup.gauges[i].position, setup.gauges[j].position);
+        if along_x {
+            p.s_m < q.s_m
+        } else {
+            p.x_m > q.x_m
+        }
+    };
+    let mut out: Vec<Dim> = Vec::new();
+    let mut on_line = Vec::new();
+    for i in 0..setup.gauges.len() {
+        let v = coord(i);
+        if v.abs() < ON_LINE_M {
+            on_line.push(i);
+            continue;
+        }
+        match out.iter_mut().find(|d| (d.value_m - v).abs() < ON_LINE_M) {
+            Some(d) if nearer(i, d.gauge) => d.gauge = i,
+            Some(_) => {}
+            None => out.push(Dim {
+                value_m: v,
+                gauge: i,
+            }),
+        }
+    }
+    out.sort_by(|a, b| a.value_m.abs().total_cmp(&b.value_m.abs()));
+    (out, on_line)
+}
+
+/// Height of a label's box.
+fn label_h() -> f32 {
+    ascent(LABEL, false) + descent(LABEL, false)
+}
+
+/// A face drawing being laid out.
+struct Drawing<'a> {
+    setup: &'a FaceSetup,
+    scale: Scale,
+    frame: Frame,
+    x_dims: Vec<Dim>,
+    s_dims: Vec<Dim>,
+    /// Spacing of the vertical dimension tiers, points.
+    s_tier: f32,
+    /// Where the drawing's labels may go.
+    bounds: Area,
+    /// Boxes round the drawn gauges.
+    gauge_boxes: Vec<Area>,
+    /// Labels that found no free place, named in a note under the drawing.
+    missing: Vec<String>,
+}
+
+fn draw_face(w: &mut Writer, setup: &FaceSetup) {
+    let (x_dims, on_x) = dims(setup, true);
+    let (s_dims, on_s) = dims(setup, false);
+    let s_tier = s_dims
+        .iter()
+        .map(|d| text_width(&d.text(), LABEL, false))
+        .fold(0.0f32, f32::max)
+        + 12.0;
+    let right_room = if s_dims.is_empty() {
+        0.0
+    } else {
+        14.0 + s_tier * s_dims.len() as f32
+    };
+    let title = format!("{}: {}.", face_title(setup.face), setup.view_words());
+    let title_h = wrap(&title, 9.0, true, w.column()).len() as f32 * line_pitch(9.0, true);
+    let under = 2.0 * ROW + TIER * x_dims.len() as f32 + 44.0;
+    let over = title_h + line_pitch(8.0, false) + 2.0 * ROW + 6.0;
+    let body = w.body();
+    let max_h = (body.y1 - body.y0 - over - under - 10.0).min(MAX_FACE_PT);
+    let max_w = w.column() - right_room - 8.0;
+    let (scale, x, s) = setup.fit(max_w, max_h, PAD_PT);
+    let face_h = s.length_pt();
+    w.room(over + face_h + under);
+    let top = w.y;
+    let after_title = w.wrapped(MARGIN, top, w.column(), 9.0, true, &title);
+    let scale_line = format!(
+        "Scale {} when printed at 100 % (no fit-to-page): measure the scale bar before marking \
+         out. Dimensions in mm from the datum.",
+        scale.label()
+    );
+    let after_scale = w.wrapped(MARGIN, after_title, w.column(), 8.0, false, &scale_line);
+    let frame = Frame {
+        x,
+        s,
+        left: MARGIN + 8.0,
+        top: after_scale + 2.0 * ROW + 4.0,
+    };
+    let bottom = frame.top + face_h + under;
+    let mut d = Drawing {
+        setup,
+        scale,
+        bounds: Area::new(MARGIN, after_scale, w.right(), bottom),
+        frame,
+        x_dims,
+        s_dims,
+        s_tier,
+        gauge_boxes: Vec::new(),
+        missing: Vec::new(),
+    };
+    d.draw_face_outline(w);
+    d.draw_gauges(w);
+    let datum_box = d.draw_datum(w);
+    d.draw_x_dims(w, datum_box);
+    d.draw_s_dims(w, datum_box);
+    d.draw_scale_and_axes(w);
+    d.label_dims(w);
+    d.label_gauges(w, datum_box);
+    d.label_edges(w);
+    w.y = bottom;
+    d.legend(w, &on_x, &on_s);
+}
+
+impl Drawing<'_> {
+    /// Points per metre on the page.
+    fn k(&self) -> f32 {
+        self.scale.pt_per_m() as f32
+    }
+
+    /// Page centre of gauge `i`.
+    fn centre(&self, i: usize) -> [f32; 2] {
+        let p = self.setup.gauges[i].position;
+        self.frame.page_near(p.x_m, p.s_m, (p.x_m, p.s_m))
+    }
+
+    fn datum_page(&self) -> [f32; 2] {
+        let (x, s) = self.setup.datum;
+        self.frame.page_near(x, s, (x, s))
+    }
+
+    fn draw_gauges(&mut self, w: &mut Writer) {
+        for i in 0..self.setup.gauges.len() {
+            let b = marks::gauge(w, &self.setup.gauges[i], self.centre(i), self.k());
+            self.gauge_boxes.push(b);
+        }
+    }
+
+    fn draw_datum(&self, w: &mut Writer) -> Area {
+        marks::datum_mark(w, self.datum_page(), 3.5)
+    }
+}
+
+mod labels;
+mod outline;
+
+#[cfg(test)]
+mod tests;

@@ -1,0 +1,265 @@
+//! The marks of a face drawing: the frame from face to page, gauges with their grids, solder
+//! tabs and direction arrows, dimension lines with arrowheads, break lines, the datum symbol,
+//! the scale bar and the axis arrows.
+
+use gw_bridge::PlacedGauge;
+
+use super::plan::Axis;
+use crate::sheet::layout::{Area, Op};
+use crate::sheet::writer::Writer;
+
+/// Where the face lands on the page: x runs right, s runs up.
+#[derive(Debug, Clone)]
+pub(crate) struct Frame {
+    pub x: Axis,
+    pub s: Axis,
+    /// Page position of the drawing's left edge and top edge, points.
+    pub left: f32,
+    pub top: f32,
+}
+
+impl Frame {
+    pub fn width(&self) -> f32 {
+        self.x.length_pt()
+    }
+
+    pub fn height(&self) -> f32 {
+        self.s.length_pt()
+    }
+
+    pub fn area(&self) -> Area {
+        Area::new(
+            self.left,
+            self.top,
+            self.left + self.width(),
+            self.top + self.height(),
+        )
+    }
+
+    pub fn page_x(&self, x_m: f64) -> Option<f32> {
+        self.x.to_pt(x_m).map(|v| self.left + v)
+    }
+
+    pub fn page_y(&self, s_m: f64) -> Option<f32> {
+        self.s.to_pt(s_m).map(|v| self.top + self.height() - v)
+    }
+
+    /// Page point of (x, s), measured in the windows that hold `near` (a gauge's centre).
+    pub fn page_near(&self, x_m: f64, s_m: f64, near: (f64, f64)) -> [f32; 2] {
+        [
+            self.left + self.x.to_pt_near(x_m, near.0),
+            self.top + self.height() - self.s.to_pt_near(s_m, near.1),
+        ]
+    }
+}
+
+fn line(w: &mut Writer, a: [f32; 2], b: [f32; 2], width: f32, grey: u8) {
+    w.ops().push(Op::Line {
+        x1: a[0],
+        y1: a[1],
+        x2: b[0],
+        y2: b[1],
+        width,
+        grey,
+    });
+}
+
+/// A polyline (closed: a polygon) drawn as straight lines.
+pub(crate) fn poly(w: &mut Writer, points: &[[f32; 2]], closed: bool, width: f32, grey: u8) {
+    for p in points.windows(2) {
+        line(w, p[0], p[1], width, grey);
+    }
+    if closed && points.len() > 2 {
+        line(w, points[points.len() - 1], points[0], width, grey);
+    }
+}
+
+/// A filled arrowhead with its tip at `tip`, pointing along the unit vector `dir`.
+pub(crate) fn arrow_head(w: &mut Writer, tip: [f32; 2], dir: [f32; 2], len: f32) {
+    let half = 0.3 * len;
+    let base = [tip[0] - dir[0] * len, tip[1] - dir[1] * len];
+    let side = [-dir[1] * half, dir[0] * half];
+    let a = [base[0] + side[0], base[1] + side[1]];
+    let b = [base[0] - side[0], base[1] - side[1]];
+    w.path(vec![tip, a, b], true, 0.3, Some(0));
+}
+
+/// A dimension line from `a` to `b` with arrowheads at both ends; when it is too short for
+/// them, the arrows sit outside pointing in, on short runs of the line.
+pub(crate) fn dimension_line(w: &mut Writer, a: [f32; 2], b: [f32; 2]) {
+    let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
+    let len = dx.hypot(dy);
+    if len < 1e-3 {
+        return;
+    }
+    let u = [dx / len, dy / len];
+    let head = 5.0;
+    if len >= 2.6 * head {
+        line(w, a, b, 0.4, 0);
+        arrow_head(w, a, [-u[0], -u[1]], head);
+        arrow_head(w, b, u, head);
+    } else {
+        let out = head + 5.0;
+        line(
+            w,
+            [a[0] - u[0] * out, a[1] - u[1] * out],
+            [b[0] + u[0] * out, b[1] + u[1] * out],
+            0.4,
+            0,
+        );
+        arrow_head(w, a, u, head);
+        arrow_head(w, b, [-u[0], -u[1]], head);
+    }
+}
+
+/// An extension line (thin, grey) from `a` to `b`.
+pub(crate) fn extension_line(w: &mut Writer, a: [f32; 2], b: [f32; 2]) {
+    line(w, a, b, 0.3, 90);
+}
+
+/// A break line from `a` to `b`: straight with one zig-zag in the middle.
+pub(crate) fn break_line(w: &mut Writer, a: [f32; 2], b: [f32; 2]) {
+    let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
+    let len = dx.hypot(dy);
+    if len < 1e-3 {
+        return;
+    }
+    let u = [dx / len, dy / len];
+    let n = [-u[1], u[0]];
+    let z = 4.0f32.min(len / 6.0);
+    let at = |t: f32, off: f32| [a[0] + u[0] * t + n[0] * off, a[1] + u[1] * t + n[1] * off];
+    let m = len / 2.0;
+    let points = [
+        a,
+        at(m - z, 0.0),
+        at(m - z / 2.0, 1.6 * z),
+        at(m + z / 2.0, -1.6 * z),
+        at(m + z, 0.0),
+        b,
+    ];
+    poly(w, &points, false, 0.6, 0);
+}
+
+/// The datum symbol: a circle of radius `r` with a cross through it; returns its box.
+pub(crate) fn datum_mark(w: &mut Writer, c: [f32; 2], r: f32) -> Area {
+    let points: Vec<[f32; 2]> = (0..20)
+        .map(|k| {
+            let t = k as f32 / 20.0 * std::f32::consts::TAU;
+            [c[0] + r * t.cos(), c[1] + r * t.sin()]
+        })
+        .collect();
+    poly(w, &points, true, 0.8, 0);
+    let k = 1.7 * r;
+    line(w, [c[0] - k, c[1]], [c[0] + k, c[1]], 0.6, 0);
+    line(w, [c[0], c[1] - k], [c[0], c[1] + k], 0.6, 0);
+    Area::new(c[0] - k, c[1] - k, c[0] + k, c[1] + k)
+}
+
+/// Page direction of a grid axis at `angle_rad` counter-clockwise from +x (page y runs down).
+fn page_dir(angle_rad: f64) -> [f32; 2] {
+    let (s, c) = angle_rad.sin_cos();
+    [c as f32, -(s as f32)]
+}
+
+/// One gauge at page point `centre`, `k` points per metre: every grid's outline, its grid
+/// lines along the grid direction and two solder tabs beyond the grid's start (the end away
+/// from its direction, as the app's face view draws them), and an arrow along the gauge's
+/// reference direction. Returns the box round everything drawn.
+pub(crate) fn gauge(w: &mut Writer, g: &PlacedGauge, centre: [f32; 2], k: f32) -> Area {
+    let len = g.spec.grid_length_m as f32 * k;
+    let wid = g.spec.grid_width_m as f32 * k;
+    let mut pts: Vec<[f32; 2]> = Vec::new();
+    for e in 0..g.element_count() {
+        pts.extend(grid(w, centre, page_dir(g.element_angle_rad(e)), len, wid));
+    }
+    let u = page_dir(g.angle_rad);
+    let reach = pts
+        .iter()
+        .map(|p| (p[0] - centre[0]).hypot(p[1] - centre[1]))
+        .fold(0.0f32, f32::max);
+    let from = reach + 1.5;
+    let tip = from + (0.6 * len).clamp(9.0, 16.0);
+    let at = |t: f32| [centre[0] + u[0] * t, centre[1] + u[1] * t];
+    line(w, at(from), at(tip - 3.0), 0.7, 0);
+    arrow_head(w, at(tip), u, 5.0);
+    pts.push(at(tip));
+    pts.iter().fold(
+        Area::new(centre[0], centre[1], centre[0], centre[1]),
+        |a, p| {
+            Area::new(
+                a.x0.min(p[0]),
+                a.y0.min(p[1]),
+                a.x1.max(p[0]),
+                a.y1.max(p[1]),
+            )
+        },
+    )
+}
+
+/// One grid: outline, four lines along `u`, tabs beyond the −u end. Returns its corner points.
+fn grid(w: &mut Writer, c: [f32; 2], u: [f32; 2], len: f32, wid: f32) -> Vec<[f32; 2]> {
+    let v = [-u[1], u[0]];
+    let at = |a: f32, b: f32| [c[0] + u[0] * a + v[0] * b, c[1] + u[1] * a + v[1] * b];
+    let (l, h) = (len / 2.0, wid / 2.0);
+    let outline = vec![at(-l, -h), at(l, -h), at(l, h), at(-l, h)];
+    poly(w, &outline, true, 0.6, 0);
+    let n = 4;
+    for i in 0..n {
+        let b = -h + wid * (i as f32 + 0.5) / n as f32;
+        line(w, at(-0.92 * l, b), at(0.92 * l, b), 0.35, 60);
+    }
+    let (tab_len, tab_wid) = (0.28 * len, 0.38 * wid);
+    let start = -l - 0.08 * len;
+    let mut out = outline;
+    for side in [-1.0f32, 1.0] {
+        let mid = side * (h - tab_wid / 2.0);
+        let pad = vec![
+            at(start, mid - tab_wid / 2.0),
+            at(start - tab_len, mid - tab_wid / 2.0),
+            at(start - tab_len, mid + tab_wid / 2.0),
+            at(start, mid + tab_wid / 2.0),
+        ];
+        out.extend(pad.iter().copied());
+        w.path(pad, true, 0.5, Some(150));
+    }
+    out
+}
+
+/// A scale bar of `length_mm` at `pt_per_mm` from (`x`, `y`): five parts, black and white in
+/// turn, with "0" and "{length} mm" under its ends. Returns its box.
+pub(crate) fn scale_bar(w: &mut Writer, x: f32, y: f32, length_mm: f64, pt_per_mm: f64) -> Area {
+    let len = (length_mm * pt_per_mm) as f32;
+    let h = 3.0;
+    for k in 0..5 {
+        let a = x + len * k as f32 / 5.0;
+        w.rect(
+            Area::new(a, y, a + len / 5.0, y + h),
+            Some(if k % 2 == 0 { 0 } else { 255 }),
+            0.5,
+        );
+    }
+    let size = 7.0;
+    let zero = w.text_top(x - 2.0, y + h + 2.0, size, false, "0");
+    let label = format!("{} mm", fmt_mm(length_mm));
+    let end = crate::sheet::layout::text_width(&label, size, false);
+    let last = w.text_top(x + len - end / 2.0, y + h + 2.0, size, false, &label);
+    Area::new(x, y, last.x1.max(x + len), zero.y1.max(last.y1))
+}
+
+/// A length in mm without trailing zeros: "50", "2.5".
+pub(crate) fn fmt_mm(v: f64) -> String {
+    let s = format!("{v:.2}");
+    s.trim_end_matches('0').trim_end_matches('.').to_owned()
+}
+
+/// The axis arrows from (`x`, `y`) (their common tail): "+x" to the right, "+s" up, each
+/// `len` points. Returns the box of the glyph with its labels.
+pub(crate) fn axis_arrows(w: &mut Writer, x: f32, y: f32, len: f32) -> Area {
+    line(w, [x, y], [x + len - 3.0, y], 0.7, 0);
+    arrow_head(w, [x + len, y], [1.0, 0.0], 5.0);
+    line(w, [x, y], [x, y - len + 3.0], 0.7, 0);
+    arrow_head(w, [x, y - len], [0.0, -1.0], 5.0);
+    let a = w.text_top(x + len + 3.0, y - 5.0, 7.5, true, "+x");
+    let b = w.text_top(x + 4.0, y - len - 4.0, 7.5, true, "+s");
+    Area::new(x - 4.0, b.y0, a.x1, y + 4.0)
+}
