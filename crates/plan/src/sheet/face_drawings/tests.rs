@@ -118,3 +118,81 @@ fn the_stated_scale_is_the_drawn_scale() {
         "{bar} pt for {label} mm"
     );
 }
+
+#[test]
+fn a_dimension_line_is_as_long_as_its_value_at_the_stated_scale() {
+    // The reaction arm's gauges sit 50 mm from the datum along x, drawn unbroken: the longest
+    // horizontal dimension line is 50 mm × the stated ratio.
+    let project = crate::demo::demo_project();
+    let part = &project.parts[0];
+    let placed: Vec<_> = project
+        .placed_gauges(part)
+        .into_iter()
+        .filter(|g| g.position.face == Face::Top)
+        .collect();
+    let mut w = writer();
+    draw(&mut w, part, &placed);
+    let ratio = stated_ratio(&w);
+    let longest = w.pages[0]
+        .iter()
+        .filter_map(|op| match op {
+            Op::Line {
+                x1,
+                y1,
+                x2,
+                y2,
+                width,
+                ..
+            } if *width == 0.4 && y1 == y2 => Some((x2 - x1).abs() as f64),
+            _ => None,
+        })
+        .fold(0.0, f64::max);
+    let want = 50.0 * ratio * 72.0 / 25.4;
+    assert!(
+        (longest - want).abs() < 0.01,
+        "{longest} pt, want {want} pt"
+    );
+    assert!(texts(&w).iter().any(|t| t == "50.0"));
+}
+
+#[test]
+fn each_face_says_how_it_is_seen_and_what_lies_beyond_its_edges() {
+    let project = crate::demo::demo_project();
+    let part = &project.parts[0];
+    let mut w = writer();
+    draw(&mut w, part, &project.placed_gauges(part));
+    let all = texts(&w).join("\n");
+    for want in [
+        "Top face: seen from above, looking down on the top face.",
+        "beyond the upper edge: back face",
+        "beyond the lower edge: front face",
+        "beyond the left edge: clamped end at x = 0.0 mm",
+        // The back face is drawn with x to the right, so the bottom face lies above it (past a
+        // break: the 60 mm side is not drawn whole).
+        "upper edge: bottom face",
+        "+x",
+    ] {
+        assert!(all.contains(want), "\"{want}\" missing from:\n{all}");
+    }
+}
+
+#[test]
+fn every_stated_scale_is_from_the_series_and_long_faces_are_broken() {
+    let names: Vec<String> = plan::SERIES.iter().map(|s| s.label()).collect();
+    for project in projects() {
+        for part in &project.parts {
+            let mut w = writer();
+            draw(&mut w, part, &project.placed_gauges(part));
+            for t in texts(&w).iter().filter(|t| t.starts_with("Scale ")) {
+                let name = t["Scale ".len()..].split_whitespace().next().unwrap_or("");
+                assert!(names.iter().any(|n| n == name), "{}: {t}", part.name);
+            }
+        }
+    }
+    // The drum drive shaft is 600 mm long with gauges at 150 and 300 mm: drawn in pieces.
+    let project = crate::demo::demo_project();
+    let part = &project.parts[1];
+    let mut w = writer();
+    draw(&mut w, part, &project.placed_gauges(part));
+    assert!(texts(&w).iter().any(|t| t.starts_with("past the break")));
+}
