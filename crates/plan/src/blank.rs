@@ -189,6 +189,7 @@ pub fn blank_project(first: Part) -> Project {
         reference_temperature_c: 20.0,
         warn_utilisation: gw_bridge::margins::DEFAULT_WARN_UTILISATION,
         zero_band_fraction: gw_bridge::zero_band::DEFAULT_ZERO_BAND_FRACTION,
+        marking_templates: true,
         lead_colours: LeadColours::default(),
         gauge_stock: Vec::new(),
         parts: vec![first],

@@ -420,6 +420,7 @@ pub fn demo_project() -> Project {
         reference_temperature_c: reference,
         warn_utilisation: gw_bridge::margins::DEFAULT_WARN_UTILISATION,
         zero_band_fraction: gw_bridge::zero_band::DEFAULT_ZERO_BAND_FRACTION,
+        marking_templates: true,
         lead_colours: LeadColours::default(),
         gauge_stock: stock(),
         parts,

@@ -46,6 +46,10 @@ pub struct Project {
     /// Paper size of the build sheet.
     #[serde(default)]
     pub paper: PaperSize,
+    /// Whether the build sheet ends with a 1:1 marking template of each face that carries
+    /// gauges (default: yes).
+    #[serde(default = "default_marking_templates")]
+    pub marking_templates: bool,
     /// Temperature at which bridges are zeroed and gauge data apply, °C.
     pub reference_temperature_c: f64,
     /// Utilisation above which a margin warns, fraction (default 0.8, ours).
@@ -70,6 +74,10 @@ pub struct Project {
 
 fn default_warn() -> f64 {
     gw_bridge::margins::DEFAULT_WARN_UTILISATION
+}
+
+fn default_marking_templates() -> bool {
+    true
 }
 
 fn default_zero_band_fraction() -> f64 {

@@ -114,6 +114,7 @@ impl ProjectV1 {
             reference_temperature_c: reference,
             warn_utilisation: self.warn_utilisation,
             zero_band_fraction: gw_bridge::zero_band::DEFAULT_ZERO_BAND_FRACTION,
+            marking_templates: true,
             lead_colours: self.lead_colours,
             gauge_stock: stock,
             parts,

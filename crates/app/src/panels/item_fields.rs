@@ -125,6 +125,15 @@ fn header_fields() -> Vec<Field<Project>> {
             |p: &Project| p.paper,
             |p, v| p.paper = v,
         ),
+        pick(
+            "marking_templates",
+            "Marking templates",
+            "Whether the build sheet ends with a 1:1 marking template of each face with gauges \
+             (print at 100 % and check the 50 mm bar before marking out)",
+            &[(true, "included"), (false, "left out")],
+            |p: &Project| p.marking_templates,
+            |p, v| p.marking_templates = v,
+        ),
         num(
             "reference_temperature_c",
             "Reference temperature",

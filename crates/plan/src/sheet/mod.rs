@@ -9,7 +9,6 @@ mod part_section;
 mod part_views;
 mod pdf;
 mod records;
-#[allow(dead_code)]
 mod template;
 mod wiring_diagram;
 mod writer;
@@ -109,6 +108,18 @@ fn header(project: &Project) -> Header {
     }
 }
 
+/// A 1:1 marking template of every face that carries gauges, each on pages of its own.
+fn templates(w: &mut Writer, project: &Project) {
+    for part in &project.parts {
+        let placed = project.placed_gauges(part);
+        for extent in part.member.faces() {
+            if placed.iter().any(|g| g.position.face == extent.face) {
+                template::draw(w, part, &placed, extent.face);
+            }
+        }
+    }
+}
+
 /// Lays out the whole sheet.
 fn compose(project: &Project, ev: &Evaluation) -> Writer {
     let mut w = Writer::new(project.paper, header(project));
@@ -128,6 +139,9 @@ fn compose(project: &Project, ev: &Evaluation) -> Writer {
     records::gauge_records(&mut w, project);
     records::bridge_records(&mut w, project, ev);
     records::checklist(&mut w);
+    if project.marking_templates {
+        templates(&mut w, project);
+    }
     w.finish();
     w
 }

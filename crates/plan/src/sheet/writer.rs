@@ -141,8 +141,13 @@ impl Writer {
     /// A paragraph across the column, indented by `indent`.
     pub fn para_indented(&mut self, indent: f32, size: f32, bold: bool, text: &str) {
         let width = self.column() - indent;
-        for line in wrap(text, size, bold, width) {
-            let pitch = line_pitch(size, bold);
+        let lines = wrap(text, size, bold, width);
+        let pitch = line_pitch(size, bold);
+        // A short paragraph stays on one page.
+        if lines.len() <= 8 {
+            self.room(lines.len() as f32 * pitch);
+        }
+        for line in lines {
             self.room(pitch);
             let top = self.y;
             self.text_top(MARGIN + indent, top, size, bold, &line);
