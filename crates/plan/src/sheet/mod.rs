@@ -192,4 +192,34 @@ mod tests {
         assert!(!first.contains("MARGIN FAILS"));
         assert!(first.contains("not a certification"));
     }
+
+    #[test]
+    fn marking_templates_follow_the_project_setting() {
+        let mut p = crate::demo::demo_project();
+        let ev = crate::evaluate(&p, &crate::EvalOptions::default());
+        let faces_with_gauges: usize = p
+            .parts
+            .iter()
+            .map(|part| {
+                let placed = p.placed_gauges(part);
+                part.member
+                    .faces()
+                    .iter()
+                    .filter(|e| placed.iter().any(|g| g.position.face == e.face))
+                    .count()
+            })
+            .sum();
+        assert!(faces_with_gauges >= 5);
+        let titled = |w: &Writer| {
+            (0..w.pages.len())
+                .filter(|&i| page_text(w, i).contains("Marking template at 1:1"))
+                .count()
+        };
+        let with = compose(&p, &ev);
+        assert!(titled(&with) >= faces_with_gauges);
+        p.marking_templates = false;
+        let without = compose(&p, &ev);
+        assert_eq!(titled(&without), 0);
+        assert!(without.pages.len() < with.pages.len());
+    }
 }
