@@ -304,7 +304,6 @@ fn evaluate_part(
     findings: &mut Vec<Finding>,
 ) -> PartEvaluation {
     let member = &part.member;
-    let material = member.material();
     for w in member.warnings() {
         findings.push(Finding {
             severity: Severity::Warn,
@@ -312,7 +311,70 @@ fn evaluate_part(
             target: Target::Part { part: pi },
         });
     }
-    let warn = project.warn_utilisation;
+    let cases = case_figures(project, pi, part, options, findings);
+    let gauges = project.placed_gauges(part);
+    curve_range_findings(project, pi, part, &gauges, findings);
+    crate::placement::placement_findings(pi, part, &gauges, options.quadrature, findings);
+    let setup = Setup {
+        member,
+        gauges: &gauges,
+        reference_temperature_c: project.reference_temperature_c,
+        quadrature: options.quadrature,
+    };
+    let expected = expected_magnitudes(part);
+    let mut bridges = Vec::new();
+    let mut bridge_indices = Vec::new();
+    let mut models = Vec::new();
+    for (bi, plan) in part.bridges.iter().enumerate() {
+        let target = Target::Bridge {
+            part: pi,
+            bridge: bi,
+        };
+        if !bridge_plan_findings(part, plan, target, findings) {
+            continue;
+        }
+        let result = model_of(part, &gauges, plan, &setup).and_then(|model| {
+            evaluate_bridge(project, part, &model, &expected, options, pi, bi, findings)
+                .map(|ev| (ev, model))
+                .map_err(|e| e.to_string())
+        });
+        match result {
+            Ok((ev, model)) => {
+                bridges.push(ev);
+                bridge_indices.push(bi);
+                models.push(model);
+            }
+            Err(message) => findings.push(Finding {
+                severity: Severity::Error,
+                message: format!(
+                    "part \"{}\", bridge \"{}\": {message}",
+                    part.name, plan.name
+                ),
+                target,
+            }),
+        }
+    }
+    PartEvaluation {
+        part_index: pi,
+        name: part.name.clone(),
+        kind: member.kind_name().to_owned(),
+        cases,
+        bridges,
+        bridge_indices,
+        multi_axis: multi_axis_of(&models, part, pi, findings),
+    }
+}
+
+/// The largest stress of each load case against yield, its margin added to the findings.
+fn case_figures(
+    project: &Project,
+    pi: usize,
+    part: &Part,
+    options: &EvalOptions,
+    findings: &mut Vec<Finding>,
+) -> Vec<CaseFigures> {
+    let member = &part.member;
+    let material = member.material();
     let mut cases = Vec::new();
     for (ci, case) in part.load_cases.iter().enumerate() {
         let loads = case.load_vector();
@@ -322,7 +384,7 @@ fn evaluate_part(
                     MarginKind::PeakStressInPart,
                     peak,
                     material.yield_strength_pa,
-                    warn,
+                    project.warn_utilisation,
                 );
                 push_margin(
                     findings,
@@ -352,82 +414,71 @@ fn evaluate_part(
             }),
         }
     }
-    let gauges = project.placed_gauges(part);
-    curve_range_findings(project, pi, part, &gauges, findings);
-    crate::placement::placement_findings(pi, part, &gauges, options.quadrature, findings);
-    let setup = Setup {
-        member,
-        gauges: &gauges,
-        reference_temperature_c: project.reference_temperature_c,
-        quadrature: options.quadrature,
-    };
-    let expected = expected_magnitudes(part);
-    let mut bridges = Vec::new();
-    let mut bridge_indices = Vec::new();
-    let mut models = Vec::new();
-    for (bi, plan) in part.bridges.iter().enumerate() {
-        let target = Target::Bridge {
-            part: pi,
-            bridge: bi,
-        };
-        if let Some(o) = &plan.bridge_factor_override
-            && o.reason.trim().is_empty()
-        {
-            findings.push(Finding {
-                severity: Severity::Warn,
-                message: format!(
-                    "part \"{}\", bridge \"{}\": the bridge factor {} is typed without a reason; \
-                     say why the computed one is not used",
-                    part.name, plan.name, o.value
-                ),
-                target,
-            });
-        }
-        if !plan.is_wired() {
-            findings.push(Finding {
-                severity: Severity::Warn,
-                message: format!(
-                    "part \"{}\", bridge \"{}\": not wired yet; put a grid in at least one arm",
-                    part.name, plan.name
-                ),
-                target,
-            });
-            continue;
-        }
-        let result = bridge_from_plan(part, &gauges, plan)
-            .map_err(|e| e.to_string())
-            .and_then(|b| BridgeModel::new(&setup, &b).map_err(|e| e.to_string()))
-            .map(|mut model| {
-                // One model serves both: the factor only changes the displayed conversion.
-                let factor = match &plan.bridge_factor_override {
-                    Some(o) => o.value,
-                    None => crate::arrangements::bridge_factor_of_model(&model),
-                };
-                model.set_bridge_factor(factor);
-                model
-            })
-            .and_then(|model| {
-                evaluate_bridge(project, part, &model, &expected, options, pi, bi, findings)
-                    .map(|ev| (ev, model))
-                    .map_err(|e| e.to_string())
-            });
-        match result {
-            Ok((ev, model)) => {
-                bridges.push(ev);
-                bridge_indices.push(bi);
-                models.push(model);
-            }
-            Err(message) => findings.push(Finding {
-                severity: Severity::Error,
-                message: format!(
-                    "part \"{}\", bridge \"{}\": {message}",
-                    part.name, plan.name
-                ),
-                target,
-            }),
-        }
+    cases
+}
+
+/// Warnings about a bridge's plan itself (a typed bridge factor without a reason, no grid
+/// wired); false when the bridge is not wired and cannot be evaluated.
+fn bridge_plan_findings(
+    part: &Part,
+    plan: &crate::document::BridgePlan,
+    target: Target,
+    findings: &mut Vec<Finding>,
+) -> bool {
+    if let Some(o) = &plan.bridge_factor_override
+        && o.reason.trim().is_empty()
+    {
+        findings.push(Finding {
+            severity: Severity::Warn,
+            message: format!(
+                "part \"{}\", bridge \"{}\": the bridge factor {} is typed without a reason; \
+                 say why the computed one is not used",
+                part.name, plan.name, o.value
+            ),
+            target,
+        });
     }
-    let multi = match multi_axis(&models, member.components()) {
+    if !plan.is_wired() {
+        findings.push(Finding {
+            severity: Severity::Warn,
+            message: format!(
+                "part \"{}\", bridge \"{}\": not wired yet; put a grid in at least one arm",
+                part.name, plan.name
+            ),
+            target,
+        });
+        return false;
+    }
+    true
+}
+
+/// The measurement model of a wired bridge, with its bridge factor (typed or computed).
+fn model_of(
+    part: &Part,
+    gauges: &[gw_bridge::PlacedGauge],
+    plan: &crate::document::BridgePlan,
+    setup: &Setup,
+) -> Result<BridgeModel, String> {
+    let bridge = bridge_from_plan(part, gauges, plan).map_err(|e| e.to_string())?;
+    let mut model = BridgeModel::new(setup, &bridge).map_err(|e| e.to_string())?;
+    // One model serves both: the factor only changes the displayed conversion.
+    let factor = match &plan.bridge_factor_override {
+        Some(o) => o.value,
+        None => crate::arrangements::bridge_factor_of_model(&model),
+    };
+    model.set_bridge_factor(factor);
+    Ok(model)
+}
+
+/// The loads the part's bridges solve for together, with a warning when they separate them
+/// poorly or cannot.
+fn multi_axis_of(
+    models: &[BridgeModel],
+    part: &Part,
+    pi: usize,
+    findings: &mut Vec<Finding>,
+) -> Option<MultiAxis> {
+    let multi = match multi_axis(models, part.member.components()) {
         Ok(m) => m,
         Err(e) => {
             findings.push(Finding {
@@ -451,15 +502,7 @@ fn evaluate_part(
             target: Target::Part { part: pi },
         });
     }
-    PartEvaluation {
-        part_index: pi,
-        name: part.name.clone(),
-        kind: member.kind_name().to_owned(),
-        cases,
-        bridges,
-        bridge_indices,
-        multi_axis: multi,
-    }
+    multi
 }
 
 /// Warns where a load case's temperatures leave the range a gauge's thermal-output curve was
