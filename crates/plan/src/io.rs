@@ -38,12 +38,29 @@ struct VersionProbe {
     format_version: u32,
 }
 
-fn syntax(e: &ron::error::SpannedError) -> PlanError {
+fn syntax(e: &ron::error::SpannedError, text: &str) -> PlanError {
     PlanError::Syntax {
         line: e.span.start.line,
         column: e.span.start.col,
-        message: crate::parse_errors::user_words(&e.code),
+        message: if at_end(e, text) {
+            crate::parse_errors::user_words(&ron::Error::Eof)
+        } else {
+            crate::parse_errors::user_words(&e.code)
+        },
     }
+}
+
+/// True when a parse error stands at the very end of the text, or is a string the file never
+/// closes: the file was cut short, whatever the parser expected there.
+fn at_end(e: &ron::error::SpannedError, text: &str) -> bool {
+    if matches!(e.code, ron::Error::ExpectedStringEnd) {
+        return true;
+    }
+    let trimmed = text.trim_end();
+    let last_line = trimmed.lines().count().max(1);
+    let last_col = trimmed.lines().last().map_or(0, |l| l.chars().count()) + 1;
+    let end = &e.span.end;
+    end.line > last_line || (end.line == last_line && end.col >= last_col)
 }
 
 /// Reads a document of format version `from`, upgrading older versions
@@ -51,10 +68,11 @@ fn syntax(e: &ron::error::SpannedError) -> PlanError {
 fn parse_version(text: &str, from: u32) -> Result<Project, PlanError> {
     match from {
         1 => {
-            let v1: crate::migrate::ProjectV1 = ron::from_str(text).map_err(|e| syntax(&e))?;
+            let v1: crate::migrate::ProjectV1 =
+                ron::from_str(text).map_err(|e| syntax(&e, text))?;
             Ok(v1.upgrade())
         }
-        FORMAT_VERSION => ron::from_str(text).map_err(|e| syntax(&e)),
+        FORMAT_VERSION => ron::from_str(text).map_err(|e| syntax(&e, text)),
         found => Err(PlanError::UnknownVersion {
             found,
             supported: FORMAT_VERSION,
@@ -64,7 +82,7 @@ fn parse_version(text: &str, from: u32) -> Result<Project, PlanError> {
 
 /// Parses and validates a project from RON text.
 pub fn project_from_str(text: &str) -> Result<Project, PlanError> {
-    let probe: VersionProbe = ron::from_str(text).map_err(|e| syntax(&e))?;
+    let probe: VersionProbe = ron::from_str(text).map_err(|e| syntax(&e, text))?;
     if probe.format_version == 0 || probe.format_version > FORMAT_VERSION {
         return Err(PlanError::UnknownVersion {
             found: probe.format_version,

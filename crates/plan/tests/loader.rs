@@ -55,7 +55,7 @@ fn wrong_type_names_line_and_column() {
     let e = project_from_str(&text).unwrap_err();
     assert_eq!(
         e.to_string(),
-        "line 9, column 27: Expected float; correct the file or open its backup (.bak)"
+        "line 10, column 27: Expected float; correct the file or open its backup (.bak)"
     );
 }
 
