@@ -115,6 +115,10 @@ pub struct BridgeCase {
     pub margins: Vec<Margin>,
     /// Output against load over the ramp.
     pub ramp: Vec<RampPoint>,
+    /// The share of the displayed strain the case's temperature change causes (thermal
+    /// output, drifts, leads warming with the part): the reading less the same loads at the
+    /// reference temperature, m/m.
+    pub from_temperature_strain: f64,
 }
 
 /// Response of a bridge to one unit of one load component.
@@ -915,12 +919,20 @@ fn bridge_cases(
             push_margin(findings, m, place(&case.name), target);
         }
         let ramp = ramp_of(model, &loads, case.ramp_steps)?;
+        let from_temperature_strain = if loads[LoadComponent::TemperatureChange] == 0.0 {
+            0.0
+        } else {
+            let mut isothermal = loads;
+            isothermal[LoadComponent::TemperatureChange] = 0.0;
+            reading.displayed_strain - model.displayed(&isothermal)?
+        };
         cases.push(BridgeCase {
             case: case.name.clone(),
             reading,
             adc_v,
             margins,
             ramp,
+            from_temperature_strain,
         });
     }
 

@@ -15,7 +15,7 @@ use crate::evaluate::BridgeEvaluation;
 pub(crate) fn zero_expected(be: &BridgeEvaluation) -> String {
     let z = &be.zero_band;
     format!(
-        "{:.3} ± {:.3} (k = {:.0}); worst case {:.3} to {:.3}",
+        "{:.3} ±\u{a0}{:.3} (k\u{a0}=\u{a0}{:.0}); worst case {:.3} to {:.3}",
         z.centre_mv_per_v,
         z.statistical_mv_per_v,
         z.coverage_k,
@@ -30,7 +30,7 @@ fn zero_words(be: &BridgeEvaluation) -> String {
     let z = &be.zero_band;
     let mut s = format!(
         "Zero with the part unloaded: {:.3} mV/V expected with every element at its nominal \
-         value and the leads in place. Statistical band ± {:.3} mV/V: each arm's resistance \
+         value and the leads in place. Statistical band ±\u{a0}{:.3}\u{a0}mV/V: each arm's resistance \
          tolerance taken as a rectangular distribution and combined root-sum-square, coverage \
          factor k = {:.0} (about 95 % for a near-normal sum; GUM, JCGM 100:2008, 4.3.7 and \
          G). Worst case, every arm at the tolerance limit that pushes zero furthest: {:.3} to \
@@ -119,6 +119,7 @@ fn case_rows(part: &Part, be: &BridgeEvaluation) -> Vec<Vec<String>> {
             "Wanted load",
             "Output",
             "Displayed",
+            "Of which temperature",
             "Target strain",
             "Required accuracy",
         ]
@@ -130,7 +131,7 @@ fn case_rows(part: &Part, be: &BridgeEvaluation) -> Vec<Vec<String>> {
             .load_cases
             .iter()
             .find(|l| l.name == c.case)
-            .map(|l| si(l.value(be.wanted), unit))
+            .map(|l| format!("{} {}", be.wanted.name(), si(l.value(be.wanted), unit)))
             .unwrap_or_default();
         let accuracy = be
             .accuracy
@@ -143,6 +144,7 @@ fn case_rows(part: &Part, be: &BridgeEvaluation) -> Vec<Vec<String>> {
             load,
             format!("{:.4} mV/V", c.reading.mv_per_v),
             um(c.reading.displayed_strain),
+            um(c.from_temperature_strain),
             um(c.reading.target_strain),
             accuracy,
         ]);
@@ -163,8 +165,12 @@ fn shunt_words(be: &BridgeEvaluation, plan: &BridgePlan, pins: &Pinout) -> Optio
             pins.shunt_words(s.arm)
         ),
     };
+    // What the instrument displays back to the bridge's output: displayed strain =
+    // 4 (Vo/Vex) / (gauge factor × bridge factor), the instrument's own conversion.
+    let mv_per_v =
+        s.expected_reading_strain * be.gauge_factor_setting * be.bridge_factor / 4.0 * 1e3;
     Some(format!(
-        "Shunt calibration: {} (E96) {at}; expect {}.",
+        "Shunt calibration: {} (E96) {at}; expect {} ({mv_per_v:.4} mV/V).",
         si(s.e96_ohm, "Ω"),
         um(s.expected_reading_strain)
     ))
@@ -186,7 +192,21 @@ pub(crate) fn draw(
     w.table(&[1.0, 2.0], &settings_rows(be, plan));
     wiring_diagram::draw_plan(w, project, part, plan);
     w.subheading("Expected readings");
-    w.table(&[1.3, 1.1, 1.1, 1.0, 1.0, 1.1], &case_rows(part, be));
+    w.table(&[1.2, 1.5, 1.0, 0.9, 1.0, 0.9, 1.0], &case_rows(part, be));
+    if be
+        .cases
+        .iter()
+        .any(|c| c.from_temperature_strain.abs() > 0.05e-6)
+    {
+        w.para(
+            BODY,
+            false,
+            "Displayed: what the instrument shows after zeroing at the reference temperature, \
+             with the part's temperature change in that case included (its share is in the \
+             column beside). The conversion to engineering units below applies to the reading \
+             less that share.",
+        );
+    }
     for a in &be.accuracy {
         w.para(
             BODY,
@@ -200,12 +220,9 @@ pub(crate) fn draw(
         );
     }
     w.para(BODY, false, &conversion_words(be));
-    w.subheading("Checks before the first test");
-    w.para(BODY, false, &zero_words(be));
     let pins = Pinout::for_bridge(plan, &project.lead_colours);
-    if let Some(s) = shunt_words(be, plan, &pins) {
-        w.para(BODY, true, &s);
-    }
+    let zero = zero_words(be);
+    let shunt = shunt_words(be, plan, &pins);
     let mut rows = vec![vec![
         "Between (instrument disconnected)".to_owned(),
         "Expect".to_owned(),
@@ -213,6 +230,19 @@ pub(crate) fn draw(
     for (name, r) in &be.pin_resistances {
         let pair = pins.pair_words(name).unwrap_or_else(|| name.clone());
         rows.push(vec![pair, format!("{r:.2} Ω")]);
+    }
+    // The checks stay together on one page.
+    let height = 30.0
+        + w.para_height(BODY, false, &zero)
+        + shunt
+            .as_deref()
+            .map_or(0.0, |s| w.para_height(BODY, false, s))
+        + w.table_height(&[2.0, 1.0], &rows, BODY);
+    w.room(height);
+    w.subheading("Checks before the first test");
+    w.para(BODY, false, &zero);
+    if let Some(s) = &shunt {
+        w.para(BODY, false, s);
     }
     w.table(&[2.0, 1.0], &rows);
 }

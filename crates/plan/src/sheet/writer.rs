@@ -156,6 +156,35 @@ impl Writer {
         self.y += 0.25 * size;
     }
 
+    /// Height a paragraph across the column takes.
+    pub fn para_height(&self, size: f32, bold: bool, text: &str) -> f32 {
+        wrap(text, size, bold, self.column()).len() as f32 * line_pitch(size, bold) + 0.25 * size
+    }
+
+    /// Height a table across the column takes (see [`Writer::table`]).
+    pub fn table_height(&self, widths: &[f32], rows: &[Vec<String>], size: f32) -> f32 {
+        let xs = self.columns(widths);
+        rows.iter()
+            .enumerate()
+            .map(|(i, row)| row_height(&xs, row, size, i == 0) + if i == 0 { 2.5 } else { 0.0 })
+            .sum::<f32>()
+            + 4.0
+    }
+
+    /// Left edge and width of each column of a table with `widths` shares of the column.
+    fn columns(&self, widths: &[f32]) -> Vec<(f32, f32)> {
+        let total: f32 = widths.iter().sum::<f32>().max(1e-6);
+        let gap = 4.0;
+        let col = self.column();
+        let mut xs = Vec::with_capacity(widths.len());
+        let mut x = MARGIN;
+        for w in widths {
+            xs.push((x, w / total * col - gap));
+            x += w / total * col;
+        }
+        xs
+    }
+
     pub fn para(&mut self, size: f32, bold: bool, text: &str) {
         self.para_indented(0.0, size, bold, text);
     }
@@ -214,15 +243,7 @@ impl Writer {
     }
 
     pub fn table_sized(&mut self, widths: &[f32], rows: &[Vec<String>], size: f32) {
-        let total: f32 = widths.iter().sum::<f32>().max(1e-6);
-        let gap = 4.0;
-        let col = self.column();
-        let mut xs = Vec::with_capacity(widths.len());
-        let mut x = MARGIN;
-        for w in widths {
-            xs.push((x, w / total * col - gap));
-            x += w / total * col;
-        }
+        let xs = self.columns(widths);
         let Some((head, body)) = rows.split_first() else {
             return;
         };
