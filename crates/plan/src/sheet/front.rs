@@ -84,7 +84,16 @@ pub(crate) fn draw(w: &mut Writer, project: &Project, ev: &Evaluation) {
         failure_banner(w, &failures);
     }
     w.subheading("Channels");
-    w.table(&[0.75, 2.0, 1.5, 1.1, 1.0, 2.0], &channel_rows(project, ev));
+    let rows = channel_rows(project, ev);
+    if rows.len() > 1 {
+        w.table(&[0.75, 2.0, 1.5, 1.1, 1.0, 2.0], &rows);
+    } else {
+        w.para(
+            BODY,
+            false,
+            "No bridges planned yet: the sheet shows the parts and gauges only.",
+        );
+    }
     w.subheading("Cautions");
     for c in &ev.cautions {
         w.para(9.0, true, &c.title);

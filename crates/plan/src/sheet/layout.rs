@@ -222,7 +222,9 @@ pub(crate) fn wrap(text: &str, size: f32, bold: bool, width: f32) -> Vec<String>
     let mut lines = Vec::new();
     for paragraph in text.split('\n') {
         let mut line = String::new();
-        for word in paragraph.split_whitespace() {
+        // Words break at ordinary spaces only: a no-break space (U+00A0) holds a value to
+        // its sign or a label to its blank.
+        for word in paragraph.split([' ', '\t']).filter(|w| !w.is_empty()) {
             let candidate = if line.is_empty() {
                 word.to_owned()
             } else {

@@ -90,21 +90,24 @@ fn header(project: &Project) -> Header {
             s.to_owned()
         }
     };
+    // Each label stays with its value: no-break spaces inside an item, ordinary ones between.
+    let item = |label: &str, value: String| format!("{label}: {value}").replace(' ', "\u{a0}");
+    let parts = project
+        .parts
+        .iter()
+        .map(|p| p.name.as_str())
+        .collect::<Vec<_>>()
+        .join(", ");
     Header {
         title: project.name.clone(),
-        details: format!(
-            "Parts: {}   Revision: {}   Date: {}   Prepared by: {}   Checked by: {}",
-            project
-                .parts
-                .iter()
-                .map(|p| p.name.as_str())
-                .collect::<Vec<_>>()
-                .join(", "),
-            or_blank(&project.revision, "____"),
-            or_blank(&project.date, "____"),
-            or_blank(&project.prepared_by, "________"),
-            or_blank(&project.checked_by, "________"),
-        ),
+        details: [
+            format!("Parts: {parts}"),
+            item("Revision", or_blank(&project.revision, "____")),
+            item("Date", or_blank(&project.date, "____")),
+            item("Prepared by", or_blank(&project.prepared_by, "________")),
+            item("Checked by", or_blank(&project.checked_by, "________")),
+        ]
+        .join("   "),
     }
 }
 

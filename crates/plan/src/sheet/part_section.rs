@@ -1,7 +1,7 @@
 //! One part on the build sheet: what it is, how hard it is loaded, its views and face
 //! drawings, and its gauges.
 
-use gw_mechanics::Member;
+use gw_mechanics::{BeamSupport, LoadPoint, Member, Section, VesselEnds};
 
 use super::writer::{BODY, Writer};
 use super::{face_drawings, mm, part_views};
@@ -13,64 +13,144 @@ pub(crate) fn part_description(part: &Part) -> String {
     let material = m.material();
     let dims = match m {
         Member::Beam(b) => format!(
-            "{:?} beam, length {}, {} section {} × {}, load at {}",
-            b.support,
+            "{}, length {}, {}; {}",
+            match b.support {
+                BeamSupport::Cantilever =>
+                    "Cantilever beam, clamped at x = 0, free at the other end",
+                BeamSupport::SimplySupported => "Simply supported beam, pinned at both ends",
+            },
             mm(b.length_m),
-            b.section.shape_name(),
-            mm(b.section.width_m()),
-            mm(b.section.height_m()),
-            b.load_points
-                .iter()
-                .map(|p| if (p.multiple - 1.0).abs() < 1e-12 {
-                    mm(p.position_m)
-                } else {
-                    format!("{} (× {})", mm(p.position_m), p.multiple)
-                })
-                .collect::<Vec<_>>()
-                .join(", ")
+            section_words(&b.section),
+            load_point_words(&b.load_points)
         ),
         Member::Shaft(s) => format!(
-            "shaft, outer diameter {}, bore {}, length {}",
+            "Shaft, outer diameter {}, bore {}, length {}",
             mm(s.outer_diameter_m),
-            mm(s.inner_diameter_m),
+            if s.inner_diameter_m > 0.0 {
+                mm(s.inner_diameter_m)
+            } else {
+                "none (solid)".to_owned()
+            },
             mm(s.length_m)
         ),
         Member::ThinCylinder(v) => format!(
-            "thin cylinder, outer diameter {}, wall {}, length {}, {:?} ends",
+            "Thin-walled cylinder, outer diameter {}, wall {}, length {}, {} ends",
             mm(v.outer_diameter_m),
             mm(v.wall_m),
             mm(v.length_m),
-            v.ends
+            match v.ends {
+                VesselEnds::Closed => "closed",
+                VesselEnds::Open => "open",
+            }
         ),
         Member::ThinSphere(v) => format!(
-            "thin sphere, outer diameter {}, wall {}",
+            "Thin-walled sphere, outer diameter {}, wall {}",
             mm(v.outer_diameter_m),
             mm(v.wall_m)
         ),
         Member::ThickCylinder(v) => format!(
-            "thick cylinder, outer diameter {}, bore {}, length {}",
+            "Thick-walled cylinder, outer diameter {}, bore {}, length {}",
             mm(v.outer_diameter_m),
             mm(v.inner_diameter_m),
             mm(v.length_m)
         ),
         Member::PlateWithHole(p) => format!(
-            "plate {} × {} × {}, hole {}",
+            "Plate {} wide × {} high × {} thick, hole of diameter {} at its centre",
             mm(p.width_m),
             mm(p.height_m),
             mm(p.thickness_m),
             mm(p.hole_diameter_m)
         ),
         Member::GivenState(g) => format!(
-            "given surface state over {} × {}",
+            "A region of a larger part with a given surface state, {} × {}",
             mm(g.length_m),
             mm(g.width_m)
         ),
     };
     format!(
-        "{dims}; material {} (yield {:.0} MPa)",
+        "{dims}. Material {} (yield {:.0} MPa).",
         material.name,
         material.yield_strength_pa / 1e6
     )
+}
+
+/// A beam section in the words and sizes a technician can check with a calliper.
+fn section_words(section: &Section) -> String {
+    match section {
+        Section::Rectangle { width_m, height_m } => format!(
+            "solid rectangular section {} wide × {} high",
+            mm(*width_m),
+            mm(*height_m)
+        ),
+        Section::SolidRound { diameter_m } => {
+            format!("solid round section, diameter {}", mm(*diameter_m))
+        }
+        Section::RoundTube {
+            outer_diameter_m,
+            inner_diameter_m,
+        } => format!(
+            "round tube, outer diameter {}, wall {}",
+            mm(*outer_diameter_m),
+            mm((outer_diameter_m - inner_diameter_m) / 2.0)
+        ),
+        Section::RectangularTube {
+            width_m,
+            height_m,
+            wall_m,
+        } => format!(
+            "rectangular tube {} wide × {} high, wall {}",
+            mm(*width_m),
+            mm(*height_m),
+            mm(*wall_m)
+        ),
+        Section::IBeam {
+            flange_width_m,
+            depth_m,
+            flange_thickness_m,
+            web_thickness_m,
+        } => format!(
+            "I section {} deep, flanges {} wide × {} thick, web {} thick",
+            mm(*depth_m),
+            mm(*flange_width_m),
+            mm(*flange_thickness_m),
+            mm(*web_thickness_m)
+        ),
+    }
+}
+
+/// Where the load acts along a beam, with the share of it at each point.
+fn load_point_words(points: &[LoadPoint]) -> String {
+    let at: Vec<String> = points
+        .iter()
+        .map(|p| {
+            if (p.multiple - 1.0).abs() < 1e-12 {
+                format!("x = {}", mm(p.position_m))
+            } else {
+                format!(
+                    "x = {} ({:.0} % of it)",
+                    mm(p.position_m),
+                    p.multiple * 100.0
+                )
+            }
+        })
+        .collect();
+    format!("the load acts at {}", at.join(", "))
+}
+
+/// The gauge's angle, and each grid's direction on a gauge with several grids.
+fn grid_angles(g: &gw_bridge::PlacedGauge) -> String {
+    let n = g.element_count();
+    if n <= 1 {
+        return format!("{:.1}°", g.angle_rad.to_degrees());
+    }
+    (0..n)
+        .map(|k| {
+            let deg =
+                crate::drawing::face_layout::normalised_deg(g.element_angle_rad(k).to_degrees());
+            format!("grid {}: {deg:.1}°", k + 1)
+        })
+        .collect::<Vec<_>>()
+        .join(", ")
 }
 
 /// The gauge table: what each gauge is and where it goes.
@@ -85,8 +165,8 @@ fn gauge_rows(project: &Project, part: &Part) -> Vec<Vec<String>> {
             "Face",
             "x (datum)",
             "s (datum)",
-            "Angle",
-            "Prepare",
+            "Angle from x",
+            "Area to prepare",
         ]
         .map(String::from)
         .to_vec(),
@@ -102,10 +182,10 @@ fn gauge_rows(project: &Project, part: &Part) -> Vec<Vec<String>> {
             g.position.face.name().to_owned(),
             mm(g.position.x_m - part.datum_m.0),
             mm(g.position.s_m - part.datum_m.1),
-            format!("{:.1}°", g.angle_rad.to_degrees()),
+            grid_angles(g),
             // Grid plus 10 mm all round for abrading and cleaning: common practice.
             format!(
-                "{:.0} × {:.0} mm",
+                "{:.0} along the gauge × {:.0} across, mm",
                 s.grid_length_m * 1e3 + 20.0,
                 s.grid_width_m * 1e3 + 20.0
             ),
@@ -148,7 +228,7 @@ pub(crate) fn draw(w: &mut Writer, project: &Project, part: &Part, pe: &PartEval
     face_drawings::draw(w, part, &project.placed_gauges(part));
     w.heading("Gauges");
     w.table(
-        &[0.7, 1.5, 0.8, 0.9, 0.7, 1.2, 0.9, 0.9, 0.7, 1.2],
+        &[0.6, 1.3, 0.7, 0.9, 0.7, 1.1, 0.9, 0.9, 1.2, 1.3],
         &gauge_rows(project, part),
     );
 }

@@ -145,8 +145,10 @@ pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation)
         BODY,
         false,
         "With the bridge wired and excited and the part unloaded: check the pin-to-pin \
-         resistances listed with the bridge (instrument disconnected), then read zero, then \
-         apply the shunt resistor between the pins named and read again. Compare with the \
+         resistances listed with the bridge (instrument disconnected) and the insulation from \
+         all pins joined to the part (at least 1 GΩ at no more than 50 V, common practice; \
+         the shield stays connected to the instrument only), then read zero, then apply the \
+         shunt resistor between the pins named and read again. Compare with the \
          expected values; a zero outside its band or a shunt reading more than 0.5 % from \
          the expected value (common practice) means a wiring or bonding fault to find before \
          testing.",
@@ -158,6 +160,7 @@ pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation)
         "Shunt expected",
         "Shunt read",
         "Pins as listed (tick)",
+        "Insulation, all pins to part (GΩ), accept ≥ 1",
         "Initials / date",
     ]);
     let mut rows = Vec::new();
@@ -177,10 +180,17 @@ pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation)
                 String::new(),
                 String::new(),
                 String::new(),
+                String::new(),
             ]);
         }
     }
-    ruled_table(w, &[2.2, 1.7, 1.1, 1.1, 1.1, 1.0, 1.3], &head, &rows, 20.0);
+    ruled_table(
+        w,
+        &[2.0, 1.8, 1.0, 1.1, 1.0, 0.9, 1.2, 1.1],
+        &head,
+        &rows,
+        20.0,
+    );
 }
 
 /// The installation steps in order, each with a tick box and who did it.
