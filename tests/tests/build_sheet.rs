@@ -172,6 +172,8 @@ fn channel_list_parses_and_matches_the_evaluation() {
                 let ue: f64 = row[col("expected_microstrain")].parse().unwrap();
                 assert!((mv - c.reading.mv_per_v).abs() <= 0.5e-4);
                 assert!((ue - c.reading.displayed_strain * 1e6).abs() <= 0.05);
+                let warm: f64 = row[col("from_temperature_microstrain")].parse().unwrap();
+                assert!((warm - c.from_temperature_strain * 1e6).abs() <= 0.05);
                 let channel: u32 = row[col("channel")].parse().unwrap();
                 assert_eq!(channel, b.channel_number);
                 if let Some(s) = &b.shunt {

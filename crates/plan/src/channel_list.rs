@@ -41,7 +41,8 @@ fn four_decimals(value: f64) -> String {
 /// and bridge factor, conversion (µε per mV/V), the wanted load per mV/V in its unit (empty when
 /// the bridge does not respond to it), the zero reading expected at no load with its statistical
 /// ± (at the stated coverage factor) and worst-case limits (mV/V), shunt value and its expected
-/// reading, and the expected reading (mV/V and µε) at every load case of the part.
+/// reading, and the expected reading (mV/V and µε) at every load case of the part with the
+/// share of it the case's temperature change causes (µε; the conversion applies to the rest).
 pub fn channel_list_csv(ev: &Evaluation) -> String {
     let mut out = String::new();
     let _ = writeln!(
@@ -50,7 +51,7 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
          microstrain_per_mv_per_v,wanted_load,wanted_unit,wanted_per_mv_per_v,zero_mv_per_v,\
          zero_statistical_mv_per_v,zero_coverage_k,zero_worst_low_mv_per_v,\
          zero_worst_high_mv_per_v,shunt_ohm,shunt_arm,shunt_expected_microstrain,load_case,\
-         expected_mv_per_v,expected_microstrain"
+         expected_mv_per_v,expected_microstrain,from_temperature_microstrain"
     );
     for part in &ev.parts {
         for b in &part.bridges {
@@ -77,7 +78,7 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
             for c in &b.cases {
                 let _ = writeln!(
                     out,
-                    "{},{},{},{},{:.3},{:.3},{:.4},{:.3},{},{},{},{},{},{},{},{},{:.4},{:.1}",
+                    "{},{},{},{},{:.3},{:.3},{:.4},{:.3},{},{},{},{},{},{},{},{},{:.4},{:.1},{:.1}",
                     b.channel_number,
                     field(&part.name),
                     field(&b.name),
@@ -95,7 +96,8 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
                     shunt_reading,
                     field(&c.case),
                     c.reading.mv_per_v,
-                    c.reading.displayed_strain * 1e6
+                    c.reading.displayed_strain * 1e6,
+                    c.from_temperature_strain * 1e6
                 );
             }
         }
