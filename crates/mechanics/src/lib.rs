@@ -26,6 +26,7 @@ pub mod grid_average;
 pub mod load;
 pub mod material;
 pub mod member;
+mod peak_points;
 pub mod plate_with_hole;
 pub mod rectangle_shear;
 pub mod rosette;

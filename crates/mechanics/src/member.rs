@@ -302,8 +302,10 @@ impl Member {
     }
 
     /// Largest von Mises stress in the part under `loads`, Pa, and where it occurs: sampled on
-    /// an `n × n` grid of nodes (edges included) on every face, plus the hole edge of a plate
-    /// and the bore of a pressure vessel (where the stress is highest and no gauge can go).
+    /// an `n × n` grid of nodes (edges included) on every face, plus the points where the model
+    /// says the stress can peak (a beam's load points, supports and moment extremes, the
+    /// extreme fibres of a round section, a plate's hole edge) and
+    /// the bore of a pressure vessel (where the stress is highest and no gauge can go).
     pub fn peak_von_mises(&self, loads: &LoadVector, n: usize) -> Result<(f64, PeakLocation)> {
         use crate::surface_map::{Sampling, StrainBasis, SurfaceQuantity, sample_face};
         let n = n.max(2);
@@ -330,11 +332,10 @@ impl Member {
                     }
                 }
             }
-            if let Some(a) = f.hole_radius_m {
-                for k in 0..4 * n {
-                    let t = std::f64::consts::TAU * k as f64 / (4 * n) as f64;
-                    let p = SurfacePoint::new(f.face, a * t.cos(), a * t.sin());
-                    let vm = self.state_unchecked(&p, loads).von_mises_pa(material);
+            for p in crate::peak_points::critical_points(self, &f, loads, n) {
+                let Ok(p) = f.locate(&p) else { continue };
+                let vm = self.state_unchecked(&p, loads).von_mises_pa(material);
+                if vm.is_finite() {
                     consider(vm, PeakLocation::Surface(p));
                 }
             }
