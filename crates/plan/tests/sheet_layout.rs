@@ -75,3 +75,15 @@ fn a_sheet_with_failing_margins_is_clean_and_says_so() {
     assert!(ev.has_failures());
     assert_clean("failing margins", &p);
 }
+
+#[test]
+fn a_new_project_of_each_model_kind_without_gauges_is_clean() {
+    use gw_plan::blank::{ModelKind, blank_project, default_material, new_part};
+    for kind in ModelKind::ALL {
+        let member = kind.default_member(&default_material());
+        let p = blank_project(new_part("First part", member, None));
+        assert_clean(kind.name(), &p);
+        let ev = evaluate(&p, &EvalOptions::default());
+        assert!(build_sheet_text(&p, &ev).contains("No bridges planned"));
+    }
+}
