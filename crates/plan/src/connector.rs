@@ -3,13 +3,14 @@
 //! load, so the wiring can be checked by loading the part.
 //!
 //! # Pin assignment
-//! Pins are numbered from 1 in a fixed order of roles, counting only the conductors the
-//! bridge's wiring has (as [`BridgeCircuit::network`] lists them): excitation +,
-//! excitation −, output +, output −, then the sense conductors present (excitation + sense,
-//! excitation − sense, output + sense, output − sense), then the shield (drain) on its own
-//! pin. A full bridge without sense is therefore 1 exc +, 2 exc −, 3 out +, 4 out −, 5 shield.
+//! Every role has its own pin, the same on every channel whatever the wiring, in our own
+//! plain fixed order: 1 excitation +, 2 excitation −, 3 output +, 4 output −,
+//! 5 excitation + sense, 6 excitation − sense, 7 output + sense, 8 output − sense,
+//! 9 shield (drain). A wiring uses the pins of the conductors it has (as
+//! [`BridgeCircuit::network`] lists them) and the shield; its other pins stay empty. A full
+//! bridge without sense is therefore 1, 2, 3, 4 and 9; a two-wire quarter bridge 2, 3 and 9.
 
-use gw_bridge::circuit::{ARM_CORNERS, ArmResistor, BridgeCircuit, Excitation};
+use gw_bridge::circuit::{ARM_CORNERS, ArmResistor, BridgeCircuit, Excitation, ShuntLocation};
 use gw_bridge::model::ARM_SIGNS;
 use gw_bridge::{BridgeModel, LeadWiring, Setup};
 use gw_mechanics::{LoadVector, QuadratureOrder};
@@ -20,8 +21,9 @@ use crate::validate::bridge_from_plan;
 /// The conductor name the shield has in a [`Pinout`] (the circuit has no such conductor).
 pub const SHIELD: &str = "shield";
 
-/// Conductor names in pin order, as the circuit names them.
-const ROLE_ORDER: [&str; 8] = [
+/// Conductor names in pin order, as the circuit names them: pin `k + 1` carries
+/// `PIN_ROLES[k]` on every channel.
+const PIN_ROLES: [&str; 9] = [
     "exc+",
     "exc-",
     "out+",
@@ -30,7 +32,17 @@ const ROLE_ORDER: [&str; 8] = [
     "sense exc-",
     "sense out+",
     "sense out-",
+    SHIELD,
 ];
+
+/// The fixed pin of a conductor by the circuit's name ("out+", "sense exc-", "shield"), or
+/// `None` for a name the circuit does not use.
+pub fn pin_number(conductor: &str) -> Option<usize> {
+    PIN_ROLES
+        .iter()
+        .position(|r| *r == conductor)
+        .map(|k| k + 1)
+}
 
 /// The circuit's name of the current-carrying conductor at each bridge corner (corner order of
 /// [`ARM_CORNERS`]: excitation +, excitation −, output +, output −).
@@ -56,10 +68,11 @@ impl Pin {
     }
 }
 
-/// The pins of one bridge's connector.
+/// The pins of one bridge's connector that its wiring uses.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Pinout {
-    /// In pin-number order; the shield is last.
+    /// The used pins in pin-number order (numbers from the fixed order, so with gaps where
+    /// the wiring has no such conductor); the shield is last.
     pub pins: Vec<Pin>,
 }
 
@@ -126,22 +139,22 @@ pub fn circuit_conductors(at_gauge: [bool; 4], wiring: LeadWiring) -> Vec<&'stat
 }
 
 impl Pinout {
-    /// Pins for the conductors named (the circuit's names, any order) plus the shield;
-    /// a name the circuit does not use is refused with a message.
+    /// Pins for the conductors named (the circuit's names, any order) plus the shield, each on
+    /// its fixed pin; a name the circuit does not use is refused with a message.
     pub fn new(conductors: &[&str], colours: &LeadColours) -> Result<Pinout, String> {
-        if let Some(bad) = conductors.iter().find(|c| !ROLE_ORDER.contains(c)) {
+        let wires = &PIN_ROLES[..PIN_ROLES.len() - 1];
+        if let Some(bad) = conductors.iter().find(|c| !wires.contains(c)) {
             return Err(format!(
                 "\"{bad}\" is not a bridge conductor; expected one of {}",
-                ROLE_ORDER.join(", ")
+                wires.join(", ")
             ));
         }
-        let pins: Vec<Pin> = ROLE_ORDER
+        let pins: Vec<Pin> = PIN_ROLES
             .iter()
-            .filter(|r| conductors.contains(r))
-            .chain(std::iter::once(&SHIELD))
             .enumerate()
-            .map(|(i, c)| Pin {
-                number: i + 1,
+            .filter(|(_, r)| **r == SHIELD || conductors.contains(r))
+            .map(|(k, c)| Pin {
+                number: k + 1,
                 conductor: (*c).to_owned(),
                 role: role_words(c).unwrap_or(c).to_owned(),
                 colour: colour_of(c, colours),
@@ -161,9 +174,20 @@ impl Pinout {
         self.pins.iter().find(|p| p.conductor == conductor)
     }
 
-    /// The shield's pin (always the last).
+    /// The shield's pin (always the last, pin 9).
     pub fn shield(&self) -> Option<&Pin> {
         self.pin(SHIELD)
+    }
+
+    /// The pins this wiring leaves empty: their numbers and the roles they have on other
+    /// channels, in pin order.
+    pub fn unused(&self) -> Vec<(usize, &'static str)> {
+        PIN_ROLES
+            .iter()
+            .enumerate()
+            .filter(|(_, c)| self.pin(c).is_none())
+            .map(|(k, c)| (k + 1, role_words(c).unwrap_or(c)))
+            .collect()
     }
 
     /// The conductors without the shield, in pin order.
@@ -211,11 +235,59 @@ impl Pinout {
     }
 }
 
-/// The shield last, numbers from 1 in order (an internal invariant of [`Pinout::new`]).
+/// Each pin on its fixed number, in order, the shield last (an internal invariant of
+/// [`Pinout::new`]).
 fn pins_checked(pins: Vec<Pin>) -> Pinout {
-    debug_assert!(pins.iter().enumerate().all(|(i, p)| p.number == i + 1));
+    debug_assert!(
+        pins.iter()
+            .all(|p| pin_number(&p.conductor) == Some(p.number))
+    );
+    debug_assert!(pins.windows(2).all(|w| w[0].number < w[1].number));
     debug_assert!(pins.last().is_some_and(|p| p.conductor == SHIELD));
     Pinout { pins }
+}
+
+/// Where a planned shunt is connected: the arm (index 0..4) and whether it sits at the gauge
+/// site. A shunt planned at the gauge end across a completion resistor goes across that
+/// resistor in the instrument, as the schematic draws it.
+pub(crate) fn shunt_place(plan: &BridgePlan) -> Option<(usize, bool)> {
+    let shunt = plan.shunt?;
+    let arm = shunt.arm.min(3);
+    let at_gauge_end =
+        shunt.location == ShuntLocation::GaugeEnd && plan.arms.get(arm).is_some_and(at_gauge);
+    Some((arm, at_gauge_end))
+}
+
+/// Where the shunt of a bridge goes, in the words the schematic's notes and the bridge's
+/// checks both use: "across arm 1 at the instrument end, between pin 3 (output +) and pin 2
+/// (excitation −)", or "across arm 1 at the gauge end, between the gauge-site terminals of
+/// pin 3 (output +) and pin 2 (excitation −)". `None` when no shunt is planned.
+pub(crate) fn shunt_place_words(plan: &BridgePlan, colours: &LeadColours) -> Option<String> {
+    let planned = plan.shunt?.location;
+    let (arm, at_gauge_end) = shunt_place(plan)?;
+    let pins = Pinout::for_bridge(plan, colours);
+    let n = arm + 1;
+    Some(match (at_gauge_end, planned) {
+        (true, _) => match pins.shunt_pins(arm) {
+            Some((a, b)) => format!(
+                "across arm {n} at the gauge end, between the gauge-site terminals of {} and {}",
+                a.words(),
+                b.words()
+            ),
+            None => format!("across arm {n} at the gauge end, {}", pins.shunt_words(arm)),
+        },
+        (false, ShuntLocation::GaugeEnd) => format!(
+            "across arm {n} at the instrument end (planned at the gauge end, but arm {n} is a \
+             resistor in the instrument), {}",
+            pins.shunt_words(arm)
+        ),
+        (false, ShuntLocation::InstrumentEnd) => {
+            format!(
+                "across arm {n} at the instrument end, {}",
+                pins.shunt_words(arm)
+            )
+        }
+    })
 }
 
 /// The sign of the strain along an arm's grid under a positive value of the wanted load.
@@ -316,8 +388,15 @@ mod tests {
     use super::*;
     use crate::demo::demo_project;
 
-    fn names(p: &Pinout) -> Vec<&str> {
-        p.pins.iter().map(|p| p.conductor.as_str()).collect()
+    fn numbered(p: &Pinout) -> Vec<(usize, &str)> {
+        p.pins
+            .iter()
+            .map(|p| (p.number, p.conductor.as_str()))
+            .collect()
+    }
+
+    fn unused_numbers(p: &Pinout) -> Vec<usize> {
+        p.unused().into_iter().map(|(n, _)| n).collect()
     }
 
     fn pinout(at_gauge: [bool; 4], wiring: LeadWiring) -> Pinout {
@@ -331,71 +410,141 @@ mod tests {
     const QUARTER: [bool; 4] = [true, false, false, false];
     const HALF: [bool; 4] = [true, true, false, false];
     const FULL: [bool; 4] = [true; 4];
+    const WIRINGS: [LeadWiring; 3] = [
+        LeadWiring::TwoWire,
+        LeadWiring::ThreeWire,
+        LeadWiring::RemoteSense,
+    ];
+
+    /// Every split of the four arms between the gauge site and the instrument.
+    fn every_split() -> impl Iterator<Item = [bool; 4]> {
+        (0..16u8).map(|m| std::array::from_fn(|k| m & (1 << k) != 0))
+    }
 
     // The conductor counts are the trade's: a quarter bridge is wired with two or three wires,
     // a half bridge with three (five with remote sense), a full bridge with four (six with
-    // remote sense) — common practice.
+    // remote sense) — common practice. The pin numbers are our own fixed order.
     #[test]
-    fn quarter_bridges_have_two_or_three_conductors_and_a_shield() {
+    fn quarter_bridges_use_the_fixed_pins_of_their_two_or_three_conductors() {
         let two = pinout(QUARTER, LeadWiring::TwoWire);
-        assert_eq!(names(&two), ["exc-", "out+", SHIELD]);
+        assert_eq!(numbered(&two), [(2, "exc-"), (3, "out+"), (9, SHIELD)]);
+        assert_eq!(unused_numbers(&two), [1, 4, 5, 6, 7, 8]);
         let three = pinout(QUARTER, LeadWiring::ThreeWire);
-        assert_eq!(names(&three), ["exc-", "out+", "sense out+", SHIELD]);
-        assert_eq!(three.pins[2].role, "output + sense");
-        assert_eq!(three.pins[2].colour, LeadColours::default().sense);
-        assert_eq!(three.shield().map(|p| p.number), Some(4));
+        assert_eq!(
+            numbered(&three),
+            [(2, "exc-"), (3, "out+"), (7, "sense out+"), (9, SHIELD)]
+        );
+        assert_eq!(unused_numbers(&three), [1, 4, 5, 6, 8]);
+        let sense = three.pin("sense out+").unwrap();
+        assert_eq!(sense.role, "output + sense");
+        assert_eq!(sense.colour, LeadColours::default().sense);
+        assert_eq!(three.shield().map(|p| p.number), Some(9));
+        assert_eq!(three.unused()[0], (1, "excitation +"));
     }
 
     #[test]
-    fn half_and_full_bridges_with_and_without_remote_sense() {
+    fn half_and_full_bridges_with_and_without_remote_sense_use_the_fixed_pins() {
         let half = pinout(HALF, LeadWiring::ThreeWire);
-        assert_eq!(names(&half), ["exc+", "exc-", "out+", SHIELD]);
+        assert_eq!(
+            numbered(&half),
+            [(1, "exc+"), (2, "exc-"), (3, "out+"), (9, SHIELD)]
+        );
         let half_sense = pinout(HALF, LeadWiring::RemoteSense);
         assert_eq!(
-            names(&half_sense),
-            ["exc+", "exc-", "out+", "sense exc+", "sense exc-", SHIELD]
-        );
-        let full = pinout(FULL, LeadWiring::ThreeWire);
-        assert_eq!(names(&full), ["exc+", "exc-", "out+", "out-", SHIELD]);
-        let full_sense = pinout(FULL, LeadWiring::RemoteSense);
-        assert_eq!(
-            names(&full_sense),
+            numbered(&half_sense),
             [
-                "exc+",
-                "exc-",
-                "out+",
-                "out-",
-                "sense exc+",
-                "sense exc-",
-                SHIELD
+                (1, "exc+"),
+                (2, "exc-"),
+                (3, "out+"),
+                (5, "sense exc+"),
+                (6, "sense exc-"),
+                (9, SHIELD)
             ]
         );
-        assert_eq!(full_sense.pins[6].number, 7);
+        assert_eq!(unused_numbers(&half_sense), [4, 7, 8]);
+        let full = pinout(FULL, LeadWiring::ThreeWire);
+        assert_eq!(
+            numbered(&full),
+            [
+                (1, "exc+"),
+                (2, "exc-"),
+                (3, "out+"),
+                (4, "out-"),
+                (9, SHIELD)
+            ]
+        );
+        assert_eq!(unused_numbers(&full), [5, 6, 7, 8]);
+        let full_sense = pinout(FULL, LeadWiring::RemoteSense);
+        assert_eq!(
+            numbered(&full_sense),
+            [
+                (1, "exc+"),
+                (2, "exc-"),
+                (3, "out+"),
+                (4, "out-"),
+                (5, "sense exc+"),
+                (6, "sense exc-"),
+                (9, SHIELD)
+            ]
+        );
         assert_eq!(full_sense.pins[0].colour, "orange");
     }
 
     #[test]
+    fn the_same_role_lands_on_the_same_pin_in_every_wiring() {
+        // The fixed order as the technician's table states it, by role words.
+        let table = [
+            (1, "excitation +"),
+            (2, "excitation −"),
+            (3, "output +"),
+            (4, "output −"),
+            (5, "excitation + sense"),
+            (6, "excitation − sense"),
+            (7, "output + sense"),
+            (8, "output − sense"),
+            (9, "shield (drain)"),
+        ];
+        let mut seen: Vec<(String, usize)> = Vec::new();
+        for at_gauge in every_split() {
+            for wiring in WIRINGS {
+                let p = pinout(at_gauge, wiring);
+                for pin in &p.pins {
+                    assert!(
+                        table.contains(&(pin.number, pin.role.as_str())),
+                        "{at_gauge:?} {wiring:?}: pin {} is {}",
+                        pin.number,
+                        pin.role
+                    );
+                    match seen.iter().find(|(c, _)| *c == pin.conductor) {
+                        Some((_, n)) => assert_eq!(*n, pin.number, "{}", pin.conductor),
+                        None => seen.push((pin.conductor.clone(), pin.number)),
+                    }
+                }
+                // The unused pins keep their roles too, and used and unused make up 1 to 9.
+                for (n, role) in p.unused() {
+                    assert!(table.contains(&(n, role)), "unused pin {n} as {role}");
+                }
+                let mut all: Vec<usize> = p.pins.iter().map(|p| p.number).collect();
+                all.extend(unused_numbers(&p));
+                all.sort_unstable();
+                assert_eq!(all, (1..=9).collect::<Vec<_>>(), "{at_gauge:?} {wiring:?}");
+            }
+        }
+        // Every role of the table turns up on some channel.
+        assert_eq!(seen.len(), table.len());
+    }
+
+    #[test]
     fn every_conductor_of_the_circuit_has_exactly_one_pin() {
-        for at_gauge in [
-            QUARTER,
-            HALF,
-            FULL,
-            [false, true, false, true],
-            [false, false, true, false],
-        ] {
-            for wiring in [
-                LeadWiring::TwoWire,
-                LeadWiring::ThreeWire,
-                LeadWiring::RemoteSense,
-            ] {
+        for at_gauge in every_split() {
+            for wiring in WIRINGS {
                 let list = circuit_conductors(at_gauge, wiring);
                 let p = pinout(at_gauge, wiring);
                 assert_eq!(p.pins.len(), list.len() + 1, "{at_gauge:?} {wiring:?}");
                 for c in &list {
                     assert_eq!(p.pins.iter().filter(|pin| pin.conductor == *c).count(), 1);
                 }
-                let numbers: Vec<usize> = p.pins.iter().map(|p| p.number).collect();
-                assert_eq!(numbers, (1..=p.pins.len()).collect::<Vec<_>>());
+                assert_eq!(p.pins.last().map(|p| p.number), Some(9));
             }
         }
     }
@@ -426,11 +575,71 @@ mod tests {
                 .shunt_words(1)
                 .contains("excitation + terminal (no pin)")
         );
+        // Across arm 1 the quarter bridge lands on the same pins as the full bridge.
+        assert_eq!(quarter.shunt_words(0), full.shunt_words(0));
         assert_eq!(
             quarter.shunt_words(0),
-            "between pin 2 (output +) and pin 1 (excitation −)"
+            "between pin 3 (output +) and pin 2 (excitation −)"
         );
         assert!(Pinout::new(&["exc+", "ground"], &LeadColours::default()).is_err());
+        assert!(Pinout::new(&["exc+", SHIELD], &LeadColours::default()).is_err());
+    }
+
+    #[test]
+    fn the_shunt_place_reads_the_same_for_every_wiring_and_names_its_end() {
+        let p = demo_project();
+        let colours = LeadColours::default();
+        let base = &p.parts[0].bridges[0];
+        assert_eq!(
+            base.shunt.map(|s| (s.arm, s.location)),
+            Some((0, ShuntLocation::InstrumentEnd))
+        );
+        let at_instrument = "across arm 1 at the instrument end, between pin 3 (output +) \
+                             and pin 2 (excitation −)";
+        let at_gauge = "across arm 1 at the gauge end, between the gauge-site terminals of \
+                        pin 3 (output +) and pin 2 (excitation −)";
+        let completion = PlanArm::Completion(gw_bridge::CompletionResistor {
+            ohm: 350.0,
+            tolerance: 0.0005,
+            tcr_per_c: 5e-6,
+        });
+        for split in [FULL, HALF, QUARTER] {
+            for wiring in WIRINGS {
+                let mut plan = base.clone();
+                for (k, keep) in split.iter().enumerate() {
+                    if !keep {
+                        plan.arms[k] = completion.clone();
+                    }
+                }
+                plan.wiring = wiring;
+                let words = shunt_place_words(&plan, &colours);
+                assert_eq!(
+                    words.as_deref(),
+                    Some(at_instrument),
+                    "{split:?} {wiring:?}"
+                );
+                if let Some(s) = plan.shunt.as_mut() {
+                    s.location = ShuntLocation::GaugeEnd;
+                }
+                let words = shunt_place_words(&plan, &colours);
+                assert_eq!(words.as_deref(), Some(at_gauge), "{split:?} {wiring:?}");
+                // Arm 4 of a half or quarter bridge is a resistor in the instrument.
+                if let Some(s) = plan.shunt.as_mut() {
+                    s.arm = 3;
+                }
+                let words = shunt_place_words(&plan, &colours).unwrap();
+                let expected = if split[3] {
+                    "across arm 4 at the gauge end, between the gauge-site terminals of pin 4 \
+                     (output −) and pin 2 (excitation −)"
+                } else {
+                    "across arm 4 at the instrument end (planned at the gauge end, but arm 4 is \
+                     a resistor in the instrument), between "
+                };
+                assert!(words.starts_with(expected), "{split:?} {wiring:?}: {words}");
+                plan.shunt = None;
+                assert_eq!(shunt_place_words(&plan, &colours), None);
+            }
+        }
     }
 
     #[test]

@@ -8,7 +8,7 @@
 //! rows in one column, and arm 3 closes the loop in an outer column, so no wire crosses an
 //! arm.
 
-use gw_bridge::circuit::{ARM_CORNERS, LeadWiring, ShuntLocation};
+use gw_bridge::circuit::{ARM_CORNERS, LeadWiring};
 use gw_bridge::units::si;
 use gw_mechanics::LoadComponent;
 
@@ -16,6 +16,7 @@ use super::layout::{Area, ascent, line_pitch, text_width, wrap};
 use super::writer::Writer;
 use crate::connector::{
     ArmSign, CORNER_CONDUCTORS, Pinout, arm_signs, bridge_model, output_sign_from_marks,
+    shunt_place, shunt_place_words,
 };
 use crate::document::{BridgePlan, Part, PlanArm, Project};
 
@@ -35,6 +36,10 @@ const SHUNT_DX: f32 = 14.0;
 const SENSE_DY: f32 = 18.0;
 /// Width of the connector, points.
 const CONNECTOR_W: f32 = 24.0;
+/// The word under the connector.
+const CONNECTOR_CAPTION: &str = "connector";
+/// Clear space between the connector's caption and the instrument's dashed outline, points.
+const CAPTION_GAP: f32 = 8.0;
 /// Radius of a terminal at the gauge site and of a junction dot, points.
 const PAD_R: f32 = 2.4;
 const DOT_R: f32 = 1.5;
@@ -65,7 +70,9 @@ struct Facts {
     wiring: LeadWiring,
     wanted: LoadComponent,
     /// Arm index, resistance (`None` when it could not be worked out) and where it sits.
-    shunt: Option<(usize, Option<f64>, Side, ShuntLocation)>,
+    shunt: Option<(usize, Option<f64>, Side)>,
+    /// Where the shunt goes, in the words the bridge's checks use too.
+    shunt_words: Option<String>,
     arm_text: [Vec<String>; 4],
 }
 
@@ -81,18 +88,18 @@ fn facts(project: &Project, part: &Part, plan: &BridgePlan) -> Facts {
             Some(format!("Strain signs not worked out: {e}")),
         ),
     };
-    let shunt = plan.shunt.map(|s| {
+    let shunt = shunt_place(plan).map(|(arm, at_gauge_end)| {
         let ohm = model
             .as_ref()
             .ok()
             .and_then(|m| gw_bridge::shunt::shunt_calibration(m).ok().flatten())
             .map(|c| c.e96_ohm);
-        let arm = s.arm.min(3);
-        let side = match s.location {
-            ShuntLocation::GaugeEnd if at_gauge[arm] => Side::Gauge,
-            _ => Side::Instrument,
+        let side = if at_gauge_end {
+            Side::Gauge
+        } else {
+            Side::Instrument
         };
-        (arm, ohm, side, s.location)
+        (arm, ohm, side)
     });
     let arm_text = std::array::from_fn(|k| arm_words(&plan.arms[k], signs[k], plan.wanted));
     Facts {
@@ -106,6 +113,7 @@ fn facts(project: &Project, part: &Part, plan: &BridgePlan) -> Facts {
         wiring: plan.wiring,
         wanted: plan.wanted,
         shunt,
+        shunt_words: shunt_place_words(plan, &project.lead_colours),
         arm_text,
     }
 }
@@ -224,7 +232,7 @@ fn side_elements(f: &Facts, side: Side, width: f32) -> Vec<Element> {
     let mut out = Vec::new();
     for arm in 0..4 {
         let here = f.at_gauge[arm] == (side == Side::Gauge);
-        let shunt_here = matches!(f.shunt, Some((a, _, s, _)) if a == arm && s == side);
+        let shunt_here = matches!(f.shunt, Some((a, _, s)) if a == arm && s == side);
         if here {
             out.push(Element {
                 x: 0.0,
@@ -402,8 +410,10 @@ fn geometry(f: &Facts, left: f32, top: f32, label_w: f32) -> Geometry {
         .fold(0.0, f32::max)
         + 16.0;
     let connector_x = gauge.1 + cable_w.max(60.0);
-    // Room under the connector for its caption, clear of the instrument's outline.
-    let inst_x0 = connector_x + CONNECTOR_W + 12.0;
+    // Room beside the connector for the caption under it, clear of the instrument's outline.
+    let caption_half = text_width(CONNECTOR_CAPTION, SIZE, false) / 2.0;
+    let inst_x0 =
+        connector_x + (CONNECTOR_W / 2.0 + caption_half + CAPTION_GAP).max(CONNECTOR_W + 12.0);
     let dest_w = dest
         .iter()
         .map(|(_, t)| text_width(t, SIZE, false))
@@ -495,14 +505,13 @@ fn draw_boxes(w: &mut Writer, f: &Facts, g: &Geometry) {
         g.shield_y + 8.0,
     );
     w.rect(c, Some(245), 1.0);
-    let caption = "connector";
-    let cw = text_width(caption, SIZE, false);
+    let cw = text_width(CONNECTOR_CAPTION, SIZE, false);
     w.text_top(
         g.connector_x + CONNECTOR_W / 2.0 - cw / 2.0,
         g.shield_y + 10.0,
         SIZE,
         false,
-        caption,
+        CONNECTOR_CAPTION,
     );
 }
 
@@ -740,15 +749,7 @@ fn notes(w: &mut Writer, f: &Facts) {
             None => "",
         }
     )];
-    lines.push(format!(
-        "Connector pins: {}.",
-        f.pinout
-            .pins
-            .iter()
-            .map(|p| format!("{} {} ({})", p.number, p.role, p.colour))
-            .collect::<Vec<_>>()
-            .join("; ")
-    ));
+    lines.push(pin_list(&f.pinout));
     let conductors = f.pinout.conductor_pins().count();
     lines.push(format!(
         "Leads: {}, {conductors} conductors of {} m, {:.2} Ω each, plus the shield.",
@@ -775,29 +776,35 @@ fn notes(w: &mut Writer, f: &Facts) {
             sense.join(", ")
         ));
     }
-    if let Some((arm, ohm, side, location)) = f.shunt {
-        let place = match (location, side) {
-            (ShuntLocation::InstrumentEnd, _) => "at the instrument".to_owned(),
-            (ShuntLocation::GaugeEnd, Side::Gauge) => "at the gauge site".to_owned(),
-            (ShuntLocation::GaugeEnd, Side::Instrument) => format!(
-                "planned at the gauge end, but arm {} is a resistor in the instrument, so it \
-                 goes across that resistor there",
-                arm + 1
-            ),
-        };
+    if let (Some((_, ohm, _)), Some(place)) = (f.shunt, &f.shunt_words) {
         let value = ohm.map_or("a resistor (value not worked out)".to_owned(), |o| {
             si(o, "Ω")
         });
-        lines.push(format!(
-            "Shunt calibration: {value} across arm {} {place}, {}.",
-            arm + 1,
-            f.pinout.shunt_words(arm)
-        ));
+        lines.push(format!("Shunt calibration: {value} {place}."));
     }
     lines.extend(f.sign_note.clone());
     for l in lines {
         w.para(8.0, false, &l);
     }
+}
+
+/// Every pin of the connector in order, the ones this wiring leaves empty as "not used"
+/// (each role has its fixed pin on every channel).
+fn pin_list(pinout: &Pinout) -> String {
+    let mut items: Vec<(usize, String)> = pinout
+        .pins
+        .iter()
+        .map(|p| (p.number, format!("{} {} ({})", p.number, p.role, p.colour)))
+        .collect();
+    items.extend(
+        pinout
+            .unused()
+            .into_iter()
+            .map(|(n, role)| (n, format!("{n} not used ({role})"))),
+    );
+    items.sort_by_key(|(n, _)| *n);
+    let items: Vec<String> = items.into_iter().map(|(_, t)| t).collect();
+    format!("Connector pins: {}.", items.join("; "))
 }
 
 #[cfg(test)]
@@ -809,6 +816,7 @@ mod tests {
     use crate::gallery::model_gallery;
     use gw_bridge::CompletionResistor;
     use gw_bridge::bridge::ShuntPlan;
+    use gw_bridge::circuit::ShuntLocation;
 
     fn fresh(project: &Project) -> Writer {
         Writer::new(
@@ -925,14 +933,108 @@ mod tests {
         ] {
             assert!(all.contains(want), "{want} missing from\n{all}");
         }
-        // Six conductors and the shield: pins 1 to 7 in the connector.
-        for n in 1..=7 {
-            assert!(texts.iter().any(|t| t == &n.to_string()), "pin {n}");
+        // Six conductors and the shield on their fixed pins; the output sense pins are empty.
+        for n in 1..=9 {
+            let drawn = texts.iter().any(|t| t == &n.to_string());
+            assert_eq!(drawn, !matches!(n, 7 | 8), "pin {n}");
+        }
+        for want in [
+            "Connector pins: 1 excitation + (orange);",
+            "7 not used (output + sense); 8 not used (output − sense); 9 shield (drain) (bare).",
+            "Shield (drain) on pin 9",
+            "The sense conductors (pins 5, 6)",
+        ] {
+            assert!(all.contains(want), "{want} missing from\n{all}");
         }
         assert_eq!(texts.iter().filter(|t| *t == "+").count(), 2);
         assert_eq!(texts.iter().filter(|t| *t == "−").count(), 2);
         assert!(all.contains(
-            "across arm 1 at the instrument, between pin 3 (output +) and pin 2 (excitation −)"
+            "across arm 1 at the instrument end, between pin 3 (output +) and pin 2 (excitation −)"
         ));
+    }
+
+    /// The plan of the demo's first bridge with the arms not in `split` made completion
+    /// resistors and the given wiring.
+    fn variant(base: &BridgePlan, split: [bool; 4], wiring: LeadWiring) -> BridgePlan {
+        let mut plan = base.clone();
+        for (k, keep) in split.iter().enumerate() {
+            if !keep {
+                plan.arms[k] = completion();
+            }
+        }
+        plan.wiring = wiring;
+        plan
+    }
+
+    #[test]
+    fn a_two_wire_quarter_bridge_uses_the_same_pins_as_every_other_channel() {
+        let project = demo_project();
+        let part = &project.parts[0];
+        let base = &part.bridges[0];
+        let plan = variant(base, [true, false, false, false], LeadWiring::TwoWire);
+        let (bad, _, texts) = drawn(&project, part, &plan);
+        assert!(bad.is_empty(), "{bad:#?}");
+        let all = texts.join(" ");
+        // Excitation − on 2 and output + on 3, as on the full bridge; the shield on 9.
+        for n in 1..=9 {
+            let drawn = texts.iter().any(|t| t == &n.to_string());
+            assert_eq!(drawn, matches!(n, 2 | 3 | 9), "pin {n}");
+        }
+        for want in [
+            "Connector pins: 1 not used (excitation +); 2 excitation − (brown); 3 output + \
+             (violet); 4 not used (output −);",
+            "Shield (drain) on pin 9",
+            "across arm 1 at the instrument end, between pin 3 (output +) and pin 2 (excitation −)",
+        ] {
+            assert!(all.contains(want), "{want} missing from\n{all}");
+        }
+        // The full bridge's notes give arm 1's shunt the same words.
+        let (_, _, full) = drawn(&project, part, base);
+        assert!(full.join(" ").contains(
+            "across arm 1 at the instrument end, between pin 3 (output +) and pin 2 (excitation −)"
+        ));
+    }
+
+    /// The smallest distance between two boxes (0 when they touch or overlap), points.
+    fn gap_between(a: &Area, b: &Area) -> f32 {
+        let dx = (b.x0 - a.x1).max(a.x0 - b.x1).max(0.0);
+        let dy = (b.y0 - a.y1).max(a.y0 - b.y1).max(0.0);
+        dx.hypot(dy)
+    }
+
+    #[test]
+    fn the_connector_caption_keeps_clear_of_the_dashed_boxes() {
+        let project = demo_project();
+        let part = &project.parts[0];
+        for split in [
+            [true; 4],
+            [true, true, false, false],
+            [true, false, false, false],
+            [false, false, false, true],
+        ] {
+            for wiring in [
+                LeadWiring::TwoWire,
+                LeadWiring::ThreeWire,
+                LeadWiring::RemoteSense,
+            ] {
+                let plan = variant(&part.bridges[0], split, wiring);
+                let mut w = fresh(&project);
+                draw_plan(&mut w, &project, part, &plan);
+                let ops = w.current();
+                let caption = ops
+                    .iter()
+                    .find(|op| matches!(op, Op::Text { text, .. } if text == CONNECTOR_CAPTION))
+                    .map(super::super::layout::op_area)
+                    .expect("the connector has its caption");
+                // Every drawn line (the dashed outlines are short lines) at least 2 pt from
+                // the caption's box, half the 0.6 pt stroke included.
+                let nearest = ops
+                    .iter()
+                    .filter(|op| matches!(op, Op::Line { .. }))
+                    .map(|op| gap_between(&caption, &super::super::layout::op_area(op)) - 0.3)
+                    .fold(f32::MAX, f32::min);
+                assert!(nearest >= 2.0, "{split:?} {wiring:?}: {nearest} pt");
+            }
+        }
     }
 }
