@@ -6,8 +6,8 @@ use gw_bridge::units::si;
 
 use super::writer::{BODY, Writer};
 use super::{um, wiring_diagram};
-use crate::connector::Pinout;
-use crate::document::{BridgePlan, Part, Project};
+use crate::connector::{Pinout, pin_number, shunt_place_words};
+use crate::document::{BridgePlan, LeadColours, Part, Project};
 use crate::evaluate::BridgeEvaluation;
 
 /// The zero reading expected with the part unloaded, in words for a table cell: the
@@ -153,18 +153,9 @@ fn case_rows(part: &Part, be: &BridgeEvaluation) -> Vec<Vec<String>> {
 }
 
 /// The shunt check in words: the resistor, where it goes, and what to expect.
-fn shunt_words(be: &BridgeEvaluation, plan: &BridgePlan, pins: &Pinout) -> Option<String> {
+fn shunt_words(be: &BridgeEvaluation, plan: &BridgePlan, colours: &LeadColours) -> Option<String> {
     let s = be.shunt.as_ref()?;
-    let at = match plan.shunt.map(|p| p.location) {
-        Some(gw_bridge::ShuntLocation::GaugeEnd) => {
-            format!("at the gauge, across arm {}", s.arm + 1)
-        }
-        _ => format!(
-            "at the connector, across arm {} {}",
-            s.arm + 1,
-            pins.shunt_words(s.arm)
-        ),
-    };
+    let at = shunt_place_words(plan, colours)?;
     // What the instrument displays back to the bridge's output: displayed strain =
     // 4 (Vo/Vex) / (gauge factor × bridge factor), the instrument's own conversion.
     let mv_per_v =
@@ -174,6 +165,31 @@ fn shunt_words(be: &BridgeEvaluation, plan: &BridgePlan, pins: &Pinout) -> Optio
         si(s.e96_ohm, "Ω"),
         um(s.expected_reading_strain)
     ))
+}
+
+/// The resistance between each pair of pins, lowest pin numbers first.
+fn pin_rows(pins: &Pinout, resistances: &[(String, f64)]) -> Vec<Vec<String>> {
+    let mut keyed: Vec<((usize, usize), Vec<String>)> = resistances
+        .iter()
+        .map(|(name, r)| {
+            let (a, b) = name.split_once(" to ").unwrap_or((name, name));
+            let (pa, pb) = (
+                pin_number(a.trim()).unwrap_or(usize::MAX),
+                pin_number(b.trim()).unwrap_or(usize::MAX),
+            );
+            let words = if pa <= pb {
+                pins.pair_words(name)
+            } else {
+                pins.pair_words(&format!("{} to {}", b.trim(), a.trim()))
+            };
+            (
+                (pa.min(pb), pa.max(pb)),
+                vec![words.unwrap_or_else(|| name.clone()), format!("{r:.2} Ω")],
+            )
+        })
+        .collect();
+    keyed.sort_by_key(|(k, _)| *k);
+    keyed.into_iter().map(|(_, row)| row).collect()
 }
 
 /// Everything about one bridge.
@@ -222,15 +238,12 @@ pub(crate) fn draw(
     w.para(BODY, false, &conversion_words(be));
     let pins = Pinout::for_bridge(plan, &project.lead_colours);
     let zero = zero_words(be);
-    let shunt = shunt_words(be, plan, &pins);
+    let shunt = shunt_words(be, plan, &project.lead_colours);
     let mut rows = vec![vec![
         "Between (instrument disconnected)".to_owned(),
         "Expect".to_owned(),
     ]];
-    for (name, r) in &be.pin_resistances {
-        let pair = pins.pair_words(name).unwrap_or_else(|| name.clone());
-        rows.push(vec![pair, format!("{r:.2} Ω")]);
-    }
+    rows.extend(pin_rows(&pins, &be.pin_resistances));
     // The checks stay together on one page.
     let height = 30.0
         + w.para_height(BODY, false, &zero)
