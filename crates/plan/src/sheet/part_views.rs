@@ -232,7 +232,8 @@ fn caption(part: &Part, scales: Scales) -> String {
     };
     format!(
         "{scale} Axes: {}. Held: {}. {loads} Gauges: a circled cross where seen, a dashed \
-         circle where behind the part{ticks}.",
+         circle where behind the part (a wider dashed ring round a seen mark it lies under)\
+         {ticks}.",
         axes_words(member),
         held(member)
     )
@@ -280,6 +281,11 @@ impl Grid {
 
 /// Draws the part in views that show where it is held and loaded, from `w.y` down.
 pub(crate) fn draw(w: &mut Writer, part: &Part) {
+    draw_recorded(w, part);
+}
+
+/// [`draw`], returning what it drew of the gauges and loads for the checks.
+fn draw_recorded(w: &mut Writer, part: &Part) -> annotate::Record {
     let member = &part.member;
     let mesh = PartMesh::of(member);
     let bounds = part_bounds(&mesh);
@@ -291,7 +297,7 @@ pub(crate) fn draw(w: &mut Writer, part: &Part) {
             false,
             "The part views cannot be drawn: the part's size is not a positive finite number.",
         );
-        return;
+        return annotate::Record::default();
     }
     let cells = arrangement(member);
     let scales = choose_scales(w.column(), &cells, bounds);
@@ -319,20 +325,25 @@ pub(crate) fn draw(w: &mut Writer, part: &Part) {
         })
         .collect();
     let mut labels = Vec::new();
+    let mut record = annotate::Record::default();
     annotate::supports(w, member, &placed, &mut labels);
+    // Gauges before loads: the arrows keep clear of the gauges' marks and ticks.
+    annotate::gauges(
+        w,
+        member,
+        &part.gauges,
+        &with_depth,
+        &mut record,
+        &mut labels,
+    );
     if let Some(case) = part.load_cases.first() {
         let glyphs = load_glyphs(member, &LoadVector::from_pairs(&case.loads));
-        annotate::loads(w, &placed, &glyphs, bounds, &mut labels);
+        let (rec, lab) = (&mut record, &mut labels);
+        annotate::loads(w, member, &with_depth, &glyphs, bounds, rec, lab);
     }
-    annotate::gauges(w, member, &part.gauges, &with_depth, &mut labels);
     annotate::faces(w, member, &placed, &mut labels);
     let mut missing = triads_and_titles(w, (&g, &block), &cells, &placed, scales);
-    let parts: Vec<Area> = placed.iter().map(|p| p.drawing().grown(0.5)).collect();
-    for l in &labels {
-        if !annotate::place(w, &block, &parts, l) {
-            missing.push(l.text.clone());
-        }
-    }
+    place_labels(w, &block, &placed, labels, &mut record, &mut missing);
     bars(w, scales, &cells, block.y1 - STRIP + 6.0);
     w.y = block.y1 + 2.0;
     if !missing.is_empty() {
@@ -341,6 +352,28 @@ pub(crate) fn draw(w: &mut Writer, part: &Part) {
             false,
             &format!("Not drawn for want of room: {}.", missing.join("; ")),
         );
+    }
+    record
+}
+
+/// Places the labels, the gauges' first (they matter most), recording where those went and
+/// adding what found no room to `missing`.
+fn place_labels(
+    w: &mut Writer,
+    block: &Area,
+    placed: &[Placed],
+    mut labels: Vec<annotate::Label>,
+    record: &mut annotate::Record,
+    missing: &mut Vec<String>,
+) {
+    labels.sort_by_key(|l| l.gauge.is_none());
+    let parts: Vec<Area> = placed.iter().map(|p| p.drawing().grown(0.5)).collect();
+    for l in &labels {
+        match (annotate::place(w, block, &parts, l), l.gauge) {
+            (Some(b), Some(i)) => record.gauge_labels.push((i, b)),
+            (Some(_), None) => {}
+            (None, _) => missing.push(l.text.clone()),
+        }
     }
 }
 
@@ -503,6 +536,7 @@ mod tests {
     use crate::document::PaperSize;
     use crate::sheet::layout::{Op, problems};
     use crate::sheet::writer::Header;
+    use geometry::dist2;
 
     fn header() -> Header {
         Header {
@@ -704,6 +738,157 @@ mod tests {
                     texts.iter().any(|x| x == t),
                     "{name}: {t} missing from {texts:?}"
                 );
+            }
+        }
+    }
+
+    /// Every part of the gallery and the demo, drawn, with what it recorded of its gauges.
+    fn recorded() -> Vec<(String, annotate::Record, Vec<Op>)> {
+        let mut out = Vec::new();
+        for project in [crate::gallery::model_gallery(), crate::demo::demo_project()] {
+            for part in &project.parts {
+                let mut w = Writer::new(PaperSize::A4, header());
+                let r = draw_recorded(&mut w, part);
+                out.push((part.name.clone(), r, w.pages.concat()));
+            }
+        }
+        out
+    }
+
+    /// Each gauge's label lies nearer its own mark (or tick) than any other gauge's in the
+    /// same view, and every place of gauges is labelled.
+    #[test]
+    fn each_gauge_label_is_nearest_its_own_mark() {
+        use annotate::to_box;
+        for (name, r, ops) in recorded() {
+            assert!(
+                !r.marks.is_empty() || name.contains("patch"),
+                "{name}: no marks"
+            );
+            for (i, (view, at, ids)) in r.marks.iter().enumerate() {
+                let boxes: Vec<&Area> = r
+                    .gauge_labels
+                    .iter()
+                    .filter(|(k, _)| *k == i)
+                    .map(|(_, b)| b)
+                    .collect();
+                assert_eq!(
+                    boxes.len(),
+                    1,
+                    "{name}: {ids:?} labelled {} times",
+                    boxes.len()
+                );
+                let own = to_box(*at, boxes[0]);
+                // Beyond a short gap, a leader runs from the mark to the label.
+                let led = ops.iter().any(|op| match op {
+                    Op::Line {
+                        x1,
+                        y1,
+                        x2,
+                        y2,
+                        width,
+                        ..
+                    } if (*width - 0.4).abs() < 1e-3 => {
+                        dist2([*x1, *y1], *at) < symbols::RING + 1.5
+                            && to_box([*x2, *y2], boxes[0]) < 1.5
+                    }
+                    _ => false,
+                });
+                assert!(
+                    own < 12.0 || led,
+                    "{name}: {ids:?} {own:.1} pt away, no leader"
+                );
+                for (j, (other_view, other, other_ids)) in r.marks.iter().enumerate() {
+                    if j == i || other_view != view {
+                        continue;
+                    }
+                    assert!(
+                        own < to_box(*other, boxes[0]),
+                        "{name}: the label of {ids:?} ({own:.1} pt from its mark) lies \
+                         nearer the mark of {other_ids:?}"
+                    );
+                }
+            }
+        }
+    }
+
+    /// The reaction arm's top view follows the surface conventions of `gw_mechanics::Face`:
+    /// on the top face s runs towards +y, on the bottom face towards −y, and the top view has
+    /// +y up the page. A1 (top, s = −7.5 mm) and A4 (bottom, s = +7.5 mm) are both on the
+    /// front (−y) half, lower on the page than A3 and A2; the hidden A2 and A4 are drawn as
+    /// dashed rings round the seen marks they lie under.
+    #[test]
+    fn the_arms_top_view_puts_each_gauge_on_its_own_side() {
+        let all = recorded();
+        let (_, r, ops) = all.iter().find(|(n, _, _)| n == "Reaction arm").unwrap();
+        let place = |id: &str| {
+            r.marks
+                .iter()
+                .find(|(v, _, ids)| *v == 0 && ids.iter().any(|i| i == id))
+                .map(|m| m.1)
+                .unwrap_or_else(|| panic!("{id} not marked in the top view"))
+        };
+        let (a1, a2, a3, a4) = (place("A1"), place("A2"), place("A3"), place("A4"));
+        assert!(a1[1] > a3[1] + 3.0, "A1 {a1:?} below A3 {a3:?}");
+        assert!(
+            dist2(a1, a4) < 0.5 && dist2(a2, a3) < 0.5,
+            "{a1:?} {a4:?} {a2:?} {a3:?}"
+        );
+        for hidden in [a2, a4] {
+            let dashes = ops
+                .iter()
+                .filter(|op| match op {
+                    Op::Line { x1, y1, x2, y2, .. } => [[*x1, *y1], [*x2, *y2]]
+                        .iter()
+                        .all(|p| (dist2(*p, hidden) - symbols::RING).abs() < 0.05),
+                    _ => false,
+                })
+                .count();
+            assert!(dashes >= 8, "dashed ring round {hidden:?}: {dashes} dashes");
+        }
+    }
+
+    /// Shortest distance between the segments a–b and c–d, points (sampled finely).
+    fn segment_gap(a: [f32; 2], b: [f32; 2], c: [f32; 2], d: [f32; 2]) -> f32 {
+        let at =
+            |p: [f32; 2], q: [f32; 2], t: f32| [p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])];
+        let mut best = f32::MAX;
+        for i in 0..=100 {
+            for j in 0..=100 {
+                let (p, q) = (at(a, b, i as f32 / 100.0), at(c, d, j as f32 / 100.0));
+                best = best.min(dist2(p, q));
+            }
+        }
+        best
+    }
+
+    /// No load arrow runs over a gauge tick, a gauge mark or a gauge's label.
+    #[test]
+    fn load_arrows_keep_clear_of_gauge_ticks_marks_and_labels() {
+        for (name, r, _) in recorded() {
+            for &(view, p, q) in &r.arrows {
+                for &(tv, a, b) in &r.ticks {
+                    let gap = segment_gap(p, q, a, b);
+                    assert!(
+                        tv != view || gap > 1.5,
+                        "{name}: an arrow {gap:.1} pt from a tick"
+                    );
+                }
+                for (i, b) in &r.gauge_labels {
+                    let (mv, at, ids) = &r.marks[*i];
+                    if *mv != view {
+                        continue;
+                    }
+                    assert!(
+                        !b.grown(1.0).crossed_by(p, q),
+                        "{name}: an arrow crosses the label of {ids:?}"
+                    );
+                    let mark = Area::new(at[0] - 3.2, at[1] - 3.2, at[0] + 3.2, at[1] + 3.2);
+                    assert!(
+                        r.ticks.iter().any(|t| t.0 == view) || !mark.crossed_by(p, q),
+                        "{name}: an arrow crosses the mark of {ids:?}"
+                    );
+                }
             }
         }
     }

@@ -132,6 +132,20 @@ impl Placed {
     }
 }
 
+/// `p` turned by `angle` (radians, right-handed) about the line through `centre` along the
+/// unit vector `axis` (Rodrigues' rotation formula).
+pub(super) fn rotated(p: V3, centre: V3, axis: V3, angle: f64) -> V3 {
+    let d: V3 = std::array::from_fn(|i| p[i] - centre[i]);
+    let (sin, cos) = angle.sin_cos();
+    let cross = [
+        axis[1] * d[2] - axis[2] * d[1],
+        axis[2] * d[0] - axis[0] * d[2],
+        axis[0] * d[1] - axis[1] * d[0],
+    ];
+    let along = dot(axis, d) * (1.0 - cos);
+    std::array::from_fn(|i| centre[i] + d[i] * cos + cross[i] * sin + axis[i] * along)
+}
+
 /// Side of a cell of the depth buffer, points.
 const CELL: f32 = 0.5;
 
@@ -202,6 +216,16 @@ impl Depth {
                 *c = c.max(depth);
             }
         }
+    }
+
+    /// True when the part covers the page point `at`.
+    pub fn covers(&self, at: [f32; 2]) -> bool {
+        let i = ((at[0] - self.x0) / CELL).round();
+        let j = ((at[1] - self.y0) / CELL).round();
+        if i < 0.0 || j < 0.0 || i >= self.nx as f32 || j >= self.ny as f32 {
+            return false;
+        }
+        self.cells[j as usize * self.nx + i as usize] > f64::NEG_INFINITY
     }
 
     /// True when a point at `depth` drawn at `at` is not behind the part: its cell shows

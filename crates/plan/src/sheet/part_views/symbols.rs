@@ -45,15 +45,15 @@ pub(super) fn arrow(w: &mut Writer, tail: [f32; 2], head: [f32; 2], width: f32) 
     });
 }
 
-/// Three quarters of a circle round `centre` with an arrow head at its end, turning
-/// anticlockwise on the page when `anticlockwise`; the open quarter faces `gap`.
-pub(super) fn turning_arrow(
-    w: &mut Writer,
+/// The points of a turning arrow: three quarters of a circle round `centre`, turning
+/// anticlockwise on the page when `anticlockwise`, the open quarter facing `gap`; the arrow's
+/// head is at the last point.
+pub(super) fn turning_points(
     centre: [f32; 2],
     radius: f32,
     anticlockwise: bool,
     gap: [f32; 2],
-) {
+) -> Vec<[f32; 2]> {
     // Page angles measured anticlockwise as seen (y down, hence the minus signs).
     let gap_angle = if gap == [0.0, 0.0] {
         -std::f32::consts::FRAC_PI_4
@@ -68,9 +68,14 @@ pub(super) fn turning_arrow(
     };
     let n = 24;
     let span = 1.5 * std::f32::consts::PI;
-    let pts: Vec<[f32; 2]> = (0..=n).map(|k| at(span * k as f32 / n as f32)).collect();
-    w.path(pts[..n - 1].to_vec(), false, 0.9, None);
-    arrow(w, pts[n - 2], pts[n], 0.9);
+    (0..=n).map(|k| at(span * k as f32 / n as f32)).collect()
+}
+
+/// A turning arrow along `points` (from [`turning_points`]).
+pub(super) fn turning_arrow(w: &mut Writer, points: &[[f32; 2]]) {
+    let n = points.len() - 1;
+    w.path(points[..n - 1].to_vec(), false, 0.9, None);
+    arrow(w, points[n - 2], points[n], 0.9);
 }
 
 /// A hidden line: dashes along the polyline.
@@ -128,18 +133,23 @@ pub(super) fn pin(w: &mut Writer, apex: [f32; 2]) {
     }
 }
 
-/// A gauge mark: a circled cross where the gauge is seen, a dashed circle where it is behind
-/// the part.
-pub(super) fn gauge_mark(w: &mut Writer, at: [f32; 2], hidden: bool) {
-    let r = 3.2;
-    let circle: Vec<[f32; 2]> = (0..=16)
+/// Radius of a gauge mark, points.
+pub(super) const MARK: f32 = 3.2;
+/// Radius of the dashed ring of a hidden gauge that lies under a seen one, points.
+pub(super) const RING: f32 = 5.4;
+
+/// A gauge mark: a circled cross where the gauge is seen, a dashed circle of radius `r` where
+/// it is behind the part.
+pub(super) fn gauge_mark(w: &mut Writer, at: [f32; 2], hidden: bool, r: f32) {
+    let n = if hidden { 24 } else { 16 };
+    let circle: Vec<[f32; 2]> = (0..=n)
         .map(|k| {
-            let t = std::f32::consts::TAU * k as f32 / 16.0;
+            let t = std::f32::consts::TAU * k as f32 / n as f32;
             [at[0] + r * t.cos(), at[1] + r * t.sin()]
         })
         .collect();
     if hidden {
-        for k in (0..16).step_by(2) {
+        for k in (0..n).step_by(2) {
             w.line(circle[k], circle[k + 1], 0.6, 0);
         }
     } else {
