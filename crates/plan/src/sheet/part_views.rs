@@ -9,6 +9,7 @@
 
 mod annotate;
 mod geometry;
+mod load_arrows;
 mod symbols;
 
 use gw_bridge::units::si;
@@ -339,7 +340,7 @@ fn draw_recorded(w: &mut Writer, part: &Part) -> annotate::Record {
     if let Some(case) = part.load_cases.first() {
         let glyphs = load_glyphs(member, &LoadVector::from_pairs(&case.loads));
         let (rec, lab) = (&mut record, &mut labels);
-        annotate::loads(w, member, &with_depth, &glyphs, bounds, rec, lab);
+        load_arrows::draw(w, member, &with_depth, &glyphs, bounds, rec, lab);
     }
     annotate::faces(w, member, &placed, &mut labels);
     let mut missing = triads_and_titles(w, (&g, &block), &cells, &placed, scales);
