@@ -602,8 +602,14 @@ pub enum Neighbour {
         /// How it ends.
         kind: EndKind,
     },
-    /// A pole of a sphere (the meridian arc ends there).
-    Pole,
+    /// A pole of a sphere (the meridian arc ends there): the top pole on +z, where x, the
+    /// meridian arc from the equator, is largest; the bottom pole on −z.
+    Pole {
+        /// True for the top pole (+z).
+        top: bool,
+        /// Where, metres along x (the meridian arc from the equator).
+        x_m: f64,
+    },
     /// The outer edge of a plate, where the remote stress is applied.
     PlateEdge {
         /// The line the edge lies on.
@@ -669,7 +675,14 @@ impl Neighbour {
                 };
                 format!("{what} at x = {}", length(*x_m))
             }
-            Neighbour::Pole => "pole".to_owned(),
+            Neighbour::Pole { top, x_m } => {
+                let which = if *top {
+                    "top pole (+z)"
+                } else {
+                    "bottom pole (−z)"
+                };
+                format!("{which} at x = {}", length(*x_m))
+            }
             Neighbour::PlateEdge { at } => format!("plate edge at {}", at.label(length)),
             Neighbour::RegionEdge { at } => format!("edge at {}", at.label(length)),
         }
@@ -690,7 +703,8 @@ impl Neighbour {
                 EndKind::ClosedVesselEnd => "closed end",
                 EndKind::OpenVesselEnd => "open end",
             },
-            Neighbour::Pole => "pole",
+            Neighbour::Pole { top: true, .. } => "top pole",
+            Neighbour::Pole { top: false, .. } => "bottom pole",
             Neighbour::PlateEdge { .. } => "plate edge",
             Neighbour::RegionEdge { .. } => "edge",
         }
@@ -713,7 +727,13 @@ impl Neighbour {
                 EndKind::ClosedVesselEnd => "A closed end carries the pressure's axial pull.",
                 EndKind::OpenVesselEnd => "An open end carries no axial load.",
             },
-            Neighbour::Pole => "The meridian ends at the pole.",
+            Neighbour::Pole { top: true, .. } => {
+                "The meridian ends at the top pole (+z), a quarter circumference from the equator."
+            }
+            Neighbour::Pole { top: false, .. } => {
+                "The meridian ends at the bottom pole (−z), a quarter circumference from the \
+                 equator."
+            }
             Neighbour::PlateEdge { .. } => "The remote stress acts on the plate beyond this edge.",
             Neighbour::RegionEdge { .. } => {
                 "The given surface state was entered for this region only."
@@ -822,7 +842,18 @@ fn ends(member: &Member, x_range: (f64, f64)) -> (Neighbour, Neighbour) {
             let kind = vessel_end(c.ends);
             (end(0.0, kind), end(c.length_m, kind))
         }
-        Member::ThinSphere(_) => (Neighbour::Pole, Neighbour::Pole),
+        // x is the meridian arc from the equator towards the +z pole (gw_mechanics'
+        // surface_geometry): the smallest x is the bottom pole, the largest the top pole.
+        Member::ThinSphere(_) => (
+            Neighbour::Pole {
+                top: false,
+                x_m: x_range.0,
+            },
+            Neighbour::Pole {
+                top: true,
+                x_m: x_range.1,
+            },
+        ),
         Member::PlateWithHole(_) => (
             Neighbour::PlateEdge {
                 at: x_line(x_range.0),

@@ -16,10 +16,16 @@ use super::layout::{Area, MARGIN, ascent, descent, line_pitch, text_width, wrap}
 use super::writer::Writer;
 use crate::document::Part;
 
-/// Size of labels on the drawings, points.
-pub(crate) const LABEL: f32 = 7.0;
+/// Size of labels on the drawings, points (no text on a drawing or template is smaller).
+pub(crate) const LABEL: f32 = 7.5;
+/// Least gap between a label and any line, points.
+const LINE_GAP: f32 = 2.5;
+/// Least gap between two labels side by side, points.
+const TEXT_GAP: f32 = 6.5;
 /// One row of labels, points.
 pub(super) const ROW: f32 = 11.5;
+/// Rows of edge labels above and below a face.
+pub(super) const EDGE_ROWS: f32 = 3.0;
 /// Height of one tier of horizontal dimensions, points.
 const TIER: f32 = 16.0;
 /// Face shown round each gauge, points on the page.
@@ -31,15 +37,12 @@ const ON_LINE_M: f64 = 0.05e-3;
 
 /// Draws each face that carries gauges (see the module's description), from `w.y` down.
 pub(crate) fn draw(w: &mut Writer, part: &Part, placed: &[gw_bridge::PlacedGauge]) {
-    let mut drawn = 0;
+    let mut first = true;
     for extent in part.member.faces() {
         if let Some(setup) = FaceSetup::new(&part.member, extent, placed, part.datum_m) {
-            draw_face(w, &setup);
-            drawn += 1;
+            draw_face(w, &setup, first);
+            first = false;
         }
-    }
-    if drawn > 0 {
-        labels::key(w);
     }
 }
 
@@ -131,11 +134,14 @@ struct Drawing<'a> {
     bounds: Area,
     /// Boxes round the drawn gauges.
     gauge_boxes: Vec<Area>,
+    /// Each drawn gauge's grids: the page point beyond the tabs and the grid's direction.
+    grid_tabs: Vec<Vec<([f32; 2], [f32; 2])>>,
     /// Labels that found no free place, named in a note under the drawing.
     missing: Vec<String>,
 }
 
-fn draw_face(w: &mut Writer, setup: &FaceSetup) {
+/// Draws one face; `with_key` adds the key to the drawings under it (the part's first).
+fn draw_face(w: &mut Writer, setup: &FaceSetup, with_key: bool) {
     let (x_dims, on_x) = dims(setup, true);
     let (s_dims, on_s) = dims(setup, false);
     let s_tier = s_dims
@@ -150,14 +156,17 @@ fn draw_face(w: &mut Writer, setup: &FaceSetup) {
     };
     let title = format!("{}: {}.", face_title(setup.face), setup.view_words());
     let title_h = wrap(&title, 9.0, true, w.column()).len() as f32 * line_pitch(9.0, true);
-    let under = 2.0 * ROW + TIER * x_dims.len() as f32 + 44.0;
-    let over = title_h + line_pitch(8.0, false) + 2.0 * ROW + 6.0;
+    let under = EDGE_ROWS * ROW + TIER * x_dims.len() as f32 + 44.0;
+    let over = title_h + line_pitch(8.0, false) + EDGE_ROWS * ROW + 6.0;
     let body = w.body();
     let max_h = (body.y1 - body.y0 - over - under - 10.0).min(MAX_FACE_PT);
     let max_w = w.column() - right_room - 8.0;
     let (scale, x, s) = setup.fit(max_w, max_h, PAD_PT);
     let face_h = s.length_pt();
-    w.room(over + face_h + under);
+    // The drawing stays on one page with the lines under it (and the key with the first).
+    let key_h = if with_key { labels::key_height(w) } else { 0.0 };
+    let legend_h = labels::legend_height(w, setup, &on_x, &on_s);
+    w.room(over + face_h + under + legend_h + key_h);
     let top = w.y;
     let after_title = w.wrapped(MARGIN, top, w.column(), 9.0, true, &title);
     let scale_line = format!(
@@ -170,7 +179,7 @@ fn draw_face(w: &mut Writer, setup: &FaceSetup) {
         x,
         s,
         left: MARGIN + 8.0,
-        top: after_scale + 2.0 * ROW + 4.0,
+        top: after_scale + EDGE_ROWS * ROW + 4.0,
     };
     let bottom = frame.top + face_h + under;
     let mut d = Drawing {
@@ -182,19 +191,25 @@ fn draw_face(w: &mut Writer, setup: &FaceSetup) {
         s_dims,
         s_tier,
         gauge_boxes: Vec::new(),
+        grid_tabs: Vec::new(),
         missing: Vec::new(),
     };
     d.draw_face_outline(w);
     d.draw_gauges(w);
+    d.draw_prep_areas(w);
     let datum_box = d.draw_datum(w);
     d.draw_x_dims(w, datum_box);
     d.draw_s_dims(w, datum_box);
     d.draw_scale_and_axes(w);
+    d.label_grids(w);
     d.label_dims(w);
     d.label_gauges(w, datum_box);
     d.label_edges(w);
     w.y = bottom;
     d.legend(w, &on_x, &on_s);
+    if with_key {
+        labels::key(w);
+    }
 }
 
 impl Drawing<'_> {
@@ -216,9 +231,62 @@ impl Drawing<'_> {
 
     fn draw_gauges(&mut self, w: &mut Writer) {
         for i in 0..self.setup.gauges.len() {
-            let b = marks::gauge(w, &self.setup.gauges[i], self.centre(i), self.k());
-            self.gauge_boxes.push(b);
+            let m = marks::gauge(w, &self.setup.gauges[i], self.centre(i), self.k());
+            self.gauge_boxes.push(m.area);
+            self.grid_tabs.push(m.tab_ends);
         }
+    }
+
+    /// The area to prepare round each gauge (its grid plus the margin all round, turned with
+    /// the gauge) as a dashed grey rectangle, cut at the face's edges and breaks and where it
+    /// would cross a gauge.
+    fn draw_prep_areas(&self, w: &mut Writer) {
+        let avoid: Vec<Area> = self.gauge_boxes.iter().map(|b| b.grown(2.0)).collect();
+        for i in 0..self.setup.gauges.len() {
+            let Some(window) = self.window_of(i) else {
+                continue;
+            };
+            let g = &self.setup.gauges[i];
+            let (l, wd) = plan::prep_size_m(g);
+            let (hl, hw) = (0.5 * l as f32 * self.k(), 0.5 * wd as f32 * self.k());
+            let (sin, cos) = g.angle_rad.sin_cos();
+            let (u, v) = ([cos as f32, -sin as f32], [-sin as f32, -cos as f32]);
+            let c = self.centre(i);
+            let at = |a: f32, b: f32| [c[0] + u[0] * a + v[0] * b, c[1] + u[1] * a + v[1] * b];
+            let corners = [at(-hl, -hw), at(hl, -hw), at(hl, hw), at(-hl, hw)];
+            for k in 0..4 {
+                let Some((p, q)) = marks::clip_segment(corners[k], corners[(k + 1) % 4], &window)
+                else {
+                    continue;
+                };
+                for (a, b) in marks::outside_boxes(p, q, &avoid) {
+                    marks::dashed(w, a, b, 3.0, 130);
+                }
+            }
+        }
+    }
+
+    /// The page box of the part of the face (window and face bounds) holding gauge `i`.
+    fn window_of(&self, i: usize) -> Option<Area> {
+        let p = self.setup.gauges[i].position;
+        let b = self.setup.bounds;
+        let f = &self.frame;
+        let xw =
+            f.x.windows
+                .iter()
+                .find(|(a, z)| p.x_m >= a - 1e-9 && p.x_m <= z + 1e-9)?;
+        let sw =
+            f.s.windows
+                .iter()
+                .find(|(a, z)| p.s_m >= a - 1e-9 && p.s_m <= z + 1e-9)?;
+        let (x0, x1) = (xw.0.max(b.x_m.0), xw.1.min(b.x_m.1));
+        let (s0, s1) = (sw.0.max(b.s_m.0), sw.1.min(b.s_m.1));
+        Some(Area::new(
+            f.page_x(x0)?,
+            f.page_y(s1)?,
+            f.page_x(x1)?,
+            f.page_y(s0)?,
+        ))
     }
 
     fn draw_datum(&self, w: &mut Writer) -> Area {

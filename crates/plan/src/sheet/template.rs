@@ -4,9 +4,9 @@
 use gw_bridge::PlacedGauge;
 use gw_mechanics::Face;
 
-use super::face_drawings::piece::{PIECE_ROOM, draw_piece, piece_setup};
+use super::face_drawings::piece::{EDGE_ROOM, PIECE_ROOM, draw_piece, piece_setup};
 use super::face_drawings::plan::{FaceSetup, PT_PER_M, Scale};
-use super::face_drawings::{LABEL, ROW, face_title, mm1};
+use super::face_drawings::{LABEL, face_title, mm1};
 use super::layout::{Area, MARGIN};
 use super::writer::Writer;
 use crate::document::Part;
@@ -27,11 +27,12 @@ pub(crate) fn draw(w: &mut Writer, part: &Part, placed: &[PlacedGauge], face: Fa
         return;
     };
     w.new_page();
-    w.heading(&format!(
+    let title = format!(
         "Marking template at 1:1: {}, {}",
         part.name,
         setup.face.name()
-    ));
+    );
+    w.heading(&title);
     let body = w.body();
     let max_w = w.column() - 2.0 * 20.0;
     let max_h = body.y1 - body.y0 - 200.0;
@@ -50,7 +51,9 @@ pub(crate) fn draw(w: &mut Writer, part: &Part, placed: &[PlacedGauge], face: Fa
     for (k, (piece, xw, sw)) in pieces.iter().enumerate() {
         let h = ((sw.1 - sw.0) * PT_PER_M) as f32 + PIECE_ROOM;
         if w.y + h > w.bottom() {
+            // Every page says which part and face it is for.
             w.new_page();
+            w.heading(&format!("{title} (continued)"));
             check_bar(w);
         }
         let (dx, ds) = setup.datum;
@@ -66,8 +69,8 @@ pub(crate) fn draw(w: &mut Writer, part: &Part, placed: &[PlacedGauge], face: Fa
                 mm1(sw.1 - ds)
             ),
         );
-        let top = w.y + 2.0 * ROW;
-        let bottom = top + ((sw.1 - sw.0) * PT_PER_M) as f32 + 2.0 * ROW;
+        let top = w.y + EDGE_ROOM;
+        let bottom = top + ((sw.1 - sw.0) * PT_PER_M) as f32 + EDGE_ROOM;
         let bounds = Area::new(MARGIN, w.y, w.right(), bottom);
         missing.extend(draw_piece(
             w,
@@ -114,7 +117,9 @@ fn instructions(w: &mut Writer, setup: &FaceSetup, whole: bool, pieces: usize) {
         &format!(
             "{}, {}. {extent} Cross-hairs run through each gauge's centre along x and s and out \
              past the piece's edges, to transfer onto the part; the grey pads are the solder \
-             tabs and the arrow the gauge's reference direction.",
+             tabs, the bold figure beyond a grid's tabs on a gauge of two or more grids is the grid's \
+             number (as the wiring diagrams and the records number them) and the arrow is the \
+             gauge's reference direction.",
             face_title(setup.face),
             setup.view_words()
         ),
@@ -213,6 +218,69 @@ mod tests {
             }
         }
         assert!(drawn >= 15, "{drawn}");
+    }
+
+    #[test]
+    fn every_template_page_names_its_part_and_face_and_numbers_every_grid() {
+        let (mut continued, mut numbered) = (0, 0);
+        for project in projects() {
+            for part in &project.parts {
+                let (faces, placed) = gauged_faces(&project, part);
+                for face in faces {
+                    let mut w = writer();
+                    draw(&mut w, part, &placed, face);
+                    let title = format!("Marking template at 1:1: {}, {}", part.name, face.name());
+                    let mut figures = [0usize; 4];
+                    for (i, page) in w.pages.iter().enumerate().skip(1) {
+                        let texts: Vec<(&str, bool, f32)> = page
+                            .iter()
+                            .filter_map(|op| match op {
+                                Op::Text {
+                                    text, bold, size, ..
+                                } => Some((text.as_str(), *bold, *size)),
+                                _ => None,
+                            })
+                            .collect();
+                        // The heading may wrap: its first line starts the page's text.
+                        let first = texts.first().map_or("", |t| t.0);
+                        assert!(
+                            !first.is_empty()
+                                && (first.starts_with(&title)
+                                    || title.starts_with(first.trim_end())),
+                            "{} {face:?}, page {}: \"{first}\"",
+                            part.name,
+                            i + 1
+                        );
+                        continued += usize::from(texts.iter().any(|t| t.0.contains("(continued)")));
+                        for (text, bold, size) in &texts {
+                            assert!(*size >= 7.0, "\"{text}\" at {size} pt");
+                            if let Ok(k) = text.parse::<usize>()
+                                && *bold
+                                && k < figures.len()
+                            {
+                                figures[k] += 1;
+                            }
+                        }
+                    }
+                    let on_face: Vec<_> =
+                        placed.iter().filter(|g| g.position.face == face).collect();
+                    for (k, got) in figures.iter().enumerate().skip(1) {
+                        let want = on_face
+                            .iter()
+                            .filter(|g| g.element_count() >= k.max(2))
+                            .count();
+                        assert!(
+                            *got >= want,
+                            "{} {face:?}: grid {k} on {got} of {want}",
+                            part.name
+                        );
+                    }
+                    numbered += on_face.iter().filter(|g| g.element_count() > 1).count();
+                }
+            }
+        }
+        // The demo's drive shaft template runs over two pages; pairs and rosettes are drawn.
+        assert!(continued >= 1 && numbered >= 4, "{continued} {numbered}");
     }
 
     #[test]

@@ -161,16 +161,29 @@ fn page_dir(angle_rad: f64) -> [f32; 2] {
     [c as f32, -(s as f32)]
 }
 
+/// A gauge as drawn: the box round everything drawn, and for each grid (in the order of
+/// `PlacedGauge::footprint`) the page point just beyond its solder tabs and the grid's page
+/// direction.
+#[derive(Debug, Clone)]
+pub(crate) struct GaugeMarks {
+    pub area: Area,
+    pub tab_ends: Vec<([f32; 2], [f32; 2])>,
+}
+
 /// One gauge at page point `centre`, `k` points per metre: every grid's outline, its grid
 /// lines along the grid direction and two solder tabs beyond the grid's start (the end away
 /// from its direction, as the app's face view draws them), and an arrow along the gauge's
-/// reference direction. Returns the box round everything drawn.
-pub(crate) fn gauge(w: &mut Writer, g: &PlacedGauge, centre: [f32; 2], k: f32) -> Area {
+/// reference direction.
+pub(crate) fn gauge(w: &mut Writer, g: &PlacedGauge, centre: [f32; 2], k: f32) -> GaugeMarks {
     let len = g.spec.grid_length_m as f32 * k;
     let wid = g.spec.grid_width_m as f32 * k;
     let mut pts: Vec<[f32; 2]> = Vec::new();
+    let mut tab_ends = Vec::new();
     for e in 0..g.element_count() {
-        pts.extend(grid(w, centre, page_dir(g.element_angle_rad(e)), len, wid));
+        let u = page_dir(g.footprint(e).angle_rad);
+        pts.extend(grid(w, centre, u, len, wid));
+        let back = len * (0.5 + 0.08 + 0.28);
+        tab_ends.push(([centre[0] - u[0] * back, centre[1] - u[1] * back], u));
     }
     let u = page_dir(g.angle_rad);
     let reach = pts
@@ -183,7 +196,7 @@ pub(crate) fn gauge(w: &mut Writer, g: &PlacedGauge, centre: [f32; 2], k: f32) -
     line(w, at(from), at(tip - 3.0), 0.7, 0);
     arrow_head(w, at(tip), u, 5.0);
     pts.push(at(tip));
-    pts.iter().fold(
+    let area = pts.iter().fold(
         Area::new(centre[0], centre[1], centre[0], centre[1]),
         |a, p| {
             Area::new(
@@ -193,7 +206,93 @@ pub(crate) fn gauge(w: &mut Writer, g: &PlacedGauge, centre: [f32; 2], k: f32) -
                 a.y1.max(p[1]),
             )
         },
-    )
+    );
+    GaugeMarks { area, tab_ends }
+}
+
+/// The part of segment `a`–`b` inside `clip`, if any (Liang–Barsky).
+pub(crate) fn clip_segment(a: [f32; 2], b: [f32; 2], clip: &Area) -> Option<([f32; 2], [f32; 2])> {
+    let d = [b[0] - a[0], b[1] - a[1]];
+    let (mut t0, mut t1) = (0.0f32, 1.0f32);
+    for (p, q) in [
+        (-d[0], a[0] - clip.x0),
+        (d[0], clip.x1 - a[0]),
+        (-d[1], a[1] - clip.y0),
+        (d[1], clip.y1 - a[1]),
+    ] {
+        if p.abs() < 1e-9 {
+            if q < 0.0 {
+                return None;
+            }
+            continue;
+        }
+        let t = q / p;
+        if p < 0.0 {
+            t0 = t0.max(t);
+        } else {
+            t1 = t1.min(t);
+        }
+    }
+    (t0 < t1).then(|| {
+        let at = |t: f32| [a[0] + d[0] * t, a[1] + d[1] * t];
+        (at(t0), at(t1))
+    })
+}
+
+/// The pieces of segment `a`–`b` left once the stretch inside each box of `avoid` is cut
+/// out, in order from `a`.
+pub(crate) fn outside_boxes(a: [f32; 2], b: [f32; 2], avoid: &[Area]) -> Vec<([f32; 2], [f32; 2])> {
+    let d = [b[0] - a[0], b[1] - a[1]];
+    let mut cuts: Vec<(f32, f32)> = avoid
+        .iter()
+        .filter_map(|area| {
+            let (p, q) = clip_segment(a, b, area)?;
+            let t = |p: [f32; 2]| {
+                let n = d[0] * d[0] + d[1] * d[1];
+                if n < 1e-12 {
+                    0.0
+                } else {
+                    ((p[0] - a[0]) * d[0] + (p[1] - a[1]) * d[1]) / n
+                }
+            };
+            Some((t(p), t(q)))
+        })
+        .collect();
+    cuts.sort_by(|p, q| p.0.total_cmp(&q.0));
+    let at = |t: f32| [a[0] + d[0] * t, a[1] + d[1] * t];
+    let mut out = Vec::new();
+    let mut from = 0.0f32;
+    for (c0, c1) in cuts {
+        if c0 > from {
+            out.push((at(from), at(c0)));
+        }
+        from = from.max(c1);
+    }
+    if from < 1.0 {
+        out.push((at(from), at(1.0)));
+    }
+    out
+}
+
+/// A dashed grey line from `a` to `b`: dashes of `dash` points with gaps of half that.
+pub(crate) fn dashed(w: &mut Writer, a: [f32; 2], b: [f32; 2], dash: f32, grey: u8) {
+    let len = (b[0] - a[0]).hypot(b[1] - a[1]);
+    if len < 0.3 {
+        return;
+    }
+    let u = [(b[0] - a[0]) / len, (b[1] - a[1]) / len];
+    let mut t = 0.0;
+    while t < len {
+        let e = (t + dash).min(len);
+        line(
+            w,
+            [a[0] + u[0] * t, a[1] + u[1] * t],
+            [a[0] + u[0] * e, a[1] + u[1] * e],
+            0.5,
+            grey,
+        );
+        t = e + 0.5 * dash;
+    }
 }
 
 /// One grid: outline, four lines along `u`, tabs beyond the −u end. Returns its corner points.
@@ -238,7 +337,7 @@ pub(crate) fn scale_bar(w: &mut Writer, x: f32, y: f32, length_mm: f64, pt_per_m
             0.5,
         );
     }
-    let size = 7.0;
+    let size = super::LABEL;
     let zero = w.text_top(x - 2.0, y + h + 2.0, size, false, "0");
     let label = format!("{} mm", fmt_mm(length_mm));
     let end = crate::sheet::layout::text_width(&label, size, false);

@@ -1,10 +1,13 @@
 //! The face itself (its windows, edges, breaks and any hole), the dimension and extension
 //! lines, and the scale bar with the axis arrows.
 
-use super::{Drawing, ROW, TIER, label_h, marks};
+use super::{Drawing, EDGE_ROWS, ROW, TIER, label_h, marks};
 use crate::drawing::face_layout::scale_bar_length;
 use crate::sheet::layout::Area;
 use crate::sheet::writer::Writer;
+
+/// Gap between a gauge (its arrow's tip included) and an extension line, points.
+pub(super) const CLEAR: f32 = 4.0;
 
 /// Two face coordinates closer than this are the same line, metres.
 const SAME_M: f64 = 1e-9;
@@ -73,7 +76,7 @@ impl Drawing<'_> {
 
     /// Page y of horizontal dimension tier `i`.
     pub(super) fn x_tier_y(&self, i: usize) -> f32 {
-        self.frame.area().y1 + 2.0 * ROW + TIER * i as f32 + label_h() + 4.0
+        self.frame.area().y1 + EDGE_ROWS * ROW + TIER * i as f32 + label_h() + 4.0
     }
 
     /// Page x of vertical dimension tier `j`.
@@ -88,12 +91,12 @@ impl Drawing<'_> {
             return;
         };
         let xd = self.datum_page()[0];
-        marks::extension_line(w, [xd, datum.y1 + 1.5], [xd, self.x_tier_y(last) + 3.0]);
+        self.extension(w, [xd, datum.y1 + 1.5], [xd, self.x_tier_y(last) + 3.0]);
         for (i, d) in self.x_dims.iter().enumerate() {
             let y = self.x_tier_y(i);
             let xg = self.centre(d.gauge)[0];
-            let from = self.gauge_boxes[d.gauge].y1 + 1.5;
-            marks::extension_line(w, [xg, from], [xg, y + 3.0]);
+            let from = self.gauge_boxes[d.gauge].y1 + CLEAR;
+            self.extension(w, [xg, from], [xg, y + 3.0]);
             marks::dimension_line(w, [xd, y], [xg, y]);
         }
     }
@@ -104,13 +107,24 @@ impl Drawing<'_> {
             return;
         };
         let yd = self.datum_page()[1];
-        marks::extension_line(w, [datum.x1 + 1.5, yd], [self.s_tier_x(last) + 3.0, yd]);
+        self.extension(w, [datum.x1 + 1.5, yd], [self.s_tier_x(last) + 3.0, yd]);
         for (j, d) in self.s_dims.iter().enumerate() {
             let x = self.s_tier_x(j);
             let yg = self.centre(d.gauge)[1];
-            let from = self.gauge_boxes[d.gauge].x1 + 1.5;
-            marks::extension_line(w, [from, yg], [x + 3.0, yg]);
+            let from = self.gauge_boxes[d.gauge].x1 + CLEAR;
+            self.extension(w, [from, yg], [x + 3.0, yg]);
             marks::dimension_line(w, [x, yd], [x, yg]);
+        }
+    }
+
+    /// An extension line from `a` to `b`, left out where it would cross a gauge (its grids,
+    /// tabs and arrow, with [`CLEAR`] round them).
+    pub(super) fn extension(&self, w: &mut Writer, a: [f32; 2], b: [f32; 2]) {
+        let avoid: Vec<Area> = self.gauge_boxes.iter().map(|g| g.grown(CLEAR)).collect();
+        for (p, q) in marks::outside_boxes(a, b, &avoid) {
+            if (q[0] - p[0]).hypot(q[1] - p[1]) > 1.0 {
+                marks::extension_line(w, p, q);
+            }
         }
     }
 

@@ -3,15 +3,20 @@
 //! piece's edges (to transfer onto the part), the datum when it lies in the piece, and the
 //! names of what lies beyond each edge.
 
-use super::marks::{self, Frame};
+use super::labels::place_apart;
+use super::marks::Frame;
+use super::outline::CLEAR;
 use super::plan::{Axis, FaceSetup, Scale};
-use super::{Drawing, LABEL, ROW, label_h, mm1};
+use super::{Drawing, EDGE_ROWS, LABEL, ROW, label_h, mm1};
 use crate::drawing::face_layout::{ScreenRect, candidates_around};
 use crate::sheet::layout::{Area, text_width};
 use crate::sheet::writer::Writer;
 
 /// Room a piece needs above and below the face drawn in it, points.
-pub(in crate::sheet) const PIECE_ROOM: f32 = 4.0 * ROW + 16.0;
+pub(in crate::sheet) const PIECE_ROOM: f32 = 2.0 * EDGE_ROWS * ROW + 16.0;
+
+/// Room above (and below) the face drawn in a piece, for the edge labels, points.
+pub(in crate::sheet) const EDGE_ROOM: f32 = EDGE_ROWS * ROW;
 
 /// How far the cross-hairs run past the piece's edges, points.
 const CROSS_OUT: f32 = 8.0;
@@ -60,20 +65,23 @@ pub(in crate::sheet) fn draw_piece(
         s_tier: 0.0,
         bounds,
         gauge_boxes: Vec::new(),
+        grid_tabs: Vec::new(),
         missing: Vec::new(),
     };
     d.draw_face_outline(w);
     d.draw_gauges(w);
     d.draw_cross_hairs(w);
     let datum = d.datum_in_piece().then(|| d.draw_datum(w));
+    d.label_grids(w);
     d.label_edges(w);
     d.label_piece_gauges(w);
     if let Some(datum) = datum {
         let size = [text_width("datum", LABEL, false), label_h()];
-        let c = around(datum, size, 2.0);
-        if w.place_label(&d.bounds, LABEL, false, "datum", &c, 1.0)
-            .is_none()
-        {
+        let c = super::labels::nearest_first(
+            around(datum, size, 2.0),
+            super::labels::nearby(datum, size),
+        );
+        if place_apart(w, &d.bounds, false, "datum", &c).is_none() {
             d.missing.push("datum".into());
         }
     }
@@ -94,20 +102,21 @@ impl Drawing<'_> {
         self.frame.page_x(x).is_some() && self.frame.page_y(s).is_some()
     }
 
-    /// Lines through each gauge's centre along x and s, from the gauge out past the piece.
+    /// Lines through each gauge's centre along x and s, from the gauge out past the piece,
+    /// kept clear of every gauge (its arrow included).
     fn draw_cross_hairs(&self, w: &mut Writer) {
         let f = self.frame.area();
         for (i, b) in self.gauge_boxes.iter().enumerate() {
             let c = self.centre(i);
             for (p, q) in [
-                ([b.x0 - 2.0, c[1]], [f.x0 - CROSS_OUT, c[1]]),
-                ([b.x1 + 2.0, c[1]], [f.x1 + CROSS_OUT, c[1]]),
-                ([c[0], b.y0 - 2.0], [c[0], f.y0 - CROSS_OUT]),
-                ([c[0], b.y1 + 2.0], [c[0], f.y1 + CROSS_OUT]),
+                ([b.x0 - CLEAR, c[1]], [f.x0 - CROSS_OUT, c[1]]),
+                ([b.x1 + CLEAR, c[1]], [f.x1 + CROSS_OUT, c[1]]),
+                ([c[0], b.y0 - CLEAR], [c[0], f.y0 - CROSS_OUT]),
+                ([c[0], b.y1 + CLEAR], [c[0], f.y1 + CROSS_OUT]),
             ] {
-                let long = (q[0] - p[0]).abs() + (q[1] - p[1]).abs() > 1.0;
-                if long {
-                    marks::extension_line(w, p, q);
+                let ahead = (q[0] - p[0]) * (p[0] - c[0]) + (q[1] - p[1]) * (p[1] - c[1]);
+                if ahead > 1.0 {
+                    self.extension(w, p, q);
                 }
             }
         }
@@ -142,7 +151,7 @@ impl Drawing<'_> {
                 } else {
                     c.extend(beside);
                 }
-                match w.place_label(&self.bounds, LABEL, bold, &text, &c, 1.0) {
+                match place_apart(w, &self.bounds, bold, &text, &c) {
                     Some(a) => anchor = a,
                     None => self.missing.push(text),
                 }

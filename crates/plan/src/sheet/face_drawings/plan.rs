@@ -176,6 +176,30 @@ pub(crate) fn reach_m(g: &PlacedGauge) -> f64 {
     0.5 * 1.7 * g.spec.grid_length_m.max(g.spec.grid_width_m)
 }
 
+/// Margin of prepared surface round a grid, metres: 10 mm all round (common practice), as the
+/// gauge table's "area to prepare" states it.
+pub(crate) const PREP_MARGIN_M: f64 = 10e-3;
+
+/// Length and width of the area to prepare round `g`, along and across its reference
+/// direction, metres: the grid plus [`PREP_MARGIN_M`] all round.
+pub(crate) fn prep_size_m(g: &PlacedGauge) -> (f64, f64) {
+    (
+        g.spec.grid_length_m + 2.0 * PREP_MARGIN_M,
+        g.spec.grid_width_m + 2.0 * PREP_MARGIN_M,
+    )
+}
+
+/// Half the extent of the area to prepare round `g` along x and along s, metres (the
+/// rectangle turned with the gauge).
+pub(crate) fn prep_half_m(g: &PlacedGauge) -> (f64, f64) {
+    let (l, w) = prep_size_m(g);
+    let (sin, cos) = g.angle_rad.sin_cos();
+    (
+        0.5 * (l * cos.abs() + w * sin.abs()),
+        0.5 * (l * sin.abs() + w * cos.abs()),
+    )
+}
+
 /// One face with gauges, as drawn: unrolled from the seam when round, gauges and datum brought
 /// into the drawn range.
 #[derive(Debug, Clone)]
@@ -261,9 +285,12 @@ impl FaceSetup {
         let mut xs: Vec<(f64, f64)> = Vec::new();
         let mut ss: Vec<(f64, f64)> = Vec::new();
         for g in &self.gauges {
-            let r = reach_m(g) + pad;
-            xs.push(clip(around(g.position.x_m, r), self.bounds.x_m));
-            ss.push(clip(around(g.position.s_m, r), self.bounds.s_m));
+            // The whole area to prepare is shown, with a little face round it.
+            let (px, ps) = prep_half_m(g);
+            let rx = (reach_m(g) + pad).max(px + 6.0 / k);
+            let rs = (reach_m(g) + pad).max(ps + 6.0 / k);
+            xs.push(clip(around(g.position.x_m, rx), self.bounds.x_m));
+            ss.push(clip(around(g.position.s_m, rs), self.bounds.s_m));
         }
         xs.push(around(self.datum.0, datum_pad));
         ss.push(around(self.datum.1, datum_pad));
@@ -319,8 +346,10 @@ impl FaceSetup {
             Face::Back => "seen from the back (the +y side) with x running to the right, so the \
                            part shows upside down: the bottom face lies beyond the upper edge"
                 .into(),
-            Face::Round if self.sphere => "seen from outside, the surface unrolled flat: \
-                                           meridian arc x across, arc round the sphere s up"
+            Face::Round if self.sphere => "seen from outside, the surface unrolled flat: x \
+                                           along a meridian across, from the bottom pole (−z) \
+                                           on the left to the top pole (+z) on the right; s \
+                                           round the equator up"
                 .into(),
             Face::Round => "seen from outside, the surface unrolled flat: position x along \
                             the axis across, arc length s round the surface up"
@@ -332,8 +361,14 @@ impl FaceSetup {
     /// What the datum's coordinates are measured from, in words.
     pub fn datum_words(&self) -> &'static str {
         match self.face {
+            // gw_mechanics' surface_geometry: x is the meridian arc from the equator towards
+            // the +z pole, s the arc along the equator from the meridian through +x (longitude
+            // −s/r, so s grows towards −y).
             Face::Round if self.sphere => {
-                "x along the meridian from the equator, s round from the top line"
+                "x along a meridian from the equator (x = 0), + towards the top pole (+z); s round \
+                 the equator from the reference meridian (s = 0, the meridian through the +x \
+                 axis of the part views: choose it on the part, at a nozzle or a weld seam, and \
+                 mark it first), + towards −y"
             }
             Face::Round => "x along the axis from the member's start, s round from the top line",
             Face::Plate => "x and s from the centre of the face",

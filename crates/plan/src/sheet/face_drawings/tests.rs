@@ -1,6 +1,6 @@
 use super::*;
 use crate::document::{PaperSize, Project};
-use crate::sheet::layout::{Op, problems};
+use crate::sheet::layout::{Area, Op, problems};
 use crate::sheet::writer::Header;
 
 fn writer() -> Writer {
@@ -166,7 +166,7 @@ fn each_face_says_how_it_is_seen_and_what_lies_beyond_its_edges() {
         "Top face: seen from above, looking down on the top face.",
         "beyond the upper edge: back face",
         "beyond the lower edge: front face",
-        "beyond the left edge: clamped end at x = 0.0 mm",
+        "left edge: clamped end at x = 0.0 mm",
         // The back face is drawn with x to the right, so the bottom face lies above it (past a
         // break: the 60 mm side is not drawn whole).
         "upper edge: bottom face",
@@ -195,4 +195,226 @@ fn every_stated_scale_is_from_the_series_and_long_faces_are_broken() {
     let mut w = writer();
     draw(&mut w, part, &project.placed_gauges(part));
     assert!(texts(&w).iter().any(|t| t.starts_with("past the break")));
+}
+
+/// Text ops of every page with their boxes.
+fn text_boxes(w: &Writer) -> Vec<(usize, String, f32, Area)> {
+    let mut out = Vec::new();
+    for (i, page) in w.pages.iter().enumerate() {
+        for op in page {
+            if let Op::Text {
+                x,
+                y,
+                size,
+                bold,
+                text,
+            } = op
+            {
+                let area = crate::sheet::layout::text_area(*x, *y, *size, *bold, text);
+                out.push((i, text.clone(), *size, area));
+            }
+        }
+    }
+    out
+}
+
+/// Every part's face drawings, each part on a writer of its own.
+fn drawn_parts() -> Vec<(String, Vec<gw_bridge::PlacedGauge>, Writer)> {
+    let mut out = Vec::new();
+    for project in projects() {
+        for part in &project.parts {
+            let placed = project.placed_gauges(part);
+            let mut w = writer();
+            draw(&mut w, part, &placed);
+            out.push((part.name.clone(), placed, w));
+        }
+    }
+    out
+}
+
+/// How many bold figures "k" the pages carry.
+fn bold_figures(w: &Writer, k: usize) -> usize {
+    w.pages
+        .iter()
+        .flatten()
+        .filter(|op| matches!(op, Op::Text { text, bold: true, .. } if *text == k.to_string()))
+        .count()
+}
+
+#[test]
+fn every_grid_of_every_multi_grid_gauge_is_numbered() {
+    let mut numbered = 0;
+    for (name, placed, w) in drawn_parts() {
+        for k in 1..=3 {
+            let want = placed
+                .iter()
+                .filter(|g| g.element_count() >= k.max(2))
+                .count();
+            let got = bold_figures(&w, k);
+            assert!(
+                got >= want,
+                "{name}: {got} grid {k} numbers for {want} gauges"
+            );
+            if k == 1 {
+                numbered += want;
+            }
+        }
+    }
+    // The demo's shear pairs and the gallery's rosettes and pairs.
+    assert!(numbered >= 4, "only {numbered} multi-grid gauges drawn");
+}
+
+#[test]
+fn grid_numbers_stand_beyond_their_own_tabs() {
+    // A two-element 90° gauge at 0°: grid 1 runs along +x, so its tabs and number are to its
+    // left on the page; grid 2 runs along +s (up the page), so they are below it.
+    let project = crate::gallery::model_gallery();
+    let g = project
+        .parts
+        .iter()
+        .flat_map(|p| project.placed_gauges(p))
+        .find(|g| g.spec.pattern == gw_bridge::GaugePattern::TwoElement90)
+        .map(|mut g| {
+            g.angle_rad = 0.0;
+            g
+        })
+        .expect("the gallery has a two-element 90° gauge");
+    let mut w = writer();
+    let c = [300.0, 400.0];
+    let m = marks::gauge(&mut w, &g, c, plan::Scale::FULL.pt_per_m() as f32);
+    let (one, two) = (m.tab_ends[0].0, m.tab_ends[1].0);
+    assert!(
+        one[0] < c[0] - 1.0 && (one[1] - c[1]).abs() < 1e-3,
+        "{one:?}"
+    );
+    assert!(
+        two[1] > c[1] + 1.0 && (two[0] - c[0]).abs() < 1e-3,
+        "{two:?}"
+    );
+}
+
+#[test]
+fn the_sphere_names_its_poles_and_where_s_starts() {
+    let project = crate::gallery::model_gallery();
+    let part = project
+        .parts
+        .iter()
+        .find(|p| matches!(p.member, gw_mechanics::Member::ThinSphere(_)))
+        .expect("the gallery has a sphere");
+    // Where the face's x ends lie in space, by gw_mechanics' own surface geometry: the largest
+    // x is the top of the sphere (+z), the smallest the bottom.
+    let extent = part.member.faces()[0];
+    let z_at = |x: f64| {
+        let p = gw_mechanics::SurfacePoint {
+            face: Face::Round,
+            x_m: x,
+            s_m: 0.0,
+        };
+        part.member
+            .surface_frame(&p)
+            .expect("on the sphere")
+            .position[2]
+    };
+    assert!(z_at(extent.x_range_m.1) > 0.0 && z_at(extent.x_range_m.0) < 0.0);
+    let mut w = writer();
+    draw(&mut w, part, &project.placed_gauges(part));
+    let all = texts(&w).join(" ");
+    for want in [
+        "right edge: top pole (+z)",
+        "left edge: bottom pole (−z)",
+        "from the bottom pole (−z) on the left to the top pole (+z) on the right",
+        "s round the equator from the reference meridian (s = 0",
+    ] {
+        assert!(all.contains(want), "\"{want}\" missing from:\n{all}");
+    }
+    assert!(!all.contains("top line"), "{all}");
+    assert!(!all.contains("edge: pole"), "{all}");
+}
+
+#[test]
+fn no_text_is_under_seven_points_and_labels_keep_apart_from_each_other_and_from_lines() {
+    for (name, _, w) in drawn_parts() {
+        let boxes = text_boxes(&w);
+        for (i, (page, text, size, a)) in boxes.iter().enumerate() {
+            assert!(*size >= 7.0, "{name}: \"{text}\" at {size} pt");
+            // Beside one another (the same line), labels keep 6 pt apart.
+            for (other_page, other, _, b) in &boxes[i + 1..] {
+                let same_line = a.y0.max(b.y0) < a.y1.min(b.y1) - 1.0;
+                let gap = (b.x0 - a.x1).max(a.x0 - b.x1);
+                assert!(
+                    page != other_page || !same_line || gap >= 6.0,
+                    "{name}: \"{text}\" and \"{other}\" {gap} pt apart"
+                );
+            }
+            // And 2 pt from every line (break lines, extension lines, arrows).
+            let grown = a.grown(2.0);
+            for op in &w.pages[*page] {
+                for (p, q) in crate::sheet::layout::segments(op) {
+                    assert!(
+                        !grown.crossed_by(p, q),
+                        "{name}: a line within 2 pt of \"{text}\""
+                    );
+                }
+            }
+        }
+    }
+}
+
+#[test]
+fn the_key_comes_with_each_parts_first_face_drawing() {
+    for (name, _, w) in drawn_parts() {
+        let all = texts(&w);
+        let key = all
+            .iter()
+            .filter(|t| t.starts_with("Key to the face drawings"))
+            .count();
+        assert_eq!(key, 1, "{name}");
+        let at = |p: &dyn Fn(&String) -> bool| all.iter().position(p);
+        let key_at = at(&|t| t.starts_with("Key to the face drawings")).unwrap();
+        let scales: Vec<usize> = (0..all.len())
+            .filter(|&i| all[i].starts_with("Scale "))
+            .collect();
+        assert!(scales[0] < key_at, "{name}");
+        if let Some(second) = scales.get(1) {
+            assert!(
+                key_at < *second,
+                "{name}: the key comes after the second drawing"
+            );
+        }
+    }
+}
+
+#[test]
+fn the_area_to_prepare_is_the_grid_and_ten_millimetres_all_round() {
+    // The reaction arm's top face: its gauges lie along x, 50 mm from the clamp, well inside
+    // the face along x, so the dashed outline's length along x is the grid length plus 20 mm
+    // (common practice: 10 mm of prepared surface all round) at the stated scale.
+    let project = crate::demo::demo_project();
+    let part = &project.parts[0];
+    let placed: Vec<_> = project
+        .placed_gauges(part)
+        .into_iter()
+        .filter(|g| g.position.face == Face::Top)
+        .collect();
+    let mut w = writer();
+    draw(&mut w, part, &placed);
+    let ratio = stated_ratio(&w);
+    let xs: Vec<f32> = w.pages[0]
+        .iter()
+        .filter_map(|op| match op {
+            Op::Line {
+                x1, x2, grey: 130, ..
+            } => Some([*x1, *x2]),
+            _ => None,
+        })
+        .flatten()
+        .collect();
+    assert!(!xs.is_empty(), "no outline of the area to prepare");
+    let span =
+        xs.iter().copied().fold(f32::MIN, f32::max) - xs.iter().copied().fold(f32::MAX, f32::min);
+    let want = (placed[0].spec.grid_length_m * 1e3 + 20.0) * ratio * 72.0 / 25.4;
+    assert!(
+        (span as f64 - want).abs() < 0.01,
+        "{span} pt, want {want} pt"
+    );
 }
