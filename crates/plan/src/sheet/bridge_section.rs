@@ -62,6 +62,26 @@ fn conversion_words(be: &BridgeEvaluation) -> String {
     }
 }
 
+/// Resistivity of annealed copper at 20 °C, Ω·mm²/m (IEC 60028: 1/58).
+const COPPER_OHM_MM2_PER_M: f64 = 1.0 / 58.0;
+
+/// The lead wire: length, resistance per metre and the copper cross-section that gives it.
+fn lead_words(plan: &BridgePlan) -> String {
+    let l = &plan.lead;
+    let size = if l.ohm_per_m > 0.0 {
+        format!(
+            ", about {:.2} mm² if copper (IEC 60028 resistivity)",
+            COPPER_OHM_MM2_PER_M / l.ohm_per_m
+        )
+    } else {
+        String::new()
+    };
+    format!(
+        "{:.1} m per conductor, {:.4} Ω/m{size}",
+        l.length_m, l.ohm_per_m
+    )
+}
+
 /// The instrument settings of a bridge, as rows of a two-column table.
 fn settings_rows(be: &BridgeEvaluation, plan: &BridgePlan) -> Vec<Vec<String>> {
     let mut rows = vec![
@@ -76,6 +96,7 @@ fn settings_rows(be: &BridgeEvaluation, plan: &BridgePlan) -> Vec<Vec<String>> {
             },
         ],
         vec!["Lead wiring".to_owned(), be.wiring.clone()],
+        vec!["Lead wire".to_owned(), lead_words(plan)],
         vec![
             "Excitation".to_owned(),
             format!("{:.2} V at the bridge", be.excitation_v),
@@ -160,8 +181,14 @@ fn shunt_words(be: &BridgeEvaluation, plan: &BridgePlan, colours: &LeadColours) 
     // 4 (Vo/Vex) / (gauge factor × bridge factor), the instrument's own conversion.
     let mv_per_v =
         s.expected_reading_strain * be.gauge_factor_setting * be.bridge_factor / 4.0 * 1e3;
+    let sign = if s.expected_reading_strain < 0.0 {
+        "negative: the shunt lowers that arm's resistance, as compression would"
+    } else {
+        "positive: the shunt lowers that arm's resistance, and the arm sits on the side of the \
+         bridge where that raises the output"
+    };
     Some(format!(
-        "Shunt calibration: {} (E96) {at}; expect {} ({mv_per_v:.4} mV/V).",
+        "Shunt calibration: {} (E96) {at}; expect {} ({mv_per_v:.4} mV/V; {sign}).",
         si(s.e96_ohm, "Ω"),
         um(s.expected_reading_strain)
     ))
@@ -207,7 +234,10 @@ pub(crate) fn draw(
     ));
     w.table(&[1.0, 2.0], &settings_rows(be, plan));
     wiring_diagram::draw_plan(w, project, part, plan);
-    w.subheading("Expected readings");
+    w.subheading(&format!(
+        "Expected readings: channel {}, {}",
+        be.channel_number, be.name
+    ));
     w.table(&[1.2, 1.5, 1.0, 0.9, 1.0, 0.9, 1.0], &case_rows(part, be));
     if be
         .cases
@@ -217,10 +247,12 @@ pub(crate) fn draw(
         w.para(
             BODY,
             false,
-            "Displayed: what the instrument shows after zeroing at the reference temperature, \
-             with the part's temperature change in that case included (its share is in the \
-             column beside). The conversion to engineering units below applies to the reading \
-             less that share.",
+            "Displayed: what the instrument shows when zeroed at the reference temperature and \
+             read with the part at the case's temperature change; its share is in the column \
+             beside. The conversion to engineering units below applies to the reading less that \
+             share: subtract it only when the bridge was zeroed at the reference temperature and \
+             the part is at the case's temperature; otherwise zero the bridge at the test \
+             temperature and subtract nothing. The accuracy lines count the share as error.",
         );
     }
     for a in &be.accuracy {
@@ -252,7 +284,10 @@ pub(crate) fn draw(
             .map_or(0.0, |s| w.para_height(BODY, false, s))
         + w.table_height(&[2.0, 1.0], &rows, BODY);
     w.room(height);
-    w.subheading("Checks before the first test");
+    w.subheading(&format!(
+        "Checks before the first test: channel {}, {}",
+        be.channel_number, be.name
+    ));
     w.para(BODY, false, &zero);
     if let Some(s) = &shunt {
         w.para(BODY, false, s);

@@ -150,7 +150,7 @@ fn grid_angles(g: &gw_bridge::PlacedGauge) -> String {
             format!("grid {}: {deg:.1}°", k + 1)
         })
         .collect::<Vec<_>>()
-        .join(", ")
+        .join("\n")
 }
 
 /// The gauge table: what each gauge is and where it goes.
@@ -166,7 +166,7 @@ fn gauge_rows(project: &Project, part: &Part) -> Vec<Vec<String>> {
             "x (datum)",
             "s (datum)",
             "Angle from x",
-            "Area to prepare",
+            "Area to prepare, along × across the gauge",
         ]
         .map(String::from)
         .to_vec(),
@@ -185,7 +185,7 @@ fn gauge_rows(project: &Project, part: &Part) -> Vec<Vec<String>> {
             grid_angles(g),
             // Grid plus 10 mm all round for abrading and cleaning: common practice.
             format!(
-                "{:.0} along the gauge × {:.0} across, mm",
+                "{:.0} × {:.0} mm",
                 s.grid_length_m * 1e3 + 20.0,
                 s.grid_width_m * 1e3 + 20.0
             ),

@@ -140,18 +140,21 @@ pub(crate) fn gauge_records(w: &mut Writer, project: &Project) {
 /// One row per bridge: zero and shunt readings expected and measured, the pin check, initials
 /// and date.
 pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation) {
+    if ev.parts.iter().all(|p| p.bridges.is_empty()) {
+        return;
+    }
     w.heading("Record: each bridge");
     w.para(
         BODY,
         false,
-        "With the bridge wired and excited and the part unloaded: check the pin-to-pin \
-         resistances listed with the bridge (instrument disconnected) and the insulation from \
-         all pins joined to the part (at least 1 GΩ at no more than 50 V, common practice; \
-         the shield stays connected to the instrument only), then read zero, then apply the \
-         shunt resistor between the pins named and read again. Compare with the \
-         expected values; a zero outside its band or a shunt reading more than 0.5 % from \
-         the expected value (common practice) means a wiring or bonding fault to find before \
-         testing.",
+        "First, with the instrument disconnected and no excitation: check the pin-to-pin \
+         resistances listed with the bridge, and the insulation from all pins joined together to \
+         the part (at least 1 GΩ at no more than 50 V, common practice; never apply an \
+         insulation tester to an excited bridge or a connected instrument). Then connect the \
+         instrument, excite the bridge with the part unloaded, read zero, apply the shunt \
+         resistor between the pins named and read again. Compare with the expected values; a \
+         zero outside its band or a shunt reading more than 0.5 % from the expected value \
+         (common practice) means a wiring or bonding fault to find before testing.",
     );
     let head = strings(&[
         "Part / bridge (channel)",
@@ -160,7 +163,7 @@ pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation)
         "Shunt expected",
         "Shunt read",
         "Pins as listed (tick)",
-        "Insulation, all pins to part (GΩ), accept ≥ 1",
+        "Insulation all pins to part (GΩ), accept ≥ 1",
         "Initials / date",
     ]);
     let mut rows = Vec::new();
@@ -232,7 +235,8 @@ pub(crate) fn checklist(w: &mut Writer) {
             "initials:",
         ),
         (
-            "Pin-to-pin resistances, zero and shunt readings recorded in \"Record: each bridge\"",
+            "Pin-to-pin resistances and insulation (instrument disconnected, no excitation), then \
+             zero and shunt readings, recorded in \"Record: each bridge\"",
             "initials:",
         ),
         ("Installation complete", "signed / date:"),
