@@ -740,7 +740,8 @@ fn draw_cable(w: &mut Writer, f: &Facts, g: &Geometry) {
 fn notes(w: &mut Writer, f: &Facts) {
     let mut lines = vec![format!(
         "Arm 1 joins excitation − to output +, arm 2 output + to excitation +, arm 3 \
-         excitation + to output −, arm 4 output − to excitation −. Shaded: grids on the part \
+         excitation + to output −, arm 4 output − to excitation −; tension in arm 1 or 3 raises \
+         the output, in arm 2 or 4 lowers it. Shaded: grids on the part \
          (+ tension, − compression under a positive {}{}); light: dummies; white: resistors.",
         f.wanted.name(),
         match output_sign_from_marks(&f.signs) {
