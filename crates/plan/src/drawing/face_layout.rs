@@ -592,8 +592,13 @@ pub enum Neighbour {
     },
     /// The seam of an unrolled round face: the surface continues at the other edge.
     Seam {
-        /// Angle of the seam from the top line, degrees.
+        /// Angle of the seam from the top line (on a sphere from the reference meridian),
+        /// degrees.
         angle_deg: f64,
+        /// Radius of the round face, metres: the seam's arc length s is `angle × radius`.
+        radius_m: f64,
+        /// True on a sphere, where s runs round the equator from the reference meridian.
+        sphere: bool,
     },
     /// An end of the member.
     End {
@@ -658,12 +663,11 @@ impl Neighbour {
             },
             Neighbour::FlangeInside { top: true } => "top flange (inside)".to_owned(),
             Neighbour::FlangeInside { top: false } => "bottom flange (inside)".to_owned(),
-            Neighbour::Seam { angle_deg } => {
-                format!(
-                    "seam at {:.0}°, joins the other edge",
-                    normalised_deg(*angle_deg)
-                )
-            }
+            Neighbour::Seam {
+                angle_deg,
+                radius_m,
+                sphere,
+            } => seam_label(*angle_deg, *radius_m, *sphere, length),
             Neighbour::End { x_m, kind } => {
                 let what = match kind {
                     EndKind::Clamped => "clamped end",
@@ -742,6 +746,42 @@ impl Neighbour {
     }
 }
 
+/// "seam at s = -47.1 mm (-90°, the front line), joins the other edge": the seam's arc
+/// length from s = 0, with its angle and, where it lies on one, the named line.
+fn seam_label(
+    angle_deg: f64,
+    radius_m: f64,
+    sphere: bool,
+    length: &dyn Fn(f64) -> String,
+) -> String {
+    let deg = normalised_deg(angle_deg);
+    let near = |a: f64| (deg - a).abs() < 0.5;
+    // gw_mechanics' surface_geometry: on a cylinder the angle s/r runs from the top line (+z)
+    // towards +y; on a sphere s runs round the equator from the meridian through +x.
+    let line = match (sphere, deg) {
+        (true, _) if near(0.0) => Some("the reference meridian"),
+        (true, _) => None,
+        (false, _) if near(0.0) => Some("the top line"),
+        (false, _) if near(90.0) => Some("the back line"),
+        (false, _) if near(-90.0) => Some("the front line"),
+        (false, _) if near(180.0) || near(-180.0) => Some("the bottom line"),
+        _ => None,
+    };
+    let angle = match line {
+        Some(l) => format!("{deg:.0}°, {l}"),
+        None => format!("{deg:.0}°"),
+    };
+    if radius_m.is_finite() && radius_m > 0.0 {
+        let arc = deg.to_radians() * radius_m;
+        format!(
+            "seam at s = {} ({angle}), joins the other edge",
+            length(arc)
+        )
+    } else {
+        format!("seam at {angle}, joins the other edge")
+    }
+}
+
 /// What lies beyond each edge of a face, as drawn (x right, s up).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct FaceEdges {
@@ -769,14 +809,14 @@ pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
     let (x_min, x_max) = ends(member, x_range);
     let tip = |toward: Face| Neighbour::FlangeTip { toward };
     let (s_max, s_min) = match (member, face) {
-        (_, Face::Round) => (
-            Neighbour::Seam {
+        (_, Face::Round) => {
+            let seam = Neighbour::Seam {
                 angle_deg: seam_deg,
-            },
-            Neighbour::Seam {
-                angle_deg: seam_deg,
-            },
-        ),
+                radius_m: (s_range.1 - s_range.0) / TAU,
+                sphere: matches!(member, Member::ThinSphere(_)),
+            };
+            (seam, seam)
+        }
         (Member::Beam(b), f) if matches!(b.section, Section::IBeam { .. }) => match f {
             // s runs towards +y on the top face and towards −y on the bottom face.
             Face::Top => (tip(Face::Back), tip(Face::Front)),
@@ -1130,8 +1170,26 @@ mod tests {
             Section::SolidRound { diameter_m: 0.04 },
             BeamSupport::Cantilever,
         );
+        // The seam a quarter turn from the top line towards −y on a 40 mm bar: s = −π/2 × 20 mm
+        // = −31.4 mm (arc length = radius × angle), on the front line (gw_mechanics'
+        // surface_geometry: s/r runs from the top line towards +y).
         let e = face_edges(&round, Face::Round, 270.0);
-        assert_eq!(e.s_min.label(&mm), "seam at -90°, joins the other edge");
+        let mm1 = |x: f64| format!("{:.1} mm", x * 1e3);
+        assert_eq!(
+            e.s_min.label(&mm1),
+            "seam at s = -31.4 mm (-90°, the front line), joins the other edge"
+        );
+        // Half a turn on the same bar: 62.8 mm round, on the bottom line; 40° names no line.
+        let e = face_edges(&round, Face::Round, 180.0);
+        assert_eq!(
+            e.s_max.label(&mm1),
+            "seam at s = 62.8 mm (180°, the bottom line), joins the other edge"
+        );
+        let e = face_edges(&round, Face::Round, 40.0);
+        assert_eq!(
+            e.s_max.label(&mm1),
+            "seam at s = 14.0 mm (40°), joins the other edge"
+        );
     }
 
     /// The four names of a face's edges, top, bottom, left, right.

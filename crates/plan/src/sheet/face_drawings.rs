@@ -239,7 +239,7 @@ impl Drawing<'_> {
 
     /// The area to prepare round each gauge (its grid plus the margin all round, turned with
     /// the gauge) as a dashed grey rectangle, cut at the face's edges and breaks and where it
-    /// would cross a gauge.
+    /// would cross a gauge or a plate's hole.
     fn draw_prep_areas(&self, w: &mut Writer) {
         let avoid: Vec<Area> = self.gauge_boxes.iter().map(|b| b.grown(2.0)).collect();
         for i in 0..self.setup.gauges.len() {
@@ -260,9 +260,19 @@ impl Drawing<'_> {
                     continue;
                 };
                 for (a, b) in marks::outside_boxes(p, q, &avoid) {
-                    marks::dashed(w, a, b, 3.0, 130);
+                    for (a, b) in self.outside_hole(a, b) {
+                        marks::dashed(w, a, b, 3.0, 130);
+                    }
                 }
             }
+        }
+    }
+
+    /// The pieces of segment `a`–`b` outside a plate's hole (all of it when there is none).
+    fn outside_hole(&self, a: [f32; 2], b: [f32; 2]) -> Vec<([f32; 2], [f32; 2])> {
+        match self.hole_page() {
+            Some((c, r)) => marks::outside_circle(a, b, c, r),
+            None => vec![(a, b)],
         }
     }
 

@@ -339,6 +339,7 @@ fn legend_paras(setup: &FaceSetup, on_x: &[usize], on_s: &[usize]) -> Vec<String
         mm1(ds),
         setup.datum_words()
     )];
+    out.extend(hole_note(setup));
     let ids = |list: &[usize]| {
         list.iter()
             .map(|&i| setup.gauges[i].id.as_str())
@@ -365,6 +366,48 @@ fn legend_paras(setup: &FaceSetup, on_x: &[usize], on_s: &[usize]) -> Vec<String
         }
     }
     out
+}
+
+/// On a plate whose datum lies in its hole: that the datum is the hole's centre, found from
+/// the hole's edge, and how far each gauge's centre lies from that edge along the line from
+/// the hole's centre (its distance from the centre less the hole's radius).
+pub(super) fn hole_note(setup: &FaceSetup) -> Option<String> {
+    let a = setup
+        .extent
+        .hole_radius_m
+        .filter(|a| a.is_finite() && *a > 0.0)?;
+    let (dx, ds) = setup.datum_stated;
+    if dx.hypot(ds) >= a {
+        return None;
+    }
+    let at_centre = if dx.hypot(ds) < 0.05e-3 {
+        "The datum is the hole's centre".to_owned()
+    } else {
+        format!(
+            "The datum lies in the hole, {} from its centre",
+            mm1(dx.hypot(ds))
+        )
+    };
+    let gauges: Vec<String> = setup
+        .gauges
+        .iter()
+        .map(|g| {
+            let (x, s) = (g.position.x_m, g.position.s_m);
+            let toward = s.atan2(x).to_degrees();
+            format!(
+                "{}: {} from the hole edge (on the line from the centre at {toward:.0}° from +x)",
+                g.id,
+                mm1(x.hypot(s) - a)
+            )
+        })
+        .collect();
+    Some(format!(
+        "{at_centre}, with no metal to mark there: find it from the hole's edge (the hole is {} \
+         across), and measure each gauge's centre from the edge along the line from the \
+         centre; {}.",
+        mm1(2.0 * a),
+        gauges.join("; ")
+    ))
 }
 
 /// Height of the paragraphs under a drawing, with a line to spare for a note of labels that

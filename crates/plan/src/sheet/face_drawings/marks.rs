@@ -274,6 +274,37 @@ pub(crate) fn outside_boxes(a: [f32; 2], b: [f32; 2], avoid: &[Area]) -> Vec<([f
     out
 }
 
+/// The pieces of segment `a`–`b` outside the circle of centre `c` and radius `r`, in order
+/// from `a`.
+pub(crate) fn outside_circle(
+    a: [f32; 2],
+    b: [f32; 2],
+    c: [f32; 2],
+    r: f32,
+) -> Vec<([f32; 2], [f32; 2])> {
+    // Points a + t·d with |a + t·d − c| = r: t² d·d + 2 t d·(a − c) + |a − c|² − r² = 0.
+    let d = [b[0] - a[0], b[1] - a[1]];
+    let m = [a[0] - c[0], a[1] - c[1]];
+    let qa = d[0] * d[0] + d[1] * d[1];
+    let qb = 2.0 * (d[0] * m[0] + d[1] * m[1]);
+    let qc = m[0] * m[0] + m[1] * m[1] - r * r;
+    let disc = qb * qb - 4.0 * qa * qc;
+    if qa < 1e-12 || r.is_nan() || r <= 0.0 || disc <= 0.0 {
+        return vec![(a, b)];
+    }
+    let root = disc.sqrt();
+    let (t0, t1) = ((-qb - root) / (2.0 * qa), (-qb + root) / (2.0 * qa));
+    let at = |t: f32| [a[0] + d[0] * t, a[1] + d[1] * t];
+    let mut out = Vec::new();
+    if t0 > 0.0 {
+        out.push((a, at(t0.min(1.0))));
+    }
+    if t1 < 1.0 {
+        out.push((at(t1.max(0.0)), b));
+    }
+    out
+}
+
 /// A dashed grey line from `a` to `b`: dashes of `dash` points with gaps of half that.
 pub(crate) fn dashed(w: &mut Writer, a: [f32; 2], b: [f32; 2], dash: f32, grey: u8) {
     let len = (b[0] - a[0]).hypot(b[1] - a[1]);

@@ -50,7 +50,7 @@ impl Drawing<'_> {
         self.draw_hole(w);
     }
 
-    /// The outline of a plate's hole, where it lies in the windows.
+    /// A plate's hole, where it lies in the windows: white (no metal there) with its outline.
     fn draw_hole(&self, w: &mut Writer) {
         let Some(a) = self.setup.extent.hole_radius_m.filter(|a| *a > 0.0) else {
             return;
@@ -63,6 +63,10 @@ impl Drawing<'_> {
                 Some([f.page_x(a * t.cos())?, f.page_y(a * t.sin())?])
             })
             .collect();
+        if let Some(ring) = points.iter().copied().collect::<Option<Vec<_>>>() {
+            w.path(ring, true, 0.8, Some(255));
+            return;
+        }
         // A step longer than the arc between points jumps a break: not drawn.
         let step = (std::f64::consts::TAU * a / n as f64) as f32 * self.k() * 1.5;
         for pair in points.windows(2) {
@@ -72,6 +76,14 @@ impl Drawing<'_> {
                 w.line(*p, *q, 0.8, 0);
             }
         }
+    }
+
+    /// The hole of a plate on the page, centre and radius (points), when it is drawn whole.
+    pub(super) fn hole_page(&self) -> Option<([f32; 2], f32)> {
+        let a = self.setup.extent.hole_radius_m.filter(|a| *a > 0.0)?;
+        let f = &self.frame;
+        let c = [f.page_x(0.0)?, f.page_y(0.0)?];
+        Some((c, a as f32 * self.k()))
     }
 
     /// Page y of horizontal dimension tier `i`.

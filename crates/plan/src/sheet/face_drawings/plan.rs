@@ -316,13 +316,32 @@ impl FaceSetup {
     }
 
     /// The scale of the series and the axes for a drawing within `width` × `height` points:
-    /// the largest scale of 1:1 or more that shows the region unbroken, else the largest that
-    /// fits with breaks; the smallest of the series when none does.
+    /// the largest scale of 1:1 or more that shows the region unbroken; else the largest of
+    /// 1:1 or more that breaks the face only along a direction in which it does not fit whole
+    /// at 1:1; else the largest that fits with breaks; the smallest of the series when none
+    /// does.
     pub fn fit(&self, width: f32, height: f32, pad_pt: f64) -> (Scale, Axis, Axis) {
         for scale in SERIES.iter().copied().filter(|s| s.ratio >= 1.0) {
             let (x, s) = self.axes(scale, pad_pt, (width, height));
             let unbroken = x.windows.len() == 1 && s.windows.len() == 1;
             if unbroken && x.length_pt() <= width && s.length_pt() <= height {
+                return (scale, x, s);
+            }
+        }
+        // Broken only along a direction where the face does not fit whole at 1:1; then, when
+        // no scale of 1:1 or more allows that, wherever it must be.
+        let k1 = Scale::FULL.pt_per_m();
+        let fits_at_full = |(a, b): (f64, f64), max: f32| ((b - a) * k1) as f32 <= max;
+        let may_break = (
+            !fits_at_full(self.bounds.x_m, width),
+            !fits_at_full(self.bounds.s_m, height),
+        );
+        let whole = |axis: &Axis, range: (f64, f64)| axis.windows == [range];
+        for scale in SERIES.iter().copied().filter(|s| s.ratio >= 1.0) {
+            let (x, s) = self.axes(scale, pad_pt, (width, height));
+            let breaks_ok = (may_break.0 || whole(&x, self.bounds.x_m))
+                && (may_break.1 || whole(&s, self.bounds.s_m));
+            if breaks_ok && x.length_pt() <= width && s.length_pt() <= height {
                 return (scale, x, s);
             }
         }
@@ -368,9 +387,18 @@ impl FaceSetup {
                 "x along a meridian from the equator (x = 0), + towards the top pole (+z); s round \
                  the equator from the reference meridian (s = 0, the meridian through the +x \
                  axis of the part views: choose it on the part, at a nozzle or a weld seam, and \
-                 mark it first), + towards −y"
+                 mark it first), + towards −y. Mark s along the equator first, then go x up \
+                 the meridian: the drawing's scale holds along those two lines only (along a \
+                 circle of latitude at x the true distance is s·cos(x/R), R the sphere's \
+                 radius)"
             }
-            Face::Round => "x along the axis from the member's start, s round from the top line",
+            Face::Round => {
+                "x along the axis from the member's start, s round from the top line (+z in the \
+                 part views), + towards +y. A round part shows no top line of its own: \
+                 choose the line on the part that is to be s = 0 (a keyway, a flat, a weld seam \
+                 or a scribed mark), mark it first along the part, and measure s round from it \
+                 in the direction the drawing's +s arrow shows"
+            }
             Face::Plate => "x and s from the centre of the face",
             _ => "x along the member from its start, s across from the face's centre line",
         }

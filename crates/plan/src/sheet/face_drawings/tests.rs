@@ -418,3 +418,135 @@ fn the_area_to_prepare_is_the_grid_and_ten_millimetres_all_round() {
         "{span} pt, want {want} pt"
     );
 }
+
+/// The drawing of the gallery part named `name`, with its gauges.
+fn gallery_drawing(name: &str) -> (Part, Vec<gw_bridge::PlacedGauge>, Writer) {
+    let project = crate::gallery::model_gallery();
+    let part = project
+        .parts
+        .iter()
+        .find(|p| p.name.starts_with(name))
+        .expect("the gallery has the part")
+        .clone();
+    let placed = project.placed_gauges(&part);
+    let mut w = writer();
+    draw(&mut w, &part, &placed);
+    (part, placed, w)
+}
+
+#[test]
+fn the_seam_is_given_as_an_arc_length_with_its_angle() {
+    // The gallery's round link: a solid round bar. The seam's arc length from the top line is
+    // its angle's share of the circumference π·d (the bar's diameter from its section).
+    let (part, _, w) = gallery_drawing("Round link");
+    let gw_mechanics::Member::Beam(beam) = &part.member else {
+        panic!("the round link is a beam");
+    };
+    let gw_mechanics::Section::SolidRound { diameter_m } = beam.section else {
+        panic!("the round link is a solid round");
+    };
+    let all = texts(&w);
+    let seam = all
+        .iter()
+        .find_map(|t| {
+            t.split_once("seam at s = ")
+                .map(|(_, rest)| rest.to_owned())
+        })
+        .expect("the seam is named with its arc length");
+    let (arc, rest) = seam.split_once(" mm (").expect("arc in mm, then the angle");
+    let arc_mm: f64 = arc.parse().expect("a number");
+    let deg: f64 = rest.split('°').next().unwrap().parse().expect("an angle");
+    let want_mm = deg / 360.0 * std::f64::consts::PI * diameter_m * 1e3;
+    assert!(
+        (arc_mm - want_mm).abs() < 0.051,
+        "{seam}: want {want_mm:.2} mm"
+    );
+    // The note says how to set up s = 0 on a part that turns.
+    assert!(
+        all.join(" ")
+            .contains("choose the line on the part that is to be s = 0"),
+        "{all:#?}"
+    );
+}
+
+#[test]
+fn a_plates_hole_is_drawn_open_and_the_datum_is_found_from_its_edge() {
+    let (part, placed, w) = gallery_drawing("Lug plate");
+    let gw_mechanics::Member::PlateWithHole(plate) = &part.member else {
+        panic!("the lug plate is a plate with a hole");
+    };
+    let r_m = 0.5 * plate.hole_diameter_m;
+    let ops = &w.pages[0];
+    // The hole: a closed outline filled white, drawn after the shaded face.
+    let (hole, centre, r_pt) = ops
+        .iter()
+        .enumerate()
+        .find_map(|(i, op)| match op {
+            Op::Path {
+                points,
+                closed: true,
+                fill: Some(255),
+                ..
+            } => {
+                // Centre and radius from the outline's box.
+                let (lo, hi) = points
+                    .iter()
+                    .fold(([f32::MAX; 2], [f32::MIN; 2]), |(lo, hi), p| {
+                        (
+                            [lo[0].min(p[0]), lo[1].min(p[1])],
+                            [hi[0].max(p[0]), hi[1].max(p[1])],
+                        )
+                    });
+                let c = [(lo[0] + hi[0]) / 2.0, (lo[1] + hi[1]) / 2.0];
+                Some((i, c, (hi[0] - lo[0]) / 2.0))
+            }
+            _ => None,
+        })
+        .expect("the hole is drawn white");
+    let shade = ops
+        .iter()
+        .position(|op| {
+            matches!(
+                op,
+                Op::Rect {
+                    fill: Some(238),
+                    ..
+                }
+            )
+        })
+        .expect("the face is shaded");
+    assert!(shade < hole);
+    // At the stated scale the drawn hole has the plate's hole radius.
+    let want_pt = r_m * stated_ratio(&w) * 72.0 / 0.0254;
+    assert!(
+        ((r_pt as f64) - want_pt).abs() < 0.5,
+        "{r_pt} pt, want {want_pt}"
+    );
+    // No dash of the area to prepare lies inside the hole.
+    for op in ops {
+        if let Op::Line {
+            x1,
+            y1,
+            x2,
+            y2,
+            grey: 130,
+            ..
+        } = op
+        {
+            let mid = [(x1 + x2) / 2.0, (y1 + y2) / 2.0];
+            let d = (mid[0] - centre[0]).hypot(mid[1] - centre[1]);
+            assert!(d >= r_pt - 0.05, "a dash {d} pt from the hole's centre");
+        }
+    }
+    // The note gives each gauge's distance from the hole's edge: K1 sits on the line from the
+    // centre along +s, so the distance is its s less the hole's radius.
+    let g = &placed[0];
+    let want = format!(
+        "{}: {:.1} mm from the hole edge",
+        g.id,
+        (g.position.s_m.abs() - r_m) * 1e3
+    );
+    let all = texts(&w).join(" ");
+    assert!(all.contains("The datum is the hole's centre"), "{all}");
+    assert!(all.contains(&want), "{want} not in {all}");
+}
