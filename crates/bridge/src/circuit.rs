@@ -112,7 +112,8 @@ impl Default for Excitation {
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub enum ShuntLocation {
-    /// Directly across the arm at the gauge site.
+    /// Directly across the arm at the gauge site (for an arm whose element sits in the
+    /// instrument, directly across that element, the same as [`ShuntLocation::InstrumentEnd`]).
     GaugeEnd,
     /// Across the arm's terminals at the instrument, so leads sit in series with the shunt.
     #[default]
@@ -287,9 +288,12 @@ impl BridgeCircuit {
             arm_nodes[k] = (a, b);
         }
         if let Some(shunt) = self.shunt {
-            let (p, q) = ARM_CORNERS[shunt.arm.min(3)];
+            let arm = shunt.arm.min(3);
+            let (p, q) = ARM_CORNERS[arm];
             let (a, b) = match shunt.location {
-                ShuntLocation::GaugeEnd => (remote[p], remote[q]),
+                // Directly across the arm's element, wherever it sits: a resistor in the
+                // instrument has no gauge-site end.
+                ShuntLocation::GaugeEnd => arm_nodes[arm],
                 ShuntLocation::InstrumentEnd => (inst[p], inst[q]),
             };
             net.resistor("shunt", a, b, shunt.ohm);
@@ -413,6 +417,48 @@ mod tests {
                 .1
                 .lead_count,
             3
+        );
+    }
+
+    #[test]
+    fn a_gauge_end_shunt_across_a_resistor_in_the_instrument_sits_across_that_resistor() {
+        // Two-wire quarter bridge with 2 Ω leads: a shunt across arm 2 (a resistor in the
+        // instrument) planned "at the gauge end" is the same circuit as one at the instrument
+        // end, both straight across the resistor. Checked by hand: arm 2 becomes 350 ‖ R.
+        let with = |location| {
+            let mut c = quarter(350.0, LeadWiring::TwoWire, 2.0);
+            c.shunt = Some(Shunt {
+                arm: 1,
+                ohm: 100_000.0,
+                location,
+            });
+            c.solve().unwrap().output_v
+        };
+        let gauge_end = with(ShuntLocation::GaugeEnd);
+        let instrument_end = with(ShuntLocation::InstrumentEnd);
+        assert_relative_eq!(gauge_end, instrument_end, max_relative = 1e-12);
+        let parallel = 350.0 * 100_000.0 / 100_350.0;
+        let mut by_hand = quarter(350.0, LeadWiring::TwoWire, 2.0);
+        by_hand.arms[1].ohm = parallel;
+        assert_relative_eq!(
+            gauge_end,
+            by_hand.solve().unwrap().output_v,
+            max_relative = 1e-9
+        );
+        // Across the grid (arm 1) the two ends differ by the leads.
+        let across_grid = |location| {
+            let mut c = quarter(350.0, LeadWiring::TwoWire, 2.0);
+            c.shunt = Some(Shunt {
+                arm: 0,
+                ohm: 100_000.0,
+                location,
+            });
+            c.solve().unwrap().output_v
+        };
+        assert!(
+            (across_grid(ShuntLocation::GaugeEnd) - across_grid(ShuntLocation::InstrumentEnd))
+                .abs()
+                > 1e-6
         );
     }
 }
