@@ -7,8 +7,9 @@
 //! plain fixed order: 1 excitation +, 2 excitation −, 3 output +, 4 output −,
 //! 5 excitation + sense, 6 excitation − sense, 7 output + sense, 8 output − sense,
 //! 9 shield (drain). A wiring uses the pins of the conductors it has (as
-//! [`BridgeCircuit::network`] lists them) and the shield; its other pins stay empty. A full
-//! bridge without sense is therefore 1, 2, 3, 4 and 9; a two-wire quarter bridge 2, 3 and 9.
+//! [`BridgeCircuit::network`] lists them) and the shield; its other pins stay empty. Four
+//! grids wired without sense leads use pins one to four and the shield pin; one grid wired
+//! with two wires uses the excitation − and output + pins and the shield pin.
 
 use gw_bridge::circuit::{ARM_CORNERS, ArmResistor, BridgeCircuit, Excitation, ShuntLocation};
 use gw_bridge::model::ARM_SIGNS;
