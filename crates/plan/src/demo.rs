@@ -147,13 +147,11 @@ fn shunt(arm: usize, microstrain: f64) -> Option<ShuntPlan> {
     })
 }
 
-/// The demo project.
-pub fn demo_project() -> Project {
+/// The reaction arm: a cantilevered rectangular bar with bending and shear bridges.
+fn reaction_arm() -> Part {
     use LoadComponent::*;
-    let reference = 20.0;
     let steel = material("carbon_steel");
-    let alloy = material("alloy_steel_qt");
-    let arm = Part {
+    Part {
         name: "Reaction arm".into(),
         member: Member::Beam(Beam {
             section: Section::Rectangle {
@@ -242,9 +240,15 @@ pub fn demo_project() -> Project {
         required_resolution_strain: 1e-6,
         tolerances: InstallationTolerances::default(),
         datum_m: (0.0, 0.0),
-    };
+    }
+}
+
+/// The drum drive shaft: torque and bending bridges on a round shaft.
+fn drum_drive_shaft() -> Part {
+    use LoadComponent::*;
+    let alloy = material("alloy_steel_qt");
     let half_turn = std::f64::consts::PI * 0.03;
-    let shaft = Part {
+    Part {
         name: "Drum drive shaft".into(),
         member: Member::Shaft(Shaft {
             outer_diameter_m: 0.06,
@@ -324,9 +328,15 @@ pub fn demo_project() -> Project {
         required_resolution_strain: 1e-6,
         tolerances: InstallationTolerances::default(),
         datum_m: (0.0, 0.0),
-    };
+    }
+}
+
+/// The accumulator shell: a thin-walled cylinder with pressure bridges.
+fn accumulator_shell() -> Part {
+    use LoadComponent::*;
+    let steel = material("carbon_steel");
     let shell_half_turn = std::f64::consts::PI * 0.11;
-    let shell = Part {
+    Part {
         name: "Accumulator shell".into(),
         member: Member::ThinCylinder(ThinCylinder {
             outer_diameter_m: 0.22,
@@ -397,7 +407,15 @@ pub fn demo_project() -> Project {
         required_resolution_strain: 1e-6,
         tolerances: InstallationTolerances::default(),
         datum_m: (0.0, 0.0),
-    };
+    }
+}
+
+/// The demo project.
+pub fn demo_project() -> Project {
+    let reference = 20.0;
+    let arm = reaction_arm();
+    let shaft = drum_drive_shaft();
+    let shell = accumulator_shell();
     let mut parts = vec![arm, shaft, shell];
     // What this invented job asks of its main bridges; the single hoop grid is the comparison
     // and states none.
