@@ -205,78 +205,128 @@ pub struct BridgeSolution {
     pub arm_volts: [f64; 4],
 }
 
+/// Conductor names of the corners, as the pin assignment knows them.
+const CORNER: [&str; 4] = ["exc+", "exc-", "out+", "out-"];
+const INSTRUMENT_NODE: [&str; 4] = [
+    "exc+ instrument",
+    "exc- instrument",
+    "out+ instrument",
+    "out- instrument",
+];
+const GAUGE_NODE: [&str; 4] = ["exc+ gauge", "exc- gauge", "out+ gauge", "out- gauge"];
+const SENSE_NODE: [&str; 4] = ["exc+ sense", "exc- sense", "out+ sense", "out- sense"];
+const LEAD: [&str; 4] = ["lead exc+", "lead exc-", "lead out+", "lead out-"];
+const SENSE_LEAD: [&str; 4] = [
+    "sense lead exc+",
+    "sense lead exc-",
+    "sense lead out+",
+    "sense lead out-",
+];
+const SENSE_CONDUCTOR: [&str; 4] = ["sense exc+", "sense exc-", "sense out+", "sense out-"];
+const ARM: [&str; 4] = ["arm 1", "arm 2", "arm 3", "arm 4"];
+
+/// The leads of a bridge as built into its network.
+struct Leads {
+    /// Node of each corner at the gauge site (the instrument's where no lead runs).
+    remote: [Node; 4],
+    /// Node each corner is sensed at.
+    sense: [Node; 4],
+    /// Number of lead wires.
+    count: usize,
+    /// Instrument-side end of each lead wire, with its role.
+    conductors: Vec<(&'static str, Node)>,
+}
+
 impl BridgeCircuit {
     /// Builds the network. Ground is the instrument's excitation − terminal.
     pub fn network(&self) -> (Network, BridgeNodes) {
         let mut net = Network::new();
-        let names = ["exc+", "exc-", "out+", "out-"];
-        const INSTRUMENT: [&str; 4] = [
-            "exc+ instrument",
-            "exc- instrument",
-            "out+ instrument",
-            "out- instrument",
-        ];
-        const GAUGE: [&str; 4] = ["exc+ gauge", "exc- gauge", "out+ gauge", "out- gauge"];
-        const SENSE: [&str; 4] = ["exc+ sense", "exc- sense", "out+ sense", "out- sense"];
-        const LEAD: [&str; 4] = ["lead exc+", "lead exc-", "lead out+", "lead out-"];
-        const SENSE_LEAD: [&str; 4] = [
-            "sense lead exc+",
-            "sense lead exc-",
-            "sense lead out+",
-            "sense lead out-",
-        ];
-        const SENSE_CONDUCTOR: [&str; 4] = ["sense exc+", "sense exc-", "sense out+", "sense out-"];
-        const ARM: [&str; 4] = ["arm 1", "arm 2", "arm 3", "arm 4"];
         // Instrument drive node of each corner; excitation − is ground.
         let mut inst: [Node; 4] = [0; 4];
         for c in [EXC_POS, OUT_POS, OUT_NEG] {
-            inst[c] = net.node(INSTRUMENT[c]);
+            inst[c] = net.node(INSTRUMENT_NODE[c]);
         }
         inst[EXC_NEG] = 0;
-        let remote_used = |c: usize| {
-            self.arms
-                .iter()
-                .zip(ARM_CORNERS)
-                .any(|(a, (p, q))| a.at_gauge && (p == c || q == c))
+        let leads = self.leads(&mut net, inst);
+        let arm_nodes = self.arms_and_shunt(&mut net, inst, leads.remote);
+        let output = (leads.sense[OUT_POS], leads.sense[OUT_NEG]);
+        if let Some(rin) = self.amplifier_input_ohm {
+            net.resistor("amplifier input", output.0, output.1, rin);
+        }
+        self.excitation_source(&mut net, inst, &leads);
+        let nodes = BridgeNodes {
+            arm_nodes,
+            output,
+            bridge_excitation: (leads.remote[EXC_POS], leads.remote[EXC_NEG]),
+            instrument_excitation: (inst[EXC_POS], inst[EXC_NEG]),
+            lead_count: leads.count,
+            conductors: leads.conductors,
         };
-        let inst_used = |c: usize| {
-            self.arms
-                .iter()
-                .zip(ARM_CORNERS)
-                .any(|(a, (p, q))| !a.at_gauge && (p == c || q == c))
+        (net, nodes)
+    }
+
+    /// True when an arm at the gauge site (`at_gauge`) or in the instrument (not) touches
+    /// corner `c`.
+    fn corner_used(&self, c: usize, at_gauge: bool) -> bool {
+        self.arms
+            .iter()
+            .zip(ARM_CORNERS)
+            .any(|(a, (p, q))| a.at_gauge == at_gauge && (p == c || q == c))
+    }
+
+    /// The lead wires (and sense leads) from each corner used at the gauge site to the
+    /// instrument.
+    fn leads(&self, net: &mut Network, inst: [Node; 4]) -> Leads {
+        let mut leads = Leads {
+            remote: inst,
+            sense: inst,
+            count: 0,
+            conductors: Vec::new(),
         };
-        let mut remote: [Node; 4] = inst;
-        let mut sense: [Node; 4] = inst;
-        let mut lead_count = 0;
-        let mut conductors = Vec::new();
         // Leads below a micro-ohm are treated as ideal (the nodes merge), which keeps the
         // equations well conditioned.
         let ideal_leads = self.lead_ohm < IDEAL_LEAD_OHM;
         for c in 0..4 {
-            if !remote_used(c) || ideal_leads {
+            if !self.corner_used(c, true) || ideal_leads {
                 continue;
             }
-            remote[c] = net.node(GAUGE[c]);
-            net.resistor(LEAD[c], remote[c], inst[c], self.lead_ohm);
-            lead_count += 1;
-            conductors.push((names[c], inst[c]));
+            leads.remote[c] = net.node(GAUGE_NODE[c]);
+            net.resistor(LEAD[c], leads.remote[c], inst[c], self.lead_ohm);
+            leads.count += 1;
+            leads.conductors.push((CORNER[c], inst[c]));
             let output_corner = c == OUT_POS || c == OUT_NEG;
             let separate_sense = match self.wiring {
                 LeadWiring::TwoWire => false,
-                LeadWiring::ThreeWire => output_corner && inst_used(c),
+                LeadWiring::ThreeWire => output_corner && self.corner_used(c, false),
                 LeadWiring::RemoteSense => {
-                    (output_corner && inst_used(c)) || c == EXC_POS || c == EXC_NEG
+                    (output_corner && self.corner_used(c, false)) || c == EXC_POS || c == EXC_NEG
                 }
             };
             if separate_sense {
-                sense[c] = net.node(SENSE[c]);
-                net.resistor(SENSE_LEAD[c], remote[c], sense[c], self.lead_ohm);
-                lead_count += 1;
-                conductors.push((SENSE_CONDUCTOR[c], sense[c]));
+                leads.sense[c] = net.node(SENSE_NODE[c]);
+                net.resistor(
+                    SENSE_LEAD[c],
+                    leads.remote[c],
+                    leads.sense[c],
+                    self.lead_ohm,
+                );
+                leads.count += 1;
+                leads.conductors.push((SENSE_CONDUCTOR[c], leads.sense[c]));
             } else if output_corner {
-                sense[c] = inst[c];
+                leads.sense[c] = inst[c];
             }
         }
+        leads
+    }
+
+    /// The four arms between their corners (at the gauge site or in the instrument), and the
+    /// shunt where it is connected; returns each arm's nodes.
+    fn arms_and_shunt(
+        &self,
+        net: &mut Network,
+        inst: [Node; 4],
+        remote: [Node; 4],
+    ) -> [(Node, Node); 4] {
         let mut arm_nodes = [(0, 0); 4];
         for (k, (arm, (p, q))) in self.arms.iter().zip(ARM_CORNERS).enumerate() {
             let (a, b) = if arm.at_gauge {
@@ -298,14 +348,15 @@ impl BridgeCircuit {
             };
             net.resistor("shunt", a, b, shunt.ohm);
         }
-        let output = (sense[OUT_POS], sense[OUT_NEG]);
-        if let Some(rin) = self.amplifier_input_ohm {
-            net.resistor("amplifier input", output.0, output.1, rin);
-        }
-        // Excitation sensed at the bridge where remote sense leads exist.
+        arm_nodes
+    }
+
+    /// The excitation source at the instrument's terminals; a voltage source regulates at
+    /// the bridge where remote sense leads exist.
+    fn excitation_source(&self, net: &mut Network, inst: [Node; 4], leads: &Leads) {
         let bridge_excitation = match self.wiring {
-            LeadWiring::RemoteSense => (sense[EXC_POS], sense[EXC_NEG]),
-            _ => (remote[EXC_POS], remote[EXC_NEG]),
+            LeadWiring::RemoteSense => (leads.sense[EXC_POS], leads.sense[EXC_NEG]),
+            _ => (leads.remote[EXC_POS], leads.remote[EXC_NEG]),
         };
         match self.excitation {
             Excitation::Voltage { volts } => net.voltage_sources.push(VoltageSource {
@@ -322,15 +373,6 @@ impl BridgeCircuit {
                 amps,
             }),
         }
-        let nodes = BridgeNodes {
-            arm_nodes,
-            output,
-            bridge_excitation: (remote[EXC_POS], remote[EXC_NEG]),
-            instrument_excitation: (inst[EXC_POS], inst[EXC_NEG]),
-            lead_count,
-            conductors,
-        };
-        (net, nodes)
     }
 
     /// Solves the bridge.
