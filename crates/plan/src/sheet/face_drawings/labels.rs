@@ -78,7 +78,9 @@ pub(in crate::sheet) fn nearby(anchor: Area, size: [f32; 2]) -> Vec<[f32; 2]> {
     c.into_iter().map(|(_, p)| p).collect()
 }
 
-fn around(anchor: Area, size: [f32; 2], gap: f32) -> Vec<[f32; 2]> {
+/// Candidate top-left corners for a label of `size` round `anchor` (see
+/// [`candidates_around`]).
+pub(crate) fn around(anchor: Area, size: [f32; 2], gap: f32) -> Vec<[f32; 2]> {
     let rect = ScreenRect {
         min: [anchor.x0, anchor.y0],
         max: [anchor.x1, anchor.y1],

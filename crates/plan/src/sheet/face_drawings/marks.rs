@@ -5,7 +5,7 @@
 use gw_bridge::PlacedGauge;
 
 use super::plan::Axis;
-use crate::sheet::layout::{Area, Op};
+use crate::sheet::layout::Area;
 use crate::sheet::writer::Writer;
 
 /// Where the face lands on the page: x runs right, s runs up.
@@ -53,24 +53,13 @@ impl Frame {
     }
 }
 
-fn line(w: &mut Writer, a: [f32; 2], b: [f32; 2], width: f32, grey: u8) {
-    w.ops().push(Op::Line {
-        x1: a[0],
-        y1: a[1],
-        x2: b[0],
-        y2: b[1],
-        width,
-        grey,
-    });
-}
-
 /// A polyline (closed: a polygon) drawn as straight lines.
 pub(crate) fn poly(w: &mut Writer, points: &[[f32; 2]], closed: bool, width: f32, grey: u8) {
     for p in points.windows(2) {
-        line(w, p[0], p[1], width, grey);
+        w.line(p[0], p[1], width, grey);
     }
     if closed && points.len() > 2 {
-        line(w, points[points.len() - 1], points[0], width, grey);
+        w.line(points[points.len() - 1], points[0], width, grey);
     }
 }
 
@@ -95,13 +84,12 @@ pub(crate) fn dimension_line(w: &mut Writer, a: [f32; 2], b: [f32; 2]) {
     let u = [dx / len, dy / len];
     let head = 5.0;
     if len >= 2.6 * head {
-        line(w, a, b, 0.4, 0);
+        w.line(a, b, 0.4, 0);
         arrow_head(w, a, [-u[0], -u[1]], head);
         arrow_head(w, b, u, head);
     } else {
         let out = head + 5.0;
-        line(
-            w,
+        w.line(
             [a[0] - u[0] * out, a[1] - u[1] * out],
             [b[0] + u[0] * out, b[1] + u[1] * out],
             0.4,
@@ -114,7 +102,7 @@ pub(crate) fn dimension_line(w: &mut Writer, a: [f32; 2], b: [f32; 2]) {
 
 /// An extension line (thin, grey) from `a` to `b`.
 pub(crate) fn extension_line(w: &mut Writer, a: [f32; 2], b: [f32; 2]) {
-    line(w, a, b, 0.3, 90);
+    w.line(a, b, 0.3, 90);
 }
 
 /// A break line from `a` to `b`: straight with one zig-zag in the middle.
@@ -150,8 +138,8 @@ pub(crate) fn datum_mark(w: &mut Writer, c: [f32; 2], r: f32) -> Area {
         .collect();
     poly(w, &points, true, 0.8, 0);
     let k = 1.7 * r;
-    line(w, [c[0] - k, c[1]], [c[0] + k, c[1]], 0.6, 0);
-    line(w, [c[0], c[1] - k], [c[0], c[1] + k], 0.6, 0);
+    w.line([c[0] - k, c[1]], [c[0] + k, c[1]], 0.6, 0);
+    w.line([c[0], c[1] - k], [c[0], c[1] + k], 0.6, 0);
     Area::new(c[0] - k, c[1] - k, c[0] + k, c[1] + k)
 }
 
@@ -193,7 +181,7 @@ pub(crate) fn gauge(w: &mut Writer, g: &PlacedGauge, centre: [f32; 2], k: f32) -
     let from = reach + 1.5;
     let tip = from + (0.6 * len).clamp(9.0, 16.0);
     let at = |t: f32| [centre[0] + u[0] * t, centre[1] + u[1] * t];
-    line(w, at(from), at(tip - 3.0), 0.7, 0);
+    w.line(at(from), at(tip - 3.0), 0.7, 0);
     arrow_head(w, at(tip), u, 5.0);
     pts.push(at(tip));
     let area = pts.iter().fold(
@@ -315,8 +303,7 @@ pub(crate) fn dashed(w: &mut Writer, a: [f32; 2], b: [f32; 2], dash: f32, grey: 
     let mut t = 0.0;
     while t < len {
         let e = (t + dash).min(len);
-        line(
-            w,
+        w.line(
             [a[0] + u[0] * t, a[1] + u[1] * t],
             [a[0] + u[0] * e, a[1] + u[1] * e],
             0.5,
@@ -336,7 +323,7 @@ fn grid(w: &mut Writer, c: [f32; 2], u: [f32; 2], len: f32, wid: f32) -> Vec<[f3
     let n = 4;
     for i in 0..n {
         let b = -h + wid * (i as f32 + 0.5) / n as f32;
-        line(w, at(-0.92 * l, b), at(0.92 * l, b), 0.35, 60);
+        w.line(at(-0.92 * l, b), at(0.92 * l, b), 0.35, 60);
     }
     let (tab_len, tab_wid) = (0.28 * len, 0.38 * wid);
     let start = -l - 0.08 * len;
@@ -385,9 +372,9 @@ pub(crate) fn fmt_mm(v: f64) -> String {
 /// The axis arrows from (`x`, `y`) (their common tail): "+x" to the right, "+s" up, each
 /// `len` points. Returns the box of the glyph with its labels.
 pub(crate) fn axis_arrows(w: &mut Writer, x: f32, y: f32, len: f32) -> Area {
-    line(w, [x, y], [x + len - 3.0, y], 0.7, 0);
+    w.line([x, y], [x + len - 3.0, y], 0.7, 0);
     arrow_head(w, [x + len, y], [1.0, 0.0], 5.0);
-    line(w, [x, y], [x, y - len + 3.0], 0.7, 0);
+    w.line([x, y], [x, y - len + 3.0], 0.7, 0);
     arrow_head(w, [x, y - len], [0.0, -1.0], 5.0);
     let a = w.text_top(x + len + 3.0, y - 5.0, 7.5, true, "+x");
     let b = w.text_top(x + 4.0, y - len - 4.0, 7.5, true, "+s");

@@ -3,12 +3,11 @@
 //! piece's edges (to transfer onto the part), the datum when it lies in the piece, and the
 //! names of what lies beyond each edge.
 
-use super::labels::place_apart;
+use super::labels::{around, place_apart};
 use super::marks::Frame;
 use super::outline::CLEAR;
 use super::plan::{Axis, FaceSetup, Scale};
 use super::{Drawing, EDGE_ROWS, LABEL, ROW, label_h, mm1};
-use crate::drawing::face_layout::{ScreenRect, candidates_around};
 use crate::sheet::layout::{Area, text_width};
 use crate::sheet::writer::Writer;
 
@@ -86,14 +85,6 @@ pub(in crate::sheet) fn draw_piece(
         }
     }
     d.missing
-}
-
-fn around(anchor: Area, size: [f32; 2], gap: f32) -> Vec<[f32; 2]> {
-    let rect = ScreenRect {
-        min: [anchor.x0, anchor.y0],
-        max: [anchor.x1, anchor.y1],
-    };
-    candidates_around(&rect, size, gap)
 }
 
 impl Drawing<'_> {
