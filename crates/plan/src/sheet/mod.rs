@@ -9,6 +9,7 @@ mod part_section;
 mod part_views;
 mod pdf;
 mod records;
+pub mod report_page;
 mod template;
 mod wiring_diagram;
 mod writer;
