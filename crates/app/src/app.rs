@@ -56,15 +56,63 @@ pub enum Pending {
     PickOpen,
 }
 
+/// What a typed path is for.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum PathPurpose {
+    /// Open a project.
+    Open,
+    /// Save the project.
+    Save,
+    /// Write the build sheet PDF (and the channel list beside it).
+    Sheet,
+    /// Import filled-in check-out records (CSV).
+    Records,
+    /// Write the check-out records template (CSV).
+    Template,
+    /// Import a test log (CSV).
+    Log,
+}
+
+impl PathPurpose {
+    /// What the dialog asks.
+    fn prompt(self) -> &'static str {
+        match self {
+            PathPurpose::Open => "Open this project file:",
+            PathPurpose::Save => "Save the project to this file:",
+            PathPurpose::Sheet => "Write the build sheet to this PDF:",
+            PathPurpose::Records => "Import the filled-in check-out records from this CSV file:",
+            PathPurpose::Template => "Write the check-out records template to this CSV file:",
+            PathPurpose::Log => "Import the test log from this CSV file:",
+        }
+    }
+
+    /// An example path.
+    fn hint(self) -> &'static str {
+        match self {
+            PathPurpose::Open | PathPurpose::Save => "/path/to/project.ron",
+            PathPurpose::Sheet => "/path/to/build_sheet.pdf",
+            PathPurpose::Records | PathPurpose::Template => "/path/to/checkout_records.csv",
+            PathPurpose::Log => "/path/to/test_log.csv",
+        }
+    }
+
+    /// The button that goes ahead.
+    fn action(self) -> &'static str {
+        match self {
+            PathPurpose::Open => "Open",
+            PathPurpose::Save => "Save",
+            PathPurpose::Sheet => "Export",
+            PathPurpose::Records | PathPurpose::Log => "Import",
+            PathPurpose::Template => "Write",
+        }
+    }
+}
+
 /// A dialog over the app.
 #[derive(Debug, Clone, PartialEq)]
 pub enum Modal {
-    /// Type a path to open.
-    OpenPath(String),
-    /// Type a path to save to.
-    SavePath(String),
-    /// Type a path for the build sheet PDF.
-    SheetPath(String),
+    /// Type a path for a file to open, save, import or write.
+    Path(PathPurpose, String),
     /// Unsaved changes would be lost.
     ConfirmDiscard(Pending),
     /// A recovery file from an earlier session exists.
@@ -122,7 +170,7 @@ impl GaugewrightApp {
                         is_error: true,
                         text: format!(
                             "Could not open the last project, {}: {e}. Showing the demo instead; \
-                             File → Open to choose a project.",
+                             File › Open to choose a project.",
                             last.display()
                         ),
                     })
@@ -234,7 +282,7 @@ impl GaugewrightApp {
             return;
         }
         // No dialog appeared (no desktop portal) or it was cancelled: offer a typed path.
-        self.modal = Some(Modal::OpenPath(String::new()));
+        self.modal = Some(Modal::Path(PathPurpose::Open, String::new()));
     }
 
     fn pick_save(&mut self) {
@@ -253,7 +301,7 @@ impl GaugewrightApp {
             .as_ref()
             .map(|p| p.display().to_string())
             .unwrap_or_default();
-        self.modal = Some(Modal::SavePath(current));
+        self.modal = Some(Modal::Path(PathPurpose::Save, current));
     }
 
     fn pick_sheet(&mut self) {
@@ -266,7 +314,7 @@ impl GaugewrightApp {
             self.export_sheet(&p);
             return;
         }
-        self.modal = Some(Modal::SheetPath(String::new()));
+        self.modal = Some(Modal::Path(PathPurpose::Sheet, String::new()));
     }
 
     /// Writes the build sheet PDF and the channel list CSV beside it, through the safe writer;
@@ -450,6 +498,8 @@ impl GaugewrightApp {
         {
             self.pick_sheet();
         }
+        ui.separator();
+        self.test_files_menu_ui(ui);
     }
 
     fn menu_ui(&mut self, ui: &mut egui::Ui, out: &mut Vec<Command>) {
@@ -542,6 +592,88 @@ impl GaugewrightApp {
         }
     }
 
+    /// The typed-path dialog; true when answered.
+    fn path_modal_ui(&mut self, ui: &mut egui::Ui, purpose: PathPurpose, mut text: String) -> bool {
+        let mut close = false;
+        ui.label(purpose.prompt());
+        let label =
+            ui.label("File path (type it; the desktop's file dialog is not available here):");
+        let r = ui
+            .add(
+                egui::TextEdit::singleline(&mut text)
+                    .desired_width(420.0)
+                    .hint_text(purpose.hint()),
+            )
+            .labelled_by(label.id);
+        self.modal = Some(Modal::Path(purpose, text.clone()));
+        ui.horizontal(|ui| {
+            let go = ui.button(purpose.action()).clicked()
+                || (r.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter)));
+            if go && !text.trim().is_empty() {
+                self.run_path(purpose, &PathBuf::from(text.trim()));
+                close = true;
+            }
+            if ui.button("Cancel").clicked() {
+                close = true;
+            }
+        });
+        close
+    }
+
+    /// Does what the path was asked for.
+    pub fn run_path(&mut self, purpose: PathPurpose, path: &std::path::Path) {
+        match purpose {
+            PathPurpose::Open => self.open_path(path),
+            PathPurpose::Save => self.save_path(path),
+            PathPurpose::Sheet => self.export_sheet(path),
+            PathPurpose::Records => crate::test_files::import_records(&mut self.doc, path),
+            PathPurpose::Template => crate::test_files::write_template(&mut self.doc, path),
+            PathPurpose::Log => crate::test_files::import_log(&mut self.doc, path),
+        }
+    }
+
+    /// Asks for a CSV file for `purpose` with the desktop's dialog, or a typed path.
+    fn pick_csv(&mut self, purpose: PathPurpose) {
+        if self.dialogs == FileDialogs::Native {
+            let dialog = rfd::FileDialog::new().add_filter("CSV", &["csv"]);
+            let picked = match purpose {
+                PathPurpose::Template => dialog.set_file_name("checkout_records.csv").save_file(),
+                _ => dialog.pick_file(),
+            };
+            if let Some(p) = picked {
+                self.run_path(purpose, &p);
+                return;
+            }
+        }
+        self.modal = Some(Modal::Path(purpose, String::new()));
+    }
+
+    /// The File menu's entries for what comes back from the installation.
+    fn test_files_menu_ui(&mut self, ui: &mut egui::Ui) {
+        for (purpose, name, help) in [
+            (
+                PathPurpose::Template,
+                "Write check-out records template…",
+                "A CSV with one row per grid and per bridge, the expected values filled in, for \
+                 the technician to complete",
+            ),
+            (
+                PathPurpose::Records,
+                "Import check-out records…",
+                "Read the filled-in records CSV into the project (Ctrl+Z undoes it)",
+            ),
+            (
+                PathPurpose::Log,
+                "Import test log…",
+                "Read a test log (CSV with units in the headers); the project remembers the file",
+            ),
+        ] {
+            if ui.button(name).on_hover_text(help).clicked() {
+                self.pick_csv(purpose);
+            }
+        }
+    }
+
     fn modal_ui(&mut self, ui: &mut egui::Ui) {
         let Some(modal) = self.modal.clone() else {
             return;
@@ -557,66 +689,7 @@ impl GaugewrightApp {
             .resizable(false)
             .anchor(egui::Align2::CENTER_CENTER, [0.0, 0.0])
             .show(ui.ctx(), |ui| match modal {
-                Modal::OpenPath(mut text)
-                | Modal::SavePath(mut text)
-                | Modal::SheetPath(mut text) => {
-                    let saving = matches!(self.modal, Some(Modal::SavePath(_)));
-                    let sheet = matches!(self.modal, Some(Modal::SheetPath(_)));
-                    ui.label(if sheet {
-                        "Write the build sheet to this PDF:"
-                    } else if saving {
-                        "Save the project to this file:"
-                    } else {
-                        "Open this project file:"
-                    });
-                    let label = ui.label(
-                        "File path (type it; the desktop's file dialog is not available here):",
-                    );
-                    let r = ui
-                        .add(
-                            egui::TextEdit::singleline(&mut text)
-                                .desired_width(420.0)
-                                .hint_text(if sheet {
-                                    "/path/to/build_sheet.pdf"
-                                } else {
-                                    "/path/to/project.ron"
-                                }),
-                        )
-                        .labelled_by(label.id);
-                    self.modal = Some(if sheet {
-                        Modal::SheetPath(text.clone())
-                    } else if saving {
-                        Modal::SavePath(text.clone())
-                    } else {
-                        Modal::OpenPath(text.clone())
-                    });
-                    ui.horizontal(|ui| {
-                        let go = ui
-                            .button(if sheet {
-                                "Export"
-                            } else if saving {
-                                "Save"
-                            } else {
-                                "Open"
-                            })
-                            .clicked()
-                            || (r.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter)));
-                        if go && !text.trim().is_empty() {
-                            let path = PathBuf::from(text.trim());
-                            if sheet {
-                                self.export_sheet(&path);
-                            } else if saving {
-                                self.save_path(&path);
-                            } else {
-                                self.open_path(&path);
-                            }
-                            close = true;
-                        }
-                        if ui.button("Cancel").clicked() {
-                            close = true;
-                        }
-                    });
-                }
+                Modal::Path(purpose, text) => close = self.path_modal_ui(ui, purpose, text),
                 Modal::ConfirmDiscard(pending) => {
                     ui.label("The project has unsaved changes. Discard them?");
                     ui.horizontal(|ui| {
@@ -721,7 +794,7 @@ impl GaugewrightApp {
                 .face_view
                 .face_ui(ui, &self.doc, &mut self.map, &mut out),
             Tab::Bridges => self.bridges.bridges_ui(ui, &self.doc, &mut out),
-            Tab::Results => self.plots.plots_ui(ui, &self.doc),
+            Tab::Results => self.plots.plots_ui(ui, &self.doc, &mut out),
             Tab::Help => self.help.help_ui(ui, &self.doc),
         });
         self.modal_ui(ui);

@@ -71,6 +71,19 @@ pub enum Command {
         bridge: usize,
         ranked: Box<RankedArrangement>,
     },
+    /// Replace the check-out records of grids and bridges (an imported records file); the
+    /// log path is kept.
+    SetRecords(Box<gw_plan::installation::InstallationRecords>),
+    /// Name the test log the project reads (`None`: no log).
+    SetLogPath(Option<String>),
+    /// Use an in-place calibration for a bridge's sensitivity (`None`: back to the predicted).
+    SetCalibration {
+        part: usize,
+        bridge: usize,
+        calibration: Option<Box<gw_plan::installation::InPlaceCalibration>>,
+    },
+    /// Show a check-out entry in the inspector.
+    FocusTest(crate::state::TestFocus),
     /// Replace the whole project (new, open, recover).
     ReplaceProject {
         project: Box<Project>,
@@ -96,6 +109,7 @@ impl Command {
                 | Command::SetUnits(_)
                 | Command::Select(_)
                 | Command::Focus(_)
+                | Command::FocusTest(_)
                 | Command::ReplaceProject { .. }
         )
     }

@@ -8,6 +8,7 @@ use gw_plan::evaluate::{EvalOptions, Evaluation, UncertaintyDepth, evaluate};
 use gw_plan::{PlanGauge, Project};
 
 use crate::command::Command;
+use crate::measured::Measured;
 use crate::units::Units;
 
 /// What is selected.
@@ -23,6 +24,22 @@ pub struct Selection {
     pub bridge: Option<usize>,
     /// The item the inspector shows (`None`: the part).
     pub focus: Option<Item>,
+    /// A check-out entry of the plan tree, shown in the inspector instead of `focus`.
+    pub test: Option<TestFocus>,
+}
+
+/// What of the check-out and test the inspector shows.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum TestFocus {
+    /// The overview: files, counts of verdicts.
+    Overview,
+    /// One channel: the records of its bridge and grids, and its checks.
+    Channel {
+        /// Part index.
+        part: usize,
+        /// Bridge index.
+        bridge: usize,
+    },
 }
 
 impl Selection {
@@ -36,6 +53,7 @@ impl Selection {
             gauge: if same_part { before.gauge } else { None },
             bridge: if same_part { before.bridge } else { None },
             focus: Some(item),
+            test: None,
         };
         match item {
             Item::LoadCase { case, .. } => s.case = case,
@@ -84,6 +102,8 @@ pub struct DocumentState {
     pub notice: Option<Notice>,
     /// Number of evaluations so far (tests and diagnostics).
     pub evaluations: u64,
+    /// The test log and the results derived from the records and the log.
+    pub measured: Measured,
 }
 
 /// The inspector follows what the user picked last in a view: a gauge, a bridge, a load case
@@ -127,6 +147,7 @@ impl DocumentState {
     /// A document for `project`.
     pub fn new(project: Project, path: Option<PathBuf>) -> Self {
         let evaluation = evaluate(&project, &live_options());
+        let measured = Measured::new(&project, &evaluation);
         let mut s = Self {
             project,
             path,
@@ -138,9 +159,42 @@ impl DocumentState {
             units: Units::Si,
             notice: None,
             evaluations: 1,
+            measured,
         };
         s.clamp_selection();
+        s.sync_log();
+        s.measured.recompute(&s.project, &s.evaluation);
         s
+    }
+
+    /// Reads the test log the project names, if it changed; says so when it cannot be read.
+    /// Returns whether the loaded log changed.
+    fn sync_log(&mut self) -> bool {
+        let outcome = self.measured.sync_log(&self.project, self.path.as_deref());
+        if let Some(n) = outcome.notice {
+            self.notice = Some(n);
+        }
+        outcome.changed
+    }
+
+    /// Takes a test log read from `file`: the project stores its path (one undo step) and the
+    /// results are computed again.
+    pub fn import_log(&mut self, file: &Path, log: gw_reduce::log::TestLog) {
+        let stored = crate::measured::stored_log_path(file, self.path.as_deref());
+        let samples = log.len();
+        self.measured.set_log(
+            crate::measured::resolve_log_path(&stored, self.path.as_deref()),
+            log,
+        );
+        self.apply_all(vec![Command::SetLogPath(Some(stored))]);
+        self.measured.recompute(&self.project, &self.evaluation);
+        self.notice = Some(Notice {
+            is_error: false,
+            text: format!(
+                "Read the test log {} ({samples} samples); Results › Measured shows it.",
+                file.display()
+            ),
+        });
     }
 
     /// Title bar text: file name and an unsaved-changes marker.
@@ -167,6 +221,7 @@ impl DocumentState {
     fn reevaluate(&mut self) {
         self.evaluation = evaluate(&self.project, &live_options());
         self.evaluations += 1;
+        self.measured.recompute(&self.project, &self.evaluation);
     }
 
     fn clamp_selection(&mut self) {
@@ -193,6 +248,15 @@ impl DocumentState {
         {
             sel.focus = None;
         }
+        if let Some(TestFocus::Channel { part, bridge }) = sel.test
+            && self
+                .project
+                .parts
+                .get(part)
+                .is_none_or(|p| p.bridges.get(bridge).is_none())
+        {
+            sel.test = Some(TestFocus::Overview);
+        }
     }
 
     /// Applies commands in order, then evaluates once.
@@ -205,8 +269,11 @@ impl DocumentState {
             changed |= self.apply_one(c);
         }
         self.clamp_selection();
+        let log_changed = self.sync_log();
         if changed {
             self.reevaluate();
+        } else if log_changed {
+            self.measured.recompute(&self.project, &self.evaluation);
         }
     }
 
@@ -250,8 +317,16 @@ impl DocumentState {
             Command::Select(s) => {
                 self.selection = Selection {
                     focus: inferred_focus(&self.selection, &s),
+                    test: None,
                     ..s
                 };
+                false
+            }
+            Command::FocusTest(test) => {
+                if let TestFocus::Channel { part, bridge } = test {
+                    self.selection = Selection::of(Item::Bridge { part, bridge }, self.selection);
+                }
+                self.selection.test = Some(test);
                 false
             }
             Command::Focus(item) => {
@@ -349,11 +424,30 @@ impl DocumentState {
                 gw_plan::arrangements::apply_ranked(p, bridge, &ranked);
                 true
             }
+            Command::SetRecords(records) => {
+                let r = &mut self.project.records;
+                r.grids = records.grids;
+                r.bridges = records.bridges;
+                true
+            }
+            Command::SetLogPath(path) => {
+                self.project.records.log_path = path;
+                true
+            }
+            Command::SetCalibration {
+                part,
+                bridge,
+                calibration,
+            } => self
+                .bridge_mut(part, bridge)
+                .map(|b| b.calibration = calibration.map(|c| *c))
+                .is_some(),
             Command::Undo
             | Command::Redo
             | Command::SetUnits(_)
             | Command::Select(_)
             | Command::Focus(_)
+            | Command::FocusTest(_)
             | Command::ReplaceProject { .. } => false,
         }
     }
@@ -487,14 +581,15 @@ impl DocumentState {
     pub fn open(&mut self, path: &Path) {
         match gw_plan::load_project(path) {
             Ok(p) => {
-                self.apply_all(vec![Command::ReplaceProject {
-                    project: Box::new(p),
-                    path: Some(path.to_owned()),
-                }]);
+                // Set first: a test log that cannot be read replaces it with the reason.
                 self.notice = Some(Notice {
                     is_error: false,
                     text: format!("Opened {}", path.display()),
                 });
+                self.apply_all(vec![Command::ReplaceProject {
+                    project: Box::new(p),
+                    path: Some(path.to_owned()),
+                }]);
             }
             Err(e) => {
                 self.notice = Some(Notice {

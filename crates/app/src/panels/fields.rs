@@ -92,9 +92,17 @@ pub enum Editor<T> {
         get: Get<T, Option<usize>>,
         set: Set<T, usize>,
     },
+    /// Text read into the item when committed; the reader may refuse it, with the reason
+    /// (optional numbers, where an empty field means "not measured"; lists of numbers).
+    Parsed {
+        get: Get<T, String>,
+        parse: Parse<T>,
+    },
     /// A value shown but not edited here (derived, or edited elsewhere), with why.
     Info(String),
 }
+
+type Parse<T> = Box<dyn Fn(&mut T, &str) -> Result<(), String>>;
 
 /// One field of an item.
 pub struct Field<T> {
@@ -112,7 +120,7 @@ pub struct Field<T> {
 /// Fields under one heading.
 pub struct Group<T> {
     /// Heading.
-    pub title: &'static str,
+    pub title: String,
     /// Fields.
     pub fields: Vec<Field<T>>,
 }
@@ -262,4 +270,75 @@ pub fn info<T>(path: &'static str, label: &str, help: &'static str, value: Strin
         help,
         editor: Editor::Info(value),
     }
+}
+
+/// A field of text read by `parse` when committed.
+pub fn parsed<T>(
+    path: &'static str,
+    label: &str,
+    help: &'static str,
+    get: impl Fn(&T) -> String + 'static,
+    parse: impl Fn(&mut T, &str) -> Result<(), String> + 'static,
+) -> Field<T> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::Parsed {
+            get: Box::new(get),
+            parse: Box::new(parse),
+        },
+    }
+}
+
+/// Reads a typed number shown in `unit` (empty: none).
+pub fn read_optional(text: &str, unit: Unit, units: Units) -> Result<Option<f64>, String> {
+    let t = text.trim();
+    if t.is_empty() {
+        return Ok(None);
+    }
+    let t = t.strip_suffix(unit.suffix(units)).unwrap_or(t).trim();
+    match t.replace(',', ".").parse::<f64>() {
+        Ok(v) if v.is_finite() => Ok(Some(unit.store(units, v))),
+        _ => Err(format!(
+            "\"{text}\" is not a number; type a plain number in {} or leave the field empty \
+             for \"not measured\"",
+            unit.suffix(units)
+        )),
+    }
+}
+
+/// A stored optional number as typed text (empty: none).
+pub fn show_optional(v: Option<f64>, unit: Unit, units: Units) -> String {
+    match v {
+        Some(v) if v.is_finite() => format!("{}", unit.show(units, v)),
+        _ => String::new(),
+    }
+}
+
+/// An optional number typed as text: empty means "not measured".
+pub fn optional_number<T>(
+    path: &'static str,
+    label: &str,
+    unit: Unit,
+    units: Units,
+    help: &'static str,
+    get: impl Fn(&T) -> Option<f64> + 'static,
+    set: impl Fn(&mut T, Option<f64>) + 'static,
+) -> Field<T> {
+    let mut field = parsed(
+        path,
+        label,
+        help,
+        move |t| show_optional(get(t), unit, units),
+        move |t, text| {
+            set(t, read_optional(text, unit, units)?);
+            Ok(())
+        },
+    );
+    let suffix = unit.suffix(units);
+    if !suffix.is_empty() {
+        field.label = format!("{label} ({suffix})");
+    }
+    field
 }

@@ -14,19 +14,30 @@ use crate::units::Units;
 /// a one-line field (item, field label, text) until it is committed.
 #[derive(Default)]
 pub struct InspectorPanel {
-    rejected: Option<(Item, String, String)>,
-    draft: Option<(Item, String, String)>,
+    rejected: Option<(Key, String, String)>,
+    draft: Option<(Key, String, String)>,
+}
+
+/// What a rejected value or a draft belongs to: an item of the plan, or one check-out record
+/// ("grid A1 1", "bridge Arm bending").
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum Key {
+    /// An item of the plan.
+    Item(Item),
+    /// A check-out record.
+    Record(String),
 }
 
 /// What the inspector remembers about the fields of the item it shows: the last rejected
 /// value (label, reason) and the text being typed (label, text).
-struct Marks<'a> {
-    rejected: Option<&'a (String, String)>,
-    draft: &'a mut Option<(String, String)>,
+pub(crate) struct Marks<'a> {
+    pub(crate) rejected: Option<&'a (String, String)>,
+    pub(crate) draft: &'a mut Option<(String, String)>,
 }
 
-/// The result of drawing one group list: the edited copy of the item and the field label.
-type Edited<T> = Option<(T, String)>;
+/// The result of drawing one group list: the edited copy of the item (or why the typed text
+/// cannot be read) and the field label.
+type Edited<T> = Option<(Result<T, String>, String)>;
 
 /// A copy of `item` with one field set.
 fn edited<T: Clone, V>(item: &T, set: &dyn Fn(&mut T, V), value: V) -> T {
@@ -77,8 +88,24 @@ fn field_ui<T: Clone>(
     item: &T,
     units: Units,
     draft: &mut Option<(String, String)>,
-) -> Option<T> {
+) -> Option<Result<T, String>> {
     let label = ui.label(&f.label).on_hover_text(f.help).id;
+    if let Editor::Parsed { get, parse } = &f.editor {
+        let text = typed_ui(ui, f, &get(item), label, draft)?;
+        let mut copy = item.clone();
+        return Some(parse(&mut copy, &text).map(|()| copy));
+    }
+    field_value_ui(ui, f, item, units, label, draft).map(Ok)
+}
+
+fn field_value_ui<T: Clone>(
+    ui: &mut egui::Ui,
+    f: &Field<T>,
+    item: &T,
+    units: Units,
+    label: egui::Id,
+    draft: &mut Option<(String, String)>,
+) -> Option<T> {
     match &f.editor {
         Editor::Number { .. } => number_ui(ui, f, item, units, label),
         Editor::Whole { range, get, set } => {
@@ -148,6 +175,7 @@ fn field_ui<T: Clone>(
             ui.label(text).labelled_by(label).on_hover_text(f.help);
             None
         }
+        Editor::Parsed { .. } => None,
     }
 }
 
@@ -164,10 +192,22 @@ fn line_ui<T: Clone>(
     let Editor::Text { get, set, .. } = &f.editor else {
         return None;
     };
-    let stored = get(item);
+    let v = typed_ui(ui, f, &get(item), label, draft)?;
+    Some(edited(item, set, v))
+}
+
+/// A one-line text field showing `stored` (or the draft being typed); the committed text when
+/// the field loses focus with something else in it.
+fn typed_ui<T>(
+    ui: &mut egui::Ui,
+    f: &Field<T>,
+    stored: &str,
+    label: egui::Id,
+    draft: &mut Option<(String, String)>,
+) -> Option<String> {
     let mut v = match draft.as_ref() {
         Some((l, text)) if *l == f.label => text.clone(),
-        _ => stored.clone(),
+        _ => stored.to_owned(),
     };
     let r = ui
         .add(egui::TextEdit::singleline(&mut v).desired_width(200.0))
@@ -180,7 +220,7 @@ fn line_ui<T: Clone>(
     if draft.as_ref().is_some_and(|(l, _)| *l == f.label) {
         *draft = None;
     }
-    (r.lost_focus() && v != stored).then(|| edited(item, set, v))
+    (r.lost_focus() && v != stored).then_some(v)
 }
 
 fn groups_ui<T: Clone>(
@@ -192,7 +232,7 @@ fn groups_ui<T: Clone>(
 ) -> Edited<T> {
     let mut edited = None;
     for (gi, group) in groups.iter().enumerate() {
-        egui::CollapsingHeader::new(group.title)
+        egui::CollapsingHeader::new(&group.title)
             .id_salt(("inspector group", gi))
             .default_open(true)
             .show(ui, |ui| {
@@ -243,11 +283,11 @@ fn with_item(
 
 /// What an edit in the inspector produced: the candidate project (or why the edit cannot
 /// apply) and the label of the field edited.
-type Candidate = Option<(Result<Project, String>, String)>;
+pub(crate) type Candidate = Option<(Result<Project, String>, String)>;
 
 /// Draws `groups` for `current` and, on an edit, puts the edited copy into a copy of the
 /// project with `put`.
-fn edit_ui<T: Clone>(
+pub(crate) fn edit_ui<T: Clone>(
     ui: &mut egui::Ui,
     project: &Project,
     groups: &[Group<T>],
@@ -257,7 +297,7 @@ fn edit_ui<T: Clone>(
     put: impl FnOnce(&mut Project, T) -> Result<(), String>,
 ) -> Candidate {
     let (copy, label) = groups_ui(ui, groups, current, units, marks)?;
-    Some((with_item(project, |p| put(p, copy)), label))
+    Some((copy.and_then(|c| with_item(project, |p| put(p, c))), label))
 }
 
 /// The fields of the item the inspector shows.
@@ -357,17 +397,22 @@ impl InspectorPanel {
 
     fn contents_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
         let Self { rejected, draft } = self;
+        if let Some(test) = doc.selection.test {
+            super::checkout_inspector::checkout_ui(ui, doc, test, rejected, draft, out);
+            return;
+        }
         let item = doc.selection.inspected();
+        let key = Key::Item(item);
         let project = &doc.project;
         let units = doc.units;
         let here = rejected
             .as_ref()
-            .filter(|(i, _, _)| *i == item)
+            .filter(|(i, _, _)| *i == key)
             .map(|(_, l, r)| (l.clone(), r.clone()));
         // Text typed for another item is dropped with it.
         let mut typing = draft
             .take()
-            .filter(|(i, _, _)| *i == item)
+            .filter(|(i, _, _)| *i == key)
             .map(|(_, l, t)| (l, t));
         let mut marks = Marks {
             rejected: here.as_ref(),
@@ -383,7 +428,7 @@ impl InspectorPanel {
             .auto_shrink([false, false])
             .show(ui, |ui| item_ui(ui, project, item, units, &mut marks))
             .inner;
-        *draft = typing.map(|(l, t)| (item, l, t));
+        *draft = typing.map(|(l, t)| (key.clone(), l, t));
         if let Some((candidate, label)) = candidate {
             match candidate.and_then(|c| check(&c).map(|()| c)) {
                 Ok(candidate) => {
@@ -395,13 +440,13 @@ impl InspectorPanel {
                         focus: None,
                     });
                 }
-                Err(reason) => *rejected = Some((item, label, reason)),
+                Err(reason) => *rejected = Some((key, label, reason)),
             }
         }
     }
 }
 
 /// Whether the edited project may replace the current one; the reason when not.
-fn check(candidate: &Project) -> Result<(), String> {
+pub(crate) fn check(candidate: &Project) -> Result<(), String> {
     gw_plan::validate::validate_project(candidate).map_err(|e| e.to_string())
 }

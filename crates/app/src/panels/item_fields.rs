@@ -21,12 +21,22 @@ use crate::units::Quantity;
 pub fn project_groups() -> Vec<Group<Project>> {
     vec![
         Group {
-            title: "Project",
+            title: "Project".into(),
             fields: header_fields(),
         },
         Group {
-            title: "Lead colours (the project's own scheme; edit to the site's practice)",
+            title: "Lead colours (the project's own scheme; edit to the site's practice)".into(),
             fields: lead_colour_fields(),
+        },
+        Group {
+            title: "Check-out and test".into(),
+            fields: vec![info(
+                "records",
+                "Records",
+                "Values recorded at installation and the first test's log: edited under \
+                 \"Check-out and test\" in the plan tree, imported from the File menu",
+                "Select \"Check-out and test\" in the plan tree".into(),
+            )],
         },
     ]
 }
@@ -305,15 +315,15 @@ pub fn stock_groups() -> Vec<Group<StockGauge>> {
     let _ = spec;
     vec![
         Group {
-            title: "Gauge type",
+            title: "Gauge type".into(),
             fields: stock_type_fields(),
         },
         Group {
-            title: "Limits",
+            title: "Limits".into(),
             fields: stock_limit_fields(),
         },
         Group {
-            title: "Thermal output",
+            title: "Thermal output".into(),
             fields: thermal_fields(
                 &[
                     "spec.thermal_output.matched_cte_per_c",
@@ -1196,19 +1206,19 @@ pub fn part_groups(part: &Part) -> Vec<Group<Part>> {
     let _ = t;
     vec![
         Group {
-            title: "Part and model",
+            title: "Part and model".into(),
             fields: model,
         },
         Group {
-            title: "Material",
+            title: "Material".into(),
             fields: material_fields(),
         },
         Group {
-            title: "Requirements and datum",
+            title: "Requirements and datum".into(),
             fields: requirement_fields(),
         },
         Group {
-            title: "How well the installation is known",
+            title: "How well the installation is known".into(),
             fields: tolerance_fields(),
         },
     ]
@@ -1332,11 +1342,11 @@ pub fn load_case_groups(member: &Member) -> Vec<Group<LoadCase>> {
     }
     vec![
         Group {
-            title: "Loads at full load",
+            title: "Loads at full load".into(),
             fields: loads,
         },
         Group {
-            title: "Plots and use",
+            title: "Plots and use".into(),
             fields: vec![
                 whole(
                     "ramp_steps",
@@ -1437,7 +1447,7 @@ pub fn gauge_groups(project: &Project, part: &Part, gauge: &PlanGauge) -> Vec<Gr
     let faces2 = faces.clone();
     let spec = project.stock_entry(&gauge.stock).map(|s| s.spec.clone());
     let mut groups = vec![Group {
-        title: "Gauge",
+        title: "Gauge".into(),
         fields: vec![
             text(
                 "id",
@@ -1520,7 +1530,7 @@ pub fn gauge_groups(project: &Project, part: &Part, gauge: &PlanGauge) -> Vec<Gr
         lot.extend(lot_value_fields());
     }
     groups.push(Group {
-        title: "Lot",
+        title: "Lot".into(),
         fields: lot,
     });
     groups
@@ -1734,6 +1744,43 @@ fn wiring_field(plan: &BridgePlan) -> Field<BridgePlan> {
             }
         },
     )
+}
+
+/// Load recovery and the in-place calibration.
+fn installed_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
+    use gw_plan::document::LoadRecovery;
+    let calibration = match &plan.calibration {
+        Some(c) => format!(
+            "fitted: {:.6} per mV/V ({})",
+            c.load_per_mv_per_v,
+            if c.source.is_empty() {
+                "no source"
+            } else {
+                &c.source
+            }
+        ),
+        None => "predicted".to_owned(),
+    };
+    vec![
+        pick(
+            "recovery",
+            "Load recovery",
+            "Whether this bridge's reading is one of the equations the part's loads are solved \
+             from",
+            &[
+                (LoadRecovery::Included, "included"),
+                (LoadRecovery::LeftOut, "left out"),
+            ],
+            |p: &BridgePlan| p.recovery,
+            |p, v| p.recovery = v,
+        ),
+        info(
+            "calibration",
+            "Sensitivity used",
+            "Set or cleared from Results › Measured › Calibration",
+            calibration,
+        ),
+    ]
 }
 
 fn signal_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
@@ -2087,7 +2134,7 @@ pub fn bridge_groups(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<G
     arms.push(wiring_field(plan));
     vec![
         Group {
-            title: "Bridge",
+            title: "Bridge".into(),
             fields: vec![
                 text(
                     "name",
@@ -2126,31 +2173,35 @@ pub fn bridge_groups(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<G
             ],
         },
         Group {
-            title: "Arms and wiring",
+            title: "Arms and wiring".into(),
             fields: arms,
         },
         Group {
-            title: "Leads",
+            title: "Leads".into(),
             fields: lead_fields(),
         },
         Group {
-            title: "Excitation",
+            title: "Excitation".into(),
             fields: excitation_fields(),
         },
         Group {
-            title: "Instrument",
+            title: "Instrument".into(),
             fields: factor_fields(project, part, plan),
         },
         Group {
-            title: "Channel",
+            title: "Channel".into(),
             fields: signal_fields(plan),
         },
         Group {
-            title: "Shunt calibration",
+            title: "After installation".into(),
+            fields: installed_fields(plan),
+        },
+        Group {
+            title: "Shunt calibration".into(),
             fields: shunt_fields(plan),
         },
         Group {
-            title: "Accuracy",
+            title: "Accuracy".into(),
             fields: accuracy_fields(part, plan),
         },
     ]

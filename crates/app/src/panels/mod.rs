@@ -1,6 +1,7 @@
 //! The panels. Each holds only view state and emits [`crate::command::Command`]s.
 
 pub mod bridges;
+pub mod checkout_inspector;
 pub mod face_view;
 pub mod fields;
 pub mod findings;
@@ -8,9 +9,11 @@ pub mod help;
 pub mod inspector;
 pub mod item_fields;
 pub mod map;
+pub mod measured;
 pub mod new_project;
 pub mod part_view;
 pub mod plots;
+pub mod record_fields;
 pub mod tree;
 
 /// A labelled number in a two-column grid, shown as `value × scale` with `suffix`; writes the

@@ -8,6 +8,7 @@ use gw_bridge::margins::MarginStatus;
 use gw_plan::evaluate::{BridgeEvaluation, PartEvaluation};
 
 use super::palette;
+use crate::command::Command;
 use crate::panels::capitalise;
 use crate::state::DocumentState;
 use crate::units::{Quantity, microstrain};
@@ -26,6 +27,8 @@ pub enum PlotView {
     Uncertainty,
     /// What cancels what, and the multi-bridge matrix.
     Cancellation,
+    /// The check-out and the test log against the plan.
+    Measured,
 }
 
 /// View state.
@@ -33,6 +36,7 @@ pub enum PlotView {
 pub struct PlotsPanel {
     view: PlotView,
     monte_carlo: Option<(u64, usize, usize, Result<BridgeUncertainty, String>)>,
+    measured: super::measured::MeasuredPanel,
 }
 
 fn status_colour(s: MarginStatus) -> Color32 {
@@ -45,8 +49,12 @@ fn status_colour(s: MarginStatus) -> Color32 {
 
 impl PlotsPanel {
     /// Draws the plots of the selected bridge.
-    pub fn plots_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState) {
-        let Self { view, monte_carlo } = self;
+    pub fn plots_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
+        let Self {
+            view,
+            monte_carlo,
+            measured,
+        } = self;
         let sel = doc.selection;
         ui.horizontal(|ui| {
             for (v, name, help) in [
@@ -75,11 +83,20 @@ impl PlotsPanel {
                     "What cancels what",
                     "Each bridge's response to every load component",
                 ),
+                (
+                    PlotView::Measured,
+                    "Measured",
+                    "The check-out records and the test log against the plan",
+                ),
             ] {
                 ui.selectable_value(view, v, name).on_hover_text(help);
             }
         });
         ui.separator();
+        if *view == PlotView::Measured {
+            measured.measured_ui(ui, doc, out);
+            return;
+        }
         let Some(pe) = doc
             .evaluation
             .parts
@@ -131,7 +148,7 @@ impl PlotsPanel {
                     }
                 }
             }
-            PlotView::Cancellation => {}
+            PlotView::Cancellation | PlotView::Measured => {}
         }
     }
 }

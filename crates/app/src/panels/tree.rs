@@ -7,7 +7,32 @@ use gw_plan::evaluate::{Severity, Target};
 use gw_plan::{PlanArm, Project};
 
 use crate::command::Command;
-use crate::state::DocumentState;
+use crate::state::{DocumentState, TestFocus};
+
+/// The indices of the bridge named `bridge` on the part named `part`.
+pub fn bridge_index(project: &Project, part: &str, bridge: &str) -> Option<(usize, usize)> {
+    let p = project.parts.iter().position(|p| p.name == part)?;
+    let b = project.parts[p]
+        .bridges
+        .iter()
+        .position(|b| b.name == bridge)?;
+    Some((p, b))
+}
+
+/// The bridge named `bridge` on the part named `part`.
+pub fn bridge_plan<'a>(
+    project: &'a Project,
+    part: &str,
+    bridge: &str,
+) -> Option<&'a gw_plan::BridgePlan> {
+    let (p, b) = bridge_index(project, part, bridge)?;
+    project.parts.get(p)?.bridges.get(b)
+}
+
+/// The check-out entry of a channel named by its part and bridge.
+pub fn channel_focus(project: &Project, part: &str, bridge: &str) -> Option<TestFocus> {
+    bridge_index(project, part, bridge).map(|(part, bridge)| TestFocus::Channel { part, bridge })
+}
 
 /// View state: the item being renamed with its draft, the delete awaiting confirmation, the
 /// last refusal.
@@ -176,6 +201,7 @@ impl TreePanel {
                 if doc.project.parts.is_empty() {
                     ui.weak("No parts: use Add, then Part.");
                 }
+                self.checkout_ui(ui, doc, out);
             });
         self.confirm_ui(ui, doc, out);
     }
@@ -238,6 +264,46 @@ impl TreePanel {
             });
     }
 
+    /// "Check-out and test": the overview, then each channel with its verdict in colour and
+    /// in words.
+    fn checkout_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
+        let focus = doc.selection.test;
+        let id = ui.make_persistent_id("tree check-out");
+        egui::collapsing_header::CollapsingState::load_with_default_open(ui.ctx(), id, true)
+            .show_header(ui, |ui| {
+                let r = ui
+                    .selectable_label(focus == Some(TestFocus::Overview), "Check-out and test")
+                    .on_hover_text("The installation's records, the test log and their verdicts");
+                if r.clicked() {
+                    out.push(Command::FocusTest(TestFocus::Overview));
+                }
+            })
+            .body(|ui| {
+                for c in &doc.measured.derived.checkout.channels {
+                    let Some(f) = channel_focus(&doc.project, &c.part, &c.bridge) else {
+                        continue;
+                    };
+                    let v = c.verdict();
+                    ui.horizontal(|ui| {
+                        let colour = super::checkout_inspector::verdict_colour(v);
+                        let (rect, _) =
+                            ui.allocate_exact_size(egui::vec2(10.0, 10.0), egui::Sense::hover());
+                        ui.painter().circle_filled(rect.center(), 4.0, colour);
+                        let r = ui
+                            .selectable_label(
+                                focus == Some(f),
+                                format!("ch{} {}", c.channel, c.bridge),
+                            )
+                            .on_hover_text("Show the channel's records and checks");
+                        if r.clicked() {
+                            out.push(Command::FocusTest(f));
+                        }
+                        ui.colored_label(colour, v.word());
+                    });
+                }
+            });
+    }
+
     /// One item: mark, name (or the rename field), click, double-click, drag and drop.
     fn row_ui(
         &mut self,
@@ -247,7 +313,7 @@ impl TreePanel {
         text: String,
         out: &mut Vec<Command>,
     ) {
-        let selected = doc.selection.inspected() == item;
+        let selected = doc.selection.test.is_none() && doc.selection.inspected() == item;
         ui.horizontal(|ui| {
             if !matches!(item, Item::Project | Item::Stock(_)) {
                 mark_ui(ui, mark_of(doc, item));
