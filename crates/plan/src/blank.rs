@@ -194,6 +194,7 @@ pub fn blank_project(first: Part) -> Project {
         gauge_stock: Vec::new(),
         parts: vec![first],
         notes: String::new(),
+        records: Default::default(),
     }
 }
 

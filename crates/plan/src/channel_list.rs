@@ -40,7 +40,8 @@ fn four_decimals(value: f64) -> String {
 /// One line per bridge: channel, bridge, part, arrangement, excitation, instrument gauge factor
 /// and bridge factor, conversion (µε per mV/V), the wanted load per mV/V in its unit (empty when
 /// the bridge does not respond to it), the zero reading expected at no load with its statistical
-/// ± (at the stated coverage factor) and worst-case limits (mV/V), shunt value and its expected
+/// ± (at the stated coverage factor) and worst-case limits (mV/V), whether the load per mV/V is
+/// predicted or from an in-place calibration, shunt value and its expected
 /// reading, and the expected reading (mV/V and µε) at every load case of the part with the
 /// share of it the case's temperature change causes (µε; the conversion applies to the rest).
 pub fn channel_list_csv(ev: &Evaluation) -> String {
@@ -50,14 +51,21 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
         "channel,part,bridge,arrangement,excitation_v,gauge_factor_setting,bridge_factor,\
          microstrain_per_mv_per_v,wanted_load,wanted_unit,wanted_per_mv_per_v,zero_mv_per_v,\
          zero_statistical_mv_per_v,zero_coverage_k,zero_worst_low_mv_per_v,\
-         zero_worst_high_mv_per_v,shunt_ohm,shunt_arm,shunt_expected_microstrain,load_case,\
+         zero_worst_high_mv_per_v,sensitivity_source,shunt_ohm,shunt_arm,shunt_expected_microstrain,load_case,\
          expected_mv_per_v,expected_microstrain,from_temperature_microstrain"
     );
     for part in &ev.parts {
         for b in &part.bridges {
             // Displayed strain = 4 (Vo/Vex) / (GF · bridge factor): µε per mV/V.
             let microstrain_per_mv_per_v = 4000.0 / (b.gauge_factor_setting * b.bridge_factor);
-            let wanted_per_mv_per_v = b.wanted_per_mv_per_v.map(significant).unwrap_or_default();
+            let wanted_per_mv_per_v = b
+                .channel_load_per_mv_per_v()
+                .map(significant)
+                .unwrap_or_default();
+            let source = match &b.calibration {
+                Some(_) => "in-place calibration",
+                None => "predicted",
+            };
             let z = &b.zero_band;
             let zero = [
                 four_decimals(z.centre_mv_per_v),
@@ -65,6 +73,7 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
                 format!("{}", z.coverage_k),
                 four_decimals(z.worst_low_mv_per_v),
                 four_decimals(z.worst_high_mv_per_v),
+                source.to_owned(),
             ]
             .join(",");
             let (shunt_ohm, shunt_arm, shunt_reading) = match &b.shunt {

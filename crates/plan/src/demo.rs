@@ -46,6 +46,7 @@ fn stock() -> Vec<StockGauge> {
         GaugePattern::SingleGrid,
         GaugePattern::ShearPair,
         GaugePattern::TwoElement90,
+        GaugePattern::RectangularRosette,
     ]
     .into_iter()
     .map(|pattern| {
@@ -119,6 +120,8 @@ fn bridge(
         shunt,
         channel,
         required_accuracy: None,
+        recovery: Default::default(),
+        calibration: None,
     }
 }
 
@@ -212,6 +215,16 @@ fn reaction_arm() -> Part {
             ),
             gauge("S1", GaugePattern::ShearPair, Face::Front, 0.25, 0.0, 0.0),
             gauge("S2", GaugePattern::ShearPair, Face::Back, 0.25, 0.0, 0.0),
+            // Between the neutral axis and the top edge, where bending and shear both act:
+            // the principal directions lean away from the arm's axis.
+            gauge(
+                "R1",
+                GaugePattern::RectangularRosette,
+                Face::Front,
+                0.15,
+                0.006,
+                0.0,
+            ),
         ],
         bridges: vec![
             bridge(
@@ -236,11 +249,37 @@ fn reaction_arm() -> Part {
                 2,
                 shunt(0, 100.0),
             ),
+            rosette_channel(1, 7),
+            rosette_channel(2, 8),
+            rosette_channel(3, 9),
         ],
         required_resolution_strain: 1e-6,
         tolerances: InstallationTolerances::default(),
         datum_m: (0.0, 0.0),
     }
+}
+
+/// One grid of the arm's rosette R1 in a three-wire quarter bridge of its own, as rosettes are
+/// usually read. It reports the grid's strain and stays out of the load recovery.
+fn rosette_channel(grid_number: usize, channel: u32) -> BridgePlan {
+    let mut b = bridge(
+        &format!("Rosette R1, grid {grid_number}"),
+        "One rosette grid, three-wire",
+        [
+            grid("R1", grid_number),
+            completion(),
+            completion(),
+            completion(),
+        ],
+        LoadComponent::VerticalForce,
+        LeadWiring::ThreeWire,
+        12.0,
+        1000.0,
+        channel,
+        shunt(0, 500.0),
+    );
+    b.recovery = crate::document::LoadRecovery::LeftOut;
+    b
 }
 
 /// The drum drive shaft: torque and bending bridges on a round shaft.
@@ -445,5 +484,6 @@ pub fn demo_project() -> Project {
         notes: "Invented demo: a winch test stand with a reaction arm, a drum drive shaft and an \
                 hydraulic accumulator."
             .into(),
+        records: Default::default(),
     }
 }

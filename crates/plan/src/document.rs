@@ -8,6 +8,8 @@ use gw_bridge::{
 use gw_mechanics::{LoadComponent, LoadVector, Member, SurfacePoint};
 use serde::{Deserialize, Serialize};
 
+pub use crate::installation::{BridgeRecord, GridRecord, InPlaceCalibration, InstallationRecords};
+
 /// The format version this build writes. Version 1 files (gauge data inside every gauge, a
 /// typed bridge factor) are read and migrated by [`crate::io`].
 pub const FORMAT_VERSION: u32 = 2;
@@ -70,6 +72,9 @@ pub struct Project {
     /// Free notes.
     #[serde(default)]
     pub notes: String,
+    /// What the technician recorded after installation (empty until entered or imported).
+    #[serde(default, skip_serializing_if = "InstallationRecords::is_empty")]
+    pub records: InstallationRecords,
 }
 
 fn default_warn() -> f64 {
@@ -244,6 +249,31 @@ pub struct BridgePlan {
     /// The accuracy the engineer needs from this bridge (`None`: none stated).
     #[serde(default)]
     pub required_accuracy: Option<RequiredAccuracy>,
+    /// Whether the bridge joins the part's load recovery. Default: it does.
+    #[serde(default, skip_serializing_if = "LoadRecovery::is_default")]
+    pub recovery: LoadRecovery,
+    /// A sensitivity found by loading the installed bridge; when present it replaces the
+    /// predicted one in the channel list (`None`: predicted).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub calibration: Option<InPlaceCalibration>,
+}
+
+/// Whether a bridge's reading enters the part's load recovery (the least-squares solve of
+/// loads from several bridges). A channel that reports a strain, such as one grid of a
+/// rosette, is left out. Default: included.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+pub enum LoadRecovery {
+    /// The bridge's reading is one of the equations the loads are solved from.
+    #[default]
+    Included,
+    /// The bridge reports its own reading only.
+    LeftOut,
+}
+
+impl LoadRecovery {
+    fn is_default(&self) -> bool {
+        *self == LoadRecovery::Included
+    }
 }
 
 /// How closely a bridge must read its wanted load: the predicted error (what the arrangement

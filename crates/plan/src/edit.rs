@@ -236,6 +236,8 @@ fn add_bridge(p: &mut Project, part: usize) -> Result<Item, String> {
         shunt: None,
         channel,
         required_accuracy: None,
+        recovery: Default::default(),
+        calibration: None,
     });
     Ok(Item::Bridge {
         part,

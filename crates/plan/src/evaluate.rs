@@ -193,6 +193,21 @@ pub struct BridgeEvaluation {
     pub wanted_per_mv_per_v: Option<f64>,
     /// Expected resistance between connector pins (with leads), Ω.
     pub pin_resistances: Vec<(String, f64)>,
+    /// The in-place calibration that replaces the predicted sensitivity in the channel list,
+    /// when the plan holds one.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub calibration: Option<crate::installation::InPlaceCalibration>,
+}
+
+impl BridgeEvaluation {
+    /// The wanted load per mV/V the channel list gives: the in-place calibration's when there
+    /// is one, else the predicted one.
+    pub fn channel_load_per_mv_per_v(&self) -> Option<f64> {
+        match &self.calibration {
+            Some(c) => Some(c.load_per_mv_per_v),
+            None => self.wanted_per_mv_per_v,
+        }
+    }
 }
 
 /// A load case's part-level figures.
@@ -346,7 +361,9 @@ fn evaluate_part(
             Ok((ev, model)) => {
                 bridges.push(ev);
                 bridge_indices.push(bi);
-                models.push(model);
+                if plan.recovery == crate::document::LoadRecovery::Included {
+                    models.push(model);
+                }
             }
             Err(message) => findings.push(Finding {
                 severity: Severity::Error,
@@ -684,6 +701,7 @@ fn evaluate_bridge(
         zero_band,
         wanted_per_mv_per_v,
         pin_resistances,
+        calibration: plan.calibration.clone(),
     })
 }
 

@@ -25,6 +25,7 @@ pub mod edit;
 pub mod evaluate;
 pub mod finite;
 pub mod gallery;
+pub mod installation;
 pub mod io;
 pub mod migrate;
 pub mod parse_errors;

@@ -119,6 +119,7 @@ impl ProjectV1 {
             gauge_stock: stock,
             parts,
             notes: self.notes,
+            records: Default::default(),
         }
     }
 }
@@ -164,6 +165,8 @@ fn upgrade_part(p: PartV1, stock: &mut Vec<StockGauge>, reference_c: f64) -> Par
             shunt: b.shunt,
             channel: b.channel,
             required_accuracy: None,
+            recovery: Default::default(),
+            calibration: None,
         };
         let computed = crate::arrangements::bridge_factor_for(&part, &p.gauges, &plan, reference_c);
         if (computed - typed).abs() > 1e-12 * typed.abs().max(1.0) {

@@ -10,12 +10,22 @@ fn demo_evaluates_without_errors_or_failed_margins() {
     assert!(!ev.has_failures(), "{:#?}", ev.findings);
     assert_eq!(ev.parts.len(), 3);
     let bridges: usize = ev.parts.iter().map(|p| p.bridges.len()).sum();
-    assert_eq!(bridges, 6);
+    assert_eq!(bridges, 9);
+    let project = demo_project();
     for part in &ev.parts {
         for b in &part.bridges {
             assert_eq!(b.cases.len(), 2);
+            // The rosette's grids sit in quarter bridges of their own: each reports its grid's
+            // whole strain (every load, and the apparent strain of the proof case's temperature
+            // change), not one load, so the bound below is for the load bridges only.
+            let strain_channel = project.parts[part.part_index].bridges.iter().any(|p| {
+                p.name == b.name && p.recovery == gw_plan::document::LoadRecovery::LeftOut
+            });
             for c in &b.cases {
                 assert!(c.reading.displayed_strain.is_finite());
+                if strain_channel {
+                    continue;
+                }
                 // The instrument is set so it displays the first grid's strain from the wanted
                 // load; in the invented demo the error sources stay below 15 % of it (a bound
                 // for this demo, not a published value).

@@ -267,14 +267,15 @@ fn a_gauge_in_no_bridge_warns_until_a_bridge_uses_it() {
     extra.id = "X1".into();
     extra.position = SurfacePoint::new(Face::Top, 0.2, 0.0);
     p.parts[ARM].gauges.push(extra);
-    let m = one_warning(&p, ARM, 6, "in no bridge");
+    let x1 = p.parts[ARM].gauges.len() - 1;
+    let m = one_warning(&p, ARM, x1, "in no bridge");
     assert!(m.contains("put one of its grids in a bridge arm"), "{m}");
     // As the dummy in the shear-web bridge's fourth arm (S2 stays wired through the third).
     p.parts[ARM].bridges[1].arms[3] = gw_plan::PlanArm::Dummy {
         gauge: "X1".into(),
         grid: 1,
     };
-    no_warning(&p, ARM, 6, "in no bridge");
+    no_warning(&p, ARM, x1, "in no bridge");
     no_warning(&p, ARM, 5, "in no bridge");
     // Without the shear-web bridge, S1 and S2 are read by nothing.
     p.parts[ARM].bridges.remove(1);
