@@ -161,6 +161,44 @@ enum Command {
         #[arg(long)]
         force: bool,
     },
+    /// Reduce a logged test against the plan: zero, shunt span correction, bridge factor,
+    /// loads, rosettes, recovered loads and in-place calibration. Writes one row per sample
+    /// (or everything as JSON with --json) and prints a summary (exit status 1 if a
+    /// calibration cannot be fitted, 2 if a file is broken).
+    Reduce {
+        /// Project file (.ron).
+        plan: PathBuf,
+        /// The logged test (CSV: a time column, then one column per channel, units in brackets).
+        data: PathBuf,
+        /// Result file to write.
+        #[arg(short, long)]
+        output: PathBuf,
+        /// Write the result as JSON instead of CSV.
+        #[arg(long)]
+        json: bool,
+        /// Check-out records (CSV) to use instead of those stored in the project.
+        #[arg(long, value_name = "RECORDS")]
+        records: Option<PathBuf>,
+        /// Where each channel's zero comes from.
+        #[arg(long, value_enum, default_value_t = ZeroChoice::Start)]
+        zero: ZeroChoice,
+        /// Also write the report (PDF): check-out verdicts, measured against predicted per
+        /// channel, rosettes and calibration fits.
+        #[arg(long, value_name = "PDF")]
+        report: Option<PathBuf>,
+    },
+    /// Compare the technician's check-out records with the plan and print each channel's
+    /// verdict with the likely cause of anything off (exit status 1 if a channel fails, 2 if a
+    /// file is broken). With --template, write the records file to fill in instead.
+    Checkout {
+        /// Project file (.ron).
+        plan: PathBuf,
+        /// Filled-in records (CSV); without it, the records stored in the project.
+        records: Option<PathBuf>,
+        /// Write the records template (CSV, expected values filled in) to this file.
+        #[arg(long, value_name = "OUT")]
+        template: Option<PathBuf>,
+    },
     /// Write the bundled demo project (or, with --gallery, one part of every model kind and
     /// beam section).
     Demo {
@@ -173,6 +211,28 @@ enum Command {
         #[arg(long)]
         force: bool,
     },
+}
+
+/// Where `reduce` takes each channel's zero from.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+enum ZeroChoice {
+    /// The mean of the first second of the log (the part unloaded when logging starts).
+    Start,
+    /// The zero recorded at check-out.
+    Records,
+    /// No zero taken off.
+    None,
+}
+
+impl ZeroChoice {
+    fn zero_from(self) -> gw_reduce::reduction::ZeroFrom {
+        use gw_reduce::reduction::ZeroFrom;
+        match self {
+            ZeroChoice::Start => ZeroFrom::default(),
+            ZeroChoice::Records => ZeroFrom::Records,
+            ZeroChoice::None => ZeroFrom::None,
+        }
+    }
 }
 
 /// What became of writing a command's output.
@@ -286,6 +346,46 @@ fn main() -> ExitCode {
             force,
         }) => {
             return finish(gw_plan::cli::sheet(&file, &output, csv.as_deref(), force));
+        }
+        Some(Command::Reduce {
+            plan,
+            data,
+            output,
+            json,
+            records,
+            zero,
+            report,
+        }) => {
+            let format = if json {
+                gw_reduce::cli::ReduceFormat::Json
+            } else {
+                gw_reduce::cli::ReduceFormat::Csv
+            };
+            let options = gw_reduce::reduction::ReduceOptions {
+                zero: zero.zero_from(),
+            };
+            return finish(gw_reduce::cli::reduce_command(
+                &gw_reduce::cli::ReduceFiles {
+                    plan: &plan,
+                    data: &data,
+                    out: &output,
+                    records: records.as_deref(),
+                    report: report.as_deref(),
+                },
+                format,
+                &options,
+            ));
+        }
+        Some(Command::Checkout {
+            plan,
+            records,
+            template,
+        }) => {
+            return finish(gw_reduce::cli::checkout(
+                &plan,
+                records.as_deref(),
+                template.as_deref(),
+            ));
         }
         None => {}
     }
