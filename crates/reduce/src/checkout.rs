@@ -133,7 +133,18 @@ impl Checkout {
 
     /// A plain-text table: one block per channel with its items.
     pub fn text(&self) -> String {
-        let mut out = String::new();
+        let mut out = String::from("Verdict per channel:\n");
+        for c in &self.channels {
+            let _ = writeln!(
+                out,
+                "  ch{:<3} {:<13} {} / {}",
+                c.channel,
+                c.verdict().word(),
+                c.part,
+                c.bridge
+            );
+        }
+        out.push_str("\nEach value recorded:\n");
         for c in &self.channels {
             let _ = writeln!(
                 out,

@@ -74,7 +74,8 @@ pub struct ChannelSeries {
     pub strain_per_mv_per_v: f64,
     /// Displayed strain (plan's gauge-factor setting and bridge factor), m/m.
     pub strain: Vec<f64>,
-    /// The wanted load, SI unit, when the bridge responds to it.
+    /// The wanted load, SI unit, when the bridge responds to it (not for a channel left out of
+    /// the load recovery, such as a rosette grid: it reports a strain).
     pub load: Option<Vec<f64>>,
     /// Wanted load per mV/V used (in-place calibration if the plan holds one, else predicted).
     pub load_per_mv_per_v: Option<f64>,
@@ -387,7 +388,17 @@ fn channel_series(
     let mv_per_v: Vec<f64> = raw.iter().map(|r| (r - zero) * span).collect();
     let per = strain_per_mv_per_v(be);
     let strain = mv_per_v.iter().map(|m| m * per).collect();
-    let load_per_mv_per_v = be.channel_load_per_mv_per_v();
+    // A channel that reports a strain (a rosette grid) is not converted to a load.
+    let strain_channel = project
+        .parts
+        .get(pe.part_index)
+        .and_then(|p| p.bridges.iter().find(|b| b.name == be.name))
+        .is_some_and(|b| b.recovery == gw_plan::document::LoadRecovery::LeftOut);
+    let load_per_mv_per_v = if strain_channel {
+        None
+    } else {
+        be.channel_load_per_mv_per_v()
+    };
     let load = load_per_mv_per_v.map(|f| mv_per_v.iter().map(|m| m * f).collect());
     let predicted_mv_per_v = predicted_reading(be, &pe.name, applied, raw.len());
     ChannelSeries {

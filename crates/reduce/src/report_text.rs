@@ -193,7 +193,14 @@ fn rosettes_text(out: &mut String, r: &Reduction) {
     }
     let _ = writeln!(out, "\nRosettes (transverse sensitivity corrected):");
     for ro in &r.rosettes {
-        let Some(i) = ro.measured.peak_index() else {
+        // At the largest predicted state when the log carries the applied loads (the peak of a
+        // measured series leans towards a noise spike), else at the measured peak.
+        let at = ro
+            .predicted
+            .as_ref()
+            .and_then(PrincipalSeries::peak_index)
+            .or_else(|| ro.measured.peak_index());
+        let Some(i) = at else {
             continue;
         };
         let _ = writeln!(
@@ -258,7 +265,7 @@ fn calibration_text(out: &mut String, fits: &[CalibrationFit]) {
             out,
             "  {} ({}), {} points, {source}:\n    sensitivity {:.6e} ± {:.1e} mV/V per {unit} \
              (predicted {:.6e}; ratio {:.4} ± {:.4}, standard uncertainties)\n    zero {:.4} ± \
-             {:.4} mV/V; {} per mV/V: {} ± {}; nonlinearity {:.3} % of full scale; hysteresis {}",
+             {:.5} mV/V; {} per mV/V: {} ± {}; nonlinearity {:.3} % of full scale; hysteresis {}",
             f.bridge,
             f.part,
             f.points.len(),
