@@ -203,12 +203,15 @@ fn channel_ui(
     };
     let q = Quantity::of(ch.wanted);
     let units = doc.units;
-    ui.label(format!(
-        "Zero taken off {}; span factor {} ({})",
-        shown(ch.zero_mv_per_v, 4, "mV/V"),
-        shown(ch.span_factor, 4, ""),
-        ch.span_source
-    ));
+    ui.add(
+        egui::Label::new(format!(
+            "Zero taken off {}; span factor {} ({})",
+            shown(ch.zero_mv_per_v, 4, "mV/V"),
+            shown(ch.span_factor, 4, ""),
+            ch.span_source
+        ))
+        .wrap(),
+    );
     let has_load = !plot.measured_vs_load.is_empty();
     ui.horizontal(|ui| {
         ui.label("Against:");
@@ -262,6 +265,7 @@ fn reading_plot_ui(
     let scaled =
         |v: &[[f64; 2]]| -> Vec<[f64; 2]> { v.iter().map(|p| [p[0] * xk, p[1]]).collect() };
     Plot::new(("reading", &plot.bridge))
+        .allow_scroll(false)
         .height(220.0)
         .x_axis_label(x_label)
         .y_axis_label("Reading (mV/V)")
@@ -294,20 +298,23 @@ fn rosette_table_ui(ui: &mut egui::Ui, doc: &DocumentState, s: &RosetteSeries) {
     };
     let measured = row(&s.measured).unwrap_or_default();
     let predicted = s.predicted.as_ref().and_then(row);
-    ui.label(format!(
-        "At the peak, t = {}; grids read by {}",
-        shown(
-            doc.measured
-                .derived
-                .reduction
-                .as_ref()
-                .and_then(|r| r.time_s.get(i).copied())
-                .unwrap_or(f64::NAN),
-            1,
-            "s"
-        ),
-        s.bridges.join(", ")
-    ));
+    ui.add(
+        egui::Label::new(format!(
+            "At the peak, t = {}; grids read by {}",
+            shown(
+                doc.measured
+                    .derived
+                    .reduction
+                    .as_ref()
+                    .and_then(|r| r.time_s.get(i).copied())
+                    .unwrap_or(f64::NAN),
+                1,
+                "s"
+            ),
+            s.bridges.join(", ")
+        ))
+        .wrap(),
+    );
     let names = [
         "ε1",
         "ε2",
@@ -351,6 +358,7 @@ fn rosette_ui(ui: &mut egui::Ui, doc: &DocumentState, d: &Derived, gauge: Option
         .collect();
     legend_ui(ui, &present);
     Plot::new(("rosette", &s.gauge))
+        .allow_scroll(false)
         .height(200.0)
         .x_axis_label("Time (s)")
         .y_axis_label("Principal strain (µε)")
@@ -388,6 +396,7 @@ fn recovered_ui(ui: &mut egui::Ui, doc: &DocumentState, d: &Derived) {
                 (a.min(p[0]), b.max(p[0]))
             });
         Plot::new(("recovered", n))
+            .allow_scroll(false)
             .height(180.0)
             .x_axis_label(format!("Applied ({unit})"))
             .y_axis_label(format!("Recovered ({unit})"))
@@ -400,11 +409,29 @@ fn recovered_ui(ui: &mut egui::Ui, doc: &DocumentState, d: &Derived) {
     }
 }
 
-/// Sensitivity per display unit of the wanted load, with its unit.
-fn per_load(doc: &DocumentState, f: &CalibrationFit, v: f64) -> String {
+/// A sensitivity with its uncertainty, per a round multiple of the wanted load's display unit
+/// chosen so the figure has leading digits ("0.2160 ± 0.0001 mV/V per 1000 N").
+fn per_load(doc: &DocumentState, f: &CalibrationFit, v: f64, u: Option<f64>) -> String {
     let q = Quantity::of(f.wanted);
-    let k = scale(doc.units, q);
-    shown(v / k, 6, &format!("mV/V per {}", doc.units.label(q)))
+    let per_unit = v / scale(doc.units, q);
+    let mut multiple = 1.0_f64;
+    while per_unit.abs() * multiple < 0.1 && multiple < 1e12 && per_unit != 0.0 {
+        multiple *= 1000.0;
+    }
+    let per = if multiple == 1.0 {
+        doc.units.label(q).to_owned()
+    } else {
+        format!("{multiple} {}", doc.units.label(q))
+    };
+    let k = multiple / scale(doc.units, q);
+    match u {
+        Some(u) => format!(
+            "{} ± {} mV/V per {per}",
+            shown(v * k, 4, ""),
+            shown(u * k, 4, "")
+        ),
+        None => format!("{} mV/V per {per}", shown(v * k, 4, "")),
+    }
 }
 
 fn percent(v: Option<f64>, u: Option<f64>) -> String {
@@ -449,13 +476,9 @@ fn fit_rows(doc: &DocumentState, f: &CalibrationFit) -> Vec<(&'static str, Strin
     vec![
         (
             "Sensitivity",
-            format!(
-                "{} ± {}",
-                per_load(doc, f, f.sensitivity),
-                per_load(doc, f, f.sensitivity_u)
-            ),
+            per_load(doc, f, f.sensitivity, Some(f.sensitivity_u)),
         ),
-        ("Predicted", per_load(doc, f, f.predicted_sensitivity)),
+        ("Predicted", per_load(doc, f, f.predicted_sensitivity, None)),
         (
             "Ratio fitted / predicted",
             format!("{} ± {}", shown(f.ratio, 4, ""), shown(f.ratio_u, 4, "")),
@@ -515,6 +538,7 @@ fn fit_plot_ui(ui: &mut egui::Ui, doc: &DocumentState, f: &CalibrationFit) {
         &[(MEASURED, "plateau means"), (PREDICTED, "fitted line")],
     );
     Plot::new(("fit plot", &f.bridge))
+        .allow_scroll(false)
         .height(200.0)
         .x_axis_label(format!(
             "Known {} ({})",
