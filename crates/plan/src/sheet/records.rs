@@ -148,22 +148,27 @@ pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation)
         BODY,
         false,
         "First, with the instrument disconnected and no excitation: check the pin-to-pin \
-         resistances listed with the bridge, and the insulation from all pins joined together to \
-         the part (at least 1 GΩ at no more than 50 V, common practice; never apply an \
+         resistances listed with the bridge, the resistance of one lead conductor end to end \
+         (\"Lead\"), and the insulation from all pins joined together to the part (at least 1 GΩ at no more than 50 V, common practice; never apply an \
          insulation tester to an excited bridge or a connected instrument). Then connect the \
-         instrument, excite the bridge with the part unloaded, read zero, apply the shunt \
-         resistor between the pins named and read again. Compare with the expected values; a \
+         instrument, excite the bridge with the part unloaded, read zero, read it again after 15 \
+         minutes (common practice: the difference is the drift), apply the shunt resistor between \
+         the pins named and read again. Compare with the expected values; a \
          zero outside its band or a shunt reading more than 0.5 % from the expected value \
-         (common practice) means a wiring or bonding fault to find before testing.",
+         (common practice) means a wiring or bonding fault to find before testing. The same \
+         values can go into the records file Gaugewright writes (\"Write check-out \
+         records template\"), which compares each with the plan and names the likely fault.",
     );
     let head = strings(&[
         "Part / bridge (channel)",
+        "Lead (Ω)",
         "Zero expected (mV/V)",
         "Zero read (mV/V)",
+        "Zero after 15 min",
         "Shunt expected",
         "Shunt read",
-        "Pins as listed (tick)",
-        "Insulation all pins to part (GΩ), accept ≥ 1",
+        "Pins (tick)",
+        "Insulation (GΩ), accept ≥ 1",
         "Initials / date",
     ]);
     let mut rows = Vec::new();
@@ -172,9 +177,17 @@ pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation)
             continue;
         };
         for be in &pe.bridges {
+            let lead = part
+                .bridges
+                .iter()
+                .find(|b| b.name == be.name)
+                .map(|b| format!("planned {:.2}", b.lead.length_m * b.lead.ohm_per_m))
+                .unwrap_or_default();
             rows.push(vec![
                 format!("{} / {} ({})", part.name, be.name, be.channel_number),
+                lead,
                 super::bridge_section::zero_expected(be),
+                String::new(),
                 String::new(),
                 be.shunt
                     .as_ref()
@@ -189,7 +202,7 @@ pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation)
     }
     ruled_table(
         w,
-        &[2.0, 1.8, 1.0, 1.1, 1.0, 0.9, 1.2, 1.1],
+        &[1.8, 0.9, 1.6, 0.9, 0.9, 1.0, 0.8, 0.8, 1.3, 1.0],
         &head,
         &rows,
         20.0,
