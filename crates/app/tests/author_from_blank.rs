@@ -332,6 +332,16 @@ fn assert_same_document(ours: &Project, demo: &Project) {
     }
 }
 
+/// The demo's arm without its rosette R1 and the three quarter bridges that read it: the
+/// gauges and bridges this walk-through builds by hand are the others.
+fn without_rosette(mut demo: Project) -> Project {
+    for part in &mut demo.parts {
+        part.gauges.retain(|g| g.id != "R1");
+        part.bridges.retain(|b| !b.name.starts_with("Rosette R1"));
+    }
+    demo
+}
+
 /// Every figure the command line computes for the first part's bridges and load cases. The
 /// project's name is left out: it is the one thing the two files do not share.
 fn assert_same_evaluation(ours: &Value, demo: &Value) {
@@ -377,7 +387,7 @@ fn a_new_user_builds_the_demo_reaction_arm_from_a_blank_project_with_the_same_re
     save_as(&mut h, &saved);
     assert!(!h.state().doc.dirty, "{:?}", h.state().doc.notice);
     let ours = gw_plan::load_project(&saved).unwrap();
-    let demo = gw_plan::demo::demo_project();
+    let demo = without_rosette(gw_plan::demo::demo_project());
     assert_same_document(&ours, &demo);
 
     let demo_path = dir.join("demo.ron");
@@ -387,6 +397,8 @@ fn a_new_user_builds_the_demo_reaction_arm_from_a_blank_project_with_the_same_re
         .status()
         .unwrap();
     assert!(written.success());
+    let written = without_rosette(gw_plan::load_project(&demo_path).unwrap());
+    gw_plan::save_project(&written, &demo_path).unwrap();
     assert_same_evaluation(
         &evaluate_with_the_command_line(&saved),
         &evaluate_with_the_command_line(&demo_path),
