@@ -174,20 +174,28 @@ impl Checkout {
     }
 }
 
+/// Every evaluated bridge with its part and its plan, in plan order.
+pub fn evaluated_bridges<'a>(
+    project: &'a Project,
+    ev: &'a Evaluation,
+) -> impl Iterator<Item = (&'a Part, &'a BridgePlan, &'a BridgeEvaluation)> + 'a {
+    ev.parts.iter().flat_map(move |pe| {
+        let part = project.parts.get(pe.part_index);
+        pe.bridges
+            .iter()
+            .zip(&pe.bridge_indices)
+            .filter_map(move |(be, &bi)| {
+                let part = part?;
+                Some((part, part.bridges.get(bi)?, be))
+            })
+    })
+}
+
 /// Compares the project's records with the plan's expectations.
 pub fn check_out(project: &Project, ev: &Evaluation) -> Checkout {
-    let mut channels = Vec::new();
-    for pe in &ev.parts {
-        let Some(part) = project.parts.get(pe.part_index) else {
-            continue;
-        };
-        for (be, &bi) in pe.bridges.iter().zip(&pe.bridge_indices) {
-            let Some(plan) = part.bridges.get(bi) else {
-                continue;
-            };
-            channels.push(channel_check(project, part, plan, be));
-        }
-    }
+    let channels = evaluated_bridges(project, ev)
+        .map(|(part, plan, be)| channel_check(project, part, plan, be))
+        .collect();
     Checkout { channels }
 }
 

@@ -132,49 +132,41 @@ pub fn records_template(project: &Project, ev: &Evaluation) -> String {
             }
         }
     }
-    for pe in &ev.parts {
-        let Some(part) = project.parts.get(pe.part_index) else {
-            continue;
-        };
-        for (be, &bi) in pe.bridges.iter().zip(&pe.bridge_indices) {
-            let Some(plan) = part.bridges.get(bi) else {
-                continue;
-            };
-            let rec = r.bridge(&plan.name);
-            let z = &be.zero_band;
-            let steps = rec
-                .map(|x| {
-                    x.known_load_steps
-                        .iter()
-                        .map(|v| format!("{v}"))
-                        .collect::<Vec<_>>()
-                        .join(" ")
-                })
-                .unwrap_or_default();
-            let _ = writeln!(
-                out,
-                "bridge,{},{},,,,,{},{:.3},{},{},{},{},{},{},{},{},{}",
-                field(&part.name),
-                field(&plan.name),
-                num(rec.and_then(|x| x.insulation_ohm), 1e-9, 2),
-                plan.lead.length_m * plan.lead.ohm_per_m,
-                num(rec.and_then(|x| x.lead_ohm), 1.0, 3),
-                field(&format!(
-                    "{:.4} ({:.4} to {:.4})",
-                    z.centre_mv_per_v, z.worst_low_mv_per_v, z.worst_high_mv_per_v
-                )),
-                num(rec.and_then(|x| x.zero_mv_per_v), 1.0, 4),
-                num(rec.and_then(|x| x.zero_again_mv_per_v), 1.0, 4),
-                be.shunt
-                    .as_ref()
-                    .map(|s| format!("{:.1}", s.expected_reading_strain * 1e6))
-                    .unwrap_or_default(),
-                num(rec.and_then(|x| x.shunt_step_strain), 1e6, 1),
-                steps,
-                field(&rec.map(|x| x.date.clone()).unwrap_or_default()),
-                field(&rec.map(|x| x.initials.clone()).unwrap_or_default()),
-            );
-        }
+    for (part, plan, be) in crate::checkout::evaluated_bridges(project, ev) {
+        let rec = r.bridge(&plan.name);
+        let z = &be.zero_band;
+        let steps = rec
+            .map(|x| {
+                x.known_load_steps
+                    .iter()
+                    .map(|v| format!("{v}"))
+                    .collect::<Vec<_>>()
+                    .join(" ")
+            })
+            .unwrap_or_default();
+        let _ = writeln!(
+            out,
+            "bridge,{},{},,,,,{},{:.3},{},{},{},{},{},{},{},{},{}",
+            field(&part.name),
+            field(&plan.name),
+            num(rec.and_then(|x| x.insulation_ohm), 1e-9, 2),
+            plan.lead.length_m * plan.lead.ohm_per_m,
+            num(rec.and_then(|x| x.lead_ohm), 1.0, 3),
+            field(&format!(
+                "{:.4} ({:.4} to {:.4})",
+                z.centre_mv_per_v, z.worst_low_mv_per_v, z.worst_high_mv_per_v
+            )),
+            num(rec.and_then(|x| x.zero_mv_per_v), 1.0, 4),
+            num(rec.and_then(|x| x.zero_again_mv_per_v), 1.0, 4),
+            be.shunt
+                .as_ref()
+                .map(|s| format!("{:.1}", s.expected_reading_strain * 1e6))
+                .unwrap_or_default(),
+            num(rec.and_then(|x| x.shunt_step_strain), 1e6, 1),
+            steps,
+            field(&rec.map(|x| x.date.clone()).unwrap_or_default()),
+            field(&rec.map(|x| x.initials.clone()).unwrap_or_default()),
+        );
     }
     out
 }
