@@ -107,7 +107,9 @@ pub fn principal_series(
         let (ex, ey, gxy) = (row(&map[0]), row(&map[1]), row(&map[2]));
         let mean = 0.5 * (ex + ey);
         let half_diff = 0.5 * (ex - ey);
-        let radius = half_diff.hypot(0.5 * gxy);
+        // Strains are far from where squaring over- or underflows, so the plain root serves
+        // (`hypot` guards against that at several times the cost of a square root).
+        let radius = (half_diff * half_diff + 0.25 * gxy * gxy).sqrt();
         let mut angle = 0.5 * (0.5 * gxy).atan2(half_diff);
         if angle <= -std::f64::consts::FRAC_PI_2 {
             angle += std::f64::consts::PI;
@@ -143,17 +145,11 @@ pub fn rosette_series(
     let measured = principal_series(&map, channels.map(|c| c.strain.as_slice()), material);
     let predicted = match channels.map(|c| c.predicted_mv_per_v.as_ref()) {
         [Some(a), Some(b), Some(c)] => {
+            // Each grid's strain per mV/V folded into the map's columns: the predicted readings
+            // go in as they are, without a strain copy of each.
             let per = channels.map(|c| c.strain_per_mv_per_v);
-            let strains: Vec<Vec<f64>> = [a, b, c]
-                .iter()
-                .zip(per)
-                .map(|(p, f)| p.iter().map(|v| v * f).collect())
-                .collect();
-            Some(principal_series(
-                &map,
-                [&strains[0], &strains[1], &strains[2]],
-                material,
-            ))
+            let scaled = map.map(|row| [row[0] * per[0], row[1] * per[1], row[2] * per[2]]);
+            Some(principal_series(&scaled, [a, b, c], material))
         }
         _ => None,
     };
