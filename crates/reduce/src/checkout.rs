@@ -114,7 +114,7 @@ impl ChannelCheck {
 /// The check-out of every channel of the project.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct Checkout {
-    /// One entry per evaluated bridge, in plan order.
+    /// One entry per evaluated bridge, in channel order.
     pub channels: Vec<ChannelCheck>,
 }
 
@@ -193,9 +193,11 @@ pub fn evaluated_bridges<'a>(
 
 /// Compares the project's records with the plan's expectations.
 pub fn check_out(project: &Project, ev: &Evaluation) -> Checkout {
-    let channels = evaluated_bridges(project, ev)
+    let mut channels: Vec<ChannelCheck> = evaluated_bridges(project, ev)
         .map(|(part, plan, be)| channel_check(project, part, plan, be))
         .collect();
+    // In channel order, as the technician works through the instrument.
+    channels.sort_by_key(|c| c.channel);
     Checkout { channels }
 }
 
@@ -244,7 +246,10 @@ fn channel_check(
     ));
     items.push(zero_check(plan, be, record));
     items.push(drift_check(be, record));
-    items.push(shunt_check(plan, be, record));
+    // A bridge without a planned shunt has no step to record.
+    if be.shunt.is_some() {
+        items.push(shunt_check(plan, be, record));
+    }
     ChannelCheck {
         part: part.name.clone(),
         bridge: plan.name.clone(),
@@ -424,7 +429,7 @@ fn zero_check(
 ) -> ItemCheck {
     let z = &be.zero_band;
     let expected = format!(
-        "{:.3} mV/V, worst case {:.3} to {:.3}",
+        "{:.3} mV/V, worst case {:.3} to {:.3} mV/V",
         z.centre_mv_per_v, z.worst_low_mv_per_v, z.worst_high_mv_per_v
     );
     let Some(zero) = record.and_then(|r| r.zero_mv_per_v) else {

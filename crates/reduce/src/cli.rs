@@ -150,7 +150,7 @@ pub fn reduce_command(
     };
     let log = match read_log_file(files.data) {
         Ok(l) => l,
-        Err(e) => return failed(format!("error: {e}\n")),
+        Err(e) => return failed(format!("error: {e}\n{}", records_hint(files.data))),
     };
     let reduction = match reduce(&project, &ev, &log, options) {
         Ok(r) => r,
@@ -208,5 +208,20 @@ pub fn reduce_command(
         code: if fit_errors.is_empty() { 0 } else { 1 },
         stdout,
         stderr,
+    }
+}
+
+/// A hint when the file given as the log looks like a check-out records file.
+fn records_hint(data: &Path) -> String {
+    let first = std::fs::read_to_string(data)
+        .ok()
+        .and_then(|t| t.lines().next().map(str::to_owned))
+        .unwrap_or_default();
+    if first.trim_start_matches('\u{feff}').starts_with("kind,") {
+        "hint: this looks like a check-out records file; give it with --records, and the test \
+         log as DATA\n"
+            .to_owned()
+    } else {
+        String::new()
     }
 }

@@ -65,7 +65,9 @@ pub enum RecordsError {
     },
     /// A required column is missing.
     #[error(
-        "the header has no \"{column}\" column: start from the template the sheet command writes (--records)"
+        "the header has no \"{column}\" column: is this a check-out records file? Start from the \
+         records template (File › Write check-out records template…, or `gaugewright checkout \
+         PLAN --template OUT.csv`)"
     )]
     MissingColumn {
         /// The column.

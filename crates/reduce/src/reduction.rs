@@ -1,6 +1,6 @@
 //! A logged test reduced against the plan: each channel's reading in mV/V, its zero taken off,
 //! its span corrected by the recorded shunt step, turned into displayed strain and into the
-//! wanted load; each three-grid rosette read by three channels reduced to principal strains,
+//! wanted load (through the in-place calibration where the plan holds one); each three-grid rosette read by three channels reduced to principal strains,
 //! stresses, angle and maximum shear with the transverse-sensitivity correction; the part's
 //! loads recovered from several bridges with the plan's recovery matrix; and, where the log
 //! carries the applied loads from a reference, what the plan predicts for each of them.
@@ -79,6 +79,10 @@ pub struct ChannelSeries {
     pub load: Option<Vec<f64>>,
     /// Wanted load per mV/V used (in-place calibration if the plan holds one, else predicted).
     pub load_per_mv_per_v: Option<f64>,
+    /// The in-place calibration's load per mV/V over the predicted one (1 without a
+    /// calibration): the load recovery, built on the predicted sensitivities, takes the
+    /// channel's strain times this factor.
+    pub calibration_factor: f64,
     /// What the plan predicts the zeroed reading to be under the applied loads, mV/V, when the
     /// log carries them.
     pub predicted_mv_per_v: Option<Vec<f64>>,
@@ -400,6 +404,12 @@ fn channel_series(
         be.channel_load_per_mv_per_v()
     };
     let load = load_per_mv_per_v.map(|f| mv_per_v.iter().map(|m| m * f).collect());
+    let calibration_factor = match (&be.calibration, be.wanted_per_mv_per_v) {
+        (Some(c), Some(predicted)) if predicted != 0.0 && c.load_per_mv_per_v.is_finite() => {
+            c.load_per_mv_per_v / predicted
+        }
+        _ => 1.0,
+    };
     let predicted_mv_per_v = predicted_reading(be, &pe.name, applied, raw.len());
     ChannelSeries {
         part: pe.name.clone(),
@@ -416,6 +426,7 @@ fn channel_series(
         strain,
         load,
         load_per_mv_per_v,
+        calibration_factor,
         predicted_mv_per_v,
     }
 }
@@ -547,6 +558,7 @@ fn recovered_loads(
             .map(|row| {
                 let mut v = vec![0.0; len];
                 for (coef, ch) in row.iter().zip(&inputs) {
+                    let coef = coef * ch.calibration_factor;
                     for (o, s) in v.iter_mut().zip(&ch.strain) {
                         *o += coef * s;
                     }

@@ -193,14 +193,7 @@ fn rosettes_text(out: &mut String, r: &Reduction) {
     }
     let _ = writeln!(out, "\nRosettes (transverse sensitivity corrected):");
     for ro in &r.rosettes {
-        // At the largest predicted state when the log carries the applied loads (the peak of a
-        // measured series leans towards a noise spike), else at the measured peak.
-        let at = ro
-            .predicted
-            .as_ref()
-            .and_then(PrincipalSeries::peak_index)
-            .or_else(|| ro.measured.peak_index());
-        let Some(i) = at else {
+        let Some(i) = ro.summary_index() else {
             continue;
         };
         let _ = writeln!(

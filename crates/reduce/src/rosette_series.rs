@@ -51,6 +51,17 @@ pub struct PrincipalSeries {
     pub stress_2_pa: Vec<f64>,
 }
 
+impl RosetteSeries {
+    /// The sample a summary shows: the largest predicted state when the log carries the applied
+    /// loads (the largest measured value leans towards a noise spike), else the measured peak.
+    pub fn summary_index(&self) -> Option<usize> {
+        self.predicted
+            .as_ref()
+            .and_then(PrincipalSeries::peak_index)
+            .or_else(|| self.measured.peak_index())
+    }
+}
+
 impl PrincipalSeries {
     /// The index of the sample with the largest |ε1| or |ε2|.
     pub fn peak_index(&self) -> Option<usize> {

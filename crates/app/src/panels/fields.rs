@@ -308,10 +308,15 @@ pub fn read_optional(text: &str, unit: Unit, units: Units) -> Result<Option<f64>
     }
 }
 
-/// A stored optional number as typed text (empty: none).
+/// A stored optional number as typed text (empty: none), rounded to 12 significant digits so
+/// the unit conversion's last-bit noise (6.6000000000000005 GΩ) does not show.
 pub fn show_optional(v: Option<f64>, unit: Unit, units: Units) -> String {
     match v {
-        Some(v) if v.is_finite() => format!("{}", unit.show(units, v)),
+        Some(v) if v.is_finite() => {
+            let shown = unit.show(units, v);
+            let rounded = format!("{shown:.11e}").parse::<f64>().unwrap_or(shown);
+            format!("{rounded}")
+        }
         _ => String::new(),
     }
 }
@@ -341,4 +346,21 @@ pub fn optional_number<T>(
         field.label = format!("{label} ({suffix})");
     }
     field
+}
+
+#[cfg(test)]
+mod tests {
+    use super::{Unit, read_optional, show_optional};
+    use crate::units::Units;
+
+    #[test]
+    fn a_stored_value_shows_as_typed_without_conversion_noise() {
+        let gigaohm = Unit::Scaled(1e-9, "GΩ");
+        let microstrain = Unit::Scaled(1e6, "µε");
+        for (typed, unit) in [("6.6", gigaohm), ("15.6", gigaohm), ("-127.9", microstrain)] {
+            let stored = read_optional(typed, unit, Units::Si).unwrap();
+            assert_eq!(show_optional(stored, unit, Units::Si), typed);
+        }
+        assert_eq!(show_optional(None, gigaohm, Units::Si), "");
+    }
 }

@@ -277,9 +277,10 @@ fn reading_plot_ui(
         });
 }
 
-/// The principal values at the measured peak, measured against predicted.
+/// The principal values at the summary sample (the largest predicted state, or the measured
+/// peak without applied loads), measured against predicted.
 fn rosette_table_ui(ui: &mut egui::Ui, doc: &DocumentState, s: &RosetteSeries) {
-    let Some(i) = s.measured.peak_index() else {
+    let Some(i) = s.summary_index() else {
         ui.label("The rosette has no samples.");
         return;
     };
@@ -500,6 +501,17 @@ fn fit_rows(doc: &DocumentState, f: &CalibrationFit) -> Vec<(&'static str, Strin
             percent(f.hysteresis, f.hysteresis_u),
         ),
         ("Points", format!("{}", f.points.len())),
+        (
+            "Known loads",
+            match &f.source {
+                gw_reduce::calibration::StepSource::ReferenceColumn(c) => {
+                    format!("from the log's column \"{c}\"")
+                }
+                gw_reduce::calibration::StepSource::EnteredSteps => {
+                    "the steps entered in the bridge's record".to_owned()
+                }
+            },
+        ),
     ]
 }
 

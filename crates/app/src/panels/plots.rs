@@ -229,7 +229,7 @@ fn zero_and_conversion_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEva
         ui.label(note);
     }
     let q = Quantity::of(be.wanted);
-    match be.wanted_per_mv_per_v {
+    match be.channel_load_per_mv_per_v() {
         Some(f) => {
             // A ratio: scale only (a unit offset does not apply to a load per mV/V).
             let scale = doc.units.to_display(q, 1.0) - doc.units.to_display(q, 0.0);
@@ -240,8 +240,12 @@ fn zero_and_conversion_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEva
                 shown.abs().log10().floor() as i32
             };
             let decimals = (5 - magnitude).clamp(0, 9) as usize;
+            let source = match &be.calibration {
+                Some(_) => " (from the in-place calibration)",
+                None => "",
+            };
             ui.label(format!(
-                "{} per mV/V: {shown:.decimals$} {}",
+                "{} per mV/V: {shown:.decimals$} {}{source}",
                 capitalise(be.wanted.name()),
                 doc.units.label(q)
             ));

@@ -47,7 +47,7 @@ fn row(f: &CalibrationFit) -> Vec<String> {
             significant(per(f.predicted_sensitivity), digits)
         ),
         plus_minus(f.ratio, f.ratio_u, 4),
-        plus_minus(f.zero_mv_per_v, f.zero_u, 4),
+        plus_minus(f.zero_mv_per_v, f.zero_u, 5),
         fixed(f.nonlinearity * 100.0, 3),
         match (f.hysteresis, f.hysteresis_u) {
             (Some(h), Some(u)) => plus_minus(h * 100.0, u * 100.0, 3),
@@ -67,14 +67,18 @@ fn table(w: &mut ReportWriter, fits: &[CalibrationFit]) {
             "Predicted (mV/V)",
             "Fitted / predicted ± u",
             "Zero ± u (mV/V)",
-            "Non-linearity (% FS)",
+            "Nonlinearity (% FS)",
             "Hysteresis ± u (% FS)",
         ]
         .map(String::from)
         .to_vec(),
     ];
     rows.extend(fits.iter().map(row));
-    w.table(&[1.2, 0.9, 1.1, 1.35, 1.0, 0.9, 0.95, 0.7, 0.8], &rows, 7.0);
+    w.table(
+        &[1.15, 0.7, 1.0, 1.3, 1.0, 1.05, 1.0, 1.05, 0.85],
+        &rows,
+        7.0,
+    );
 }
 
 fn fit_plot(f: &CalibrationFit) -> Plot {

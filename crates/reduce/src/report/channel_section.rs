@@ -62,7 +62,7 @@ fn table(w: &mut ReportWriter, r: &Reduction) {
         .to_vec(),
     ];
     rows.extend(r.channels.iter().map(|c| row(r, c)));
-    w.table(&[0.35, 1.3, 0.75, 2.1, 1.05, 1.3, 0.85, 0.85], &rows, 7.5);
+    w.table(&[0.35, 1.3, 0.75, 1.95, 1.0, 1.3, 0.85, 1.0], &rows, 7.5);
 }
 
 /// The applied load a channel is plotted against: the one it measures on its part, else

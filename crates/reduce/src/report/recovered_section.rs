@@ -70,5 +70,5 @@ pub(super) fn draw(w: &mut ReportWriter, r: &Reduction) {
     for rec in &r.recovered {
         rows_of(r, rec, &mut rows);
     }
-    w.table(&[1.0, 1.0, 1.7, 0.9, 0.9, 0.8, 1.2], &rows, BODY_SIZE);
+    w.table(&[1.0, 1.0, 1.6, 0.9, 0.9, 0.95, 1.15], &rows, BODY_SIZE);
 }

@@ -57,7 +57,7 @@ fn rows(ro: &RosetteSeries, i: usize) -> Vec<Vec<String>> {
 /// One rosette.
 fn rosette(w: &mut ReportWriter, r: &Reduction, ro: &RosetteSeries) {
     w.subheading(&format!("Rosette {} on {}", ro.gauge, ro.part));
-    let Some(i) = ro.measured.peak_index() else {
+    let Some(i) = ro.summary_index() else {
         w.para(
             BODY_SIZE,
             false,
@@ -71,7 +71,8 @@ fn rosette(w: &mut ReportWriter, r: &Reduction, ro: &RosetteSeries) {
         false,
         &format!(
             "Grids 1, 2 and 3 read by {}; grid 1 at {}° from the part's x axis. At the sample of \
-             the largest principal strain, t = {} s. Each grid was corrected for its transverse \
+             the largest predicted principal strain (of the largest measured one when the log has \
+             no applied loads), t = {} s. Each grid was corrected for its transverse \
              sensitivity Kt = {} % before the reduction.{}",
             ro.bridges.join(", "),
             fixed(ro.orientation_rad.to_degrees(), 1),
