@@ -313,41 +313,35 @@ fn parse() -> Cli {
     cli
 }
 
-fn main() -> ExitCode {
-    let cli = parse();
-    match cli.command {
-        Some(Command::Check { file }) => return finish(gw_plan::cli::check(&file)),
-        Some(Command::Eval {
+/// Runs a subcommand and returns its exit status.
+fn run_subcommand(command: Command) -> ExitCode {
+    match command {
+        Command::Check { file } => finish(gw_plan::cli::check(&file)),
+        Command::Eval {
             file,
             json,
             monte_carlo,
-        }) => {
-            return finish(if json {
-                gw_plan::cli::eval_json(&file, monte_carlo)
-            } else {
-                gw_plan::cli::eval_summary(&file, monte_carlo)
-            });
-        }
-        Some(Command::Demo {
+        } => finish(if json {
+            gw_plan::cli::eval_json(&file, monte_carlo)
+        } else {
+            gw_plan::cli::eval_summary(&file, monte_carlo)
+        }),
+        Command::Demo {
             out,
             gallery,
             force,
-        }) => {
-            return finish(if gallery {
-                gw_plan::cli::write_gallery(&out, force)
-            } else {
-                gw_plan::cli::write_demo(&out, force)
-            });
-        }
-        Some(Command::Sheet {
+        } => finish(if gallery {
+            gw_plan::cli::write_gallery(&out, force)
+        } else {
+            gw_plan::cli::write_demo(&out, force)
+        }),
+        Command::Sheet {
             file,
             output,
             csv,
             force,
-        }) => {
-            return finish(gw_plan::cli::sheet(&file, &output, csv.as_deref(), force));
-        }
-        Some(Command::Reduce {
+        } => finish(gw_plan::cli::sheet(&file, &output, csv.as_deref(), force)),
+        Command::Reduce {
             plan,
             data,
             output,
@@ -355,7 +349,7 @@ fn main() -> ExitCode {
             records,
             zero,
             report,
-        }) => {
+        } => {
             let format = if json {
                 gw_reduce::cli::ReduceFormat::Json
             } else {
@@ -364,7 +358,7 @@ fn main() -> ExitCode {
             let options = gw_reduce::reduction::ReduceOptions {
                 zero: zero.zero_from(),
             };
-            return finish(gw_reduce::cli::reduce_command(
+            finish(gw_reduce::cli::reduce_command(
                 &gw_reduce::cli::ReduceFiles {
                     plan: &plan,
                     data: &data,
@@ -374,20 +368,24 @@ fn main() -> ExitCode {
                 },
                 format,
                 &options,
-            ));
+            ))
         }
-        Some(Command::Checkout {
+        Command::Checkout {
             plan,
             records,
             template,
-        }) => {
-            return finish(gw_reduce::cli::checkout(
-                &plan,
-                records.as_deref(),
-                template.as_deref(),
-            ));
-        }
-        None => {}
+        } => finish(gw_reduce::cli::checkout(
+            &plan,
+            records.as_deref(),
+            template.as_deref(),
+        )),
+    }
+}
+
+fn main() -> ExitCode {
+    let cli = parse();
+    if let Some(command) = cli.command {
+        return run_subcommand(command);
     }
     let options = eframe::NativeOptions {
         viewport: egui::ViewportBuilder::default()

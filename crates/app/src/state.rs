@@ -424,6 +424,23 @@ impl DocumentState {
                 gw_plan::arrangements::apply_ranked(p, bridge, &ranked);
                 true
             }
+            Command::SetRecords(_) | Command::SetLogPath(_) | Command::SetCalibration { .. } => {
+                self.edit_installation(command)
+            }
+            Command::Undo
+            | Command::Redo
+            | Command::SetUnits(_)
+            | Command::Select(_)
+            | Command::Focus(_)
+            | Command::FocusTest(_)
+            | Command::ReplaceProject { .. } => false,
+        }
+    }
+
+    /// The edits of what came back from the installation: records, the log's path, an
+    /// in-place calibration.
+    fn edit_installation(&mut self, command: Command) -> bool {
+        match command {
             Command::SetRecords(records) => {
                 let r = &mut self.project.records;
                 r.grids = records.grids;
@@ -442,13 +459,7 @@ impl DocumentState {
                 .bridge_mut(part, bridge)
                 .map(|b| b.calibration = calibration.map(|c| *c))
                 .is_some(),
-            Command::Undo
-            | Command::Redo
-            | Command::SetUnits(_)
-            | Command::Select(_)
-            | Command::Focus(_)
-            | Command::FocusTest(_)
-            | Command::ReplaceProject { .. } => false,
+            _ => false,
         }
     }
 

@@ -150,6 +150,50 @@ fn shunt(arm: usize, microstrain: f64) -> Option<ShuntPlan> {
     })
 }
 
+/// The reaction arm's gauges: four bending grids near the clamp, a shear pair on each side at
+/// mid-span, and a rosette between the neutral axis and the top edge.
+fn reaction_arm_gauges() -> Vec<PlanGauge> {
+    vec![
+        gauge(
+            "A1",
+            GaugePattern::SingleGrid,
+            Face::Top,
+            0.05,
+            -0.0075,
+            0.0,
+        ),
+        gauge(
+            "A2",
+            GaugePattern::SingleGrid,
+            Face::Bottom,
+            0.05,
+            -0.0075,
+            0.0,
+        ),
+        gauge("A3", GaugePattern::SingleGrid, Face::Top, 0.05, 0.0075, 0.0),
+        gauge(
+            "A4",
+            GaugePattern::SingleGrid,
+            Face::Bottom,
+            0.05,
+            0.0075,
+            0.0,
+        ),
+        gauge("S1", GaugePattern::ShearPair, Face::Front, 0.25, 0.0, 0.0),
+        gauge("S2", GaugePattern::ShearPair, Face::Back, 0.25, 0.0, 0.0),
+        // Between the neutral axis and the top edge, where bending and shear both act:
+        // the principal directions lean away from the arm's axis.
+        gauge(
+            "R1",
+            GaugePattern::RectangularRosette,
+            Face::Front,
+            0.15,
+            0.006,
+            0.0,
+        ),
+    ]
+}
+
 /// The reaction arm: a cantilevered rectangular bar with bending and shear bridges.
 fn reaction_arm() -> Part {
     use LoadComponent::*;
@@ -187,45 +231,7 @@ fn reaction_arm() -> Part {
                 true,
             ),
         ],
-        gauges: vec![
-            gauge(
-                "A1",
-                GaugePattern::SingleGrid,
-                Face::Top,
-                0.05,
-                -0.0075,
-                0.0,
-            ),
-            gauge(
-                "A2",
-                GaugePattern::SingleGrid,
-                Face::Bottom,
-                0.05,
-                -0.0075,
-                0.0,
-            ),
-            gauge("A3", GaugePattern::SingleGrid, Face::Top, 0.05, 0.0075, 0.0),
-            gauge(
-                "A4",
-                GaugePattern::SingleGrid,
-                Face::Bottom,
-                0.05,
-                0.0075,
-                0.0,
-            ),
-            gauge("S1", GaugePattern::ShearPair, Face::Front, 0.25, 0.0, 0.0),
-            gauge("S2", GaugePattern::ShearPair, Face::Back, 0.25, 0.0, 0.0),
-            // Between the neutral axis and the top edge, where bending and shear both act:
-            // the principal directions lean away from the arm's axis.
-            gauge(
-                "R1",
-                GaugePattern::RectangularRosette,
-                Face::Front,
-                0.15,
-                0.006,
-                0.0,
-            ),
-        ],
+        gauges: reaction_arm_gauges(),
         bridges: vec![
             bridge(
                 "Arm bending",

@@ -384,8 +384,43 @@ fn export_for_peer(
             })
         })
         .collect();
-    let rosettes: Vec<Value> = red
-        .rosettes
+    let rosettes = rosette_inputs(project, red);
+    let recovered: Vec<Value> = red
+        .recovered
+        .iter()
+        .map(|r| {
+            let m = ev
+                .parts
+                .iter()
+                .find(|p| p.name == r.part)
+                .and_then(|p| p.multi_axis.as_ref())
+                .expect("recovered loads come from the part's recovery matrix");
+            json!({
+                "part": r.part,
+                "channels": m.bridges.iter().map(|b| channel_index(b)).collect::<Vec<_>>(),
+                "recovery": m.recovery,
+            })
+        })
+        .collect();
+    let inputs = json!({
+        "samples": SAMPLES,
+        "columns": log.columns.len(),
+        "zero_window_s": ZERO_WINDOW_S,
+        "applied": applied,
+        "channels": channels,
+        "rosettes": rosettes,
+        "recovered": recovered,
+    });
+    std::fs::write(dir.join("inputs.json"), inputs.to_string())?;
+
+    let expected = expected_values(red);
+    std::fs::write(dir.join("expected.json"), expected.to_string())
+}
+
+/// What the peer needs of each rosette: its channels, reading map and elastic constants.
+fn rosette_inputs(project: &Project, red: &Reduction) -> Vec<Value> {
+    let channel_index = |bridge: &str| red.channels.iter().position(|c| c.bridge == bridge);
+    red.rosettes
         .iter()
         .map(|r| {
             let part = project
@@ -415,35 +450,11 @@ fn export_for_peer(
                 "poisson_ratio": material.poisson_ratio,
             })
         })
-        .collect();
-    let recovered: Vec<Value> = red
-        .recovered
-        .iter()
-        .map(|r| {
-            let m = ev
-                .parts
-                .iter()
-                .find(|p| p.name == r.part)
-                .and_then(|p| p.multi_axis.as_ref())
-                .expect("recovered loads come from the part's recovery matrix");
-            json!({
-                "part": r.part,
-                "channels": m.bridges.iter().map(|b| channel_index(b)).collect::<Vec<_>>(),
-                "recovery": m.recovery,
-            })
-        })
-        .collect();
-    let inputs = json!({
-        "samples": SAMPLES,
-        "columns": log.columns.len(),
-        "zero_window_s": ZERO_WINDOW_S,
-        "applied": applied,
-        "channels": channels,
-        "rosettes": rosettes,
-        "recovered": recovered,
-    });
-    std::fs::write(dir.join("inputs.json"), inputs.to_string())?;
+        .collect()
+}
 
+/// The reduced values at `CHECK_SAMPLES`, for the peer to compare its own with.
+fn expected_values(red: &Reduction) -> Value {
     let principal = |p: &gw_reduce::rosette_series::PrincipalSeries| {
         json!({
             "strain_1": at(&p.strain_1),
@@ -454,7 +465,7 @@ fn export_for_peer(
             "stress_2_pa": at(&p.stress_2_pa),
         })
     };
-    let expected = json!({
+    json!({
         "samples": CHECK_SAMPLES,
         "channels": red.channels.iter().map(|ch| json!({
             "zero_mv_per_v": ch.zero_mv_per_v,
@@ -470,8 +481,7 @@ fn export_for_peer(
         "recovered": red.recovered.iter().map(|r| {
             r.values.iter().map(|v| at(v)).collect::<Vec<_>>()
         }).collect::<Vec<_>>(),
-    });
-    std::fs::write(dir.join("expected.json"), expected.to_string())
+    })
 }
 
 criterion_group!(benches, bench);

@@ -14,11 +14,11 @@ use gw_plan::evaluate::{EvalOptions, Evaluation, evaluate};
 use gw_plan::io::load_project;
 use gw_plan::safe_write::{Backup, same_file, write_file};
 
-use crate::calibration::calibrate_all;
+use crate::calibration::{CalibrationError, CalibrationFit, calibrate_all};
 use crate::checkout::check_out;
 use crate::log::read_log_file;
 use crate::records_csv::{read_records_file, records_template};
-use crate::reduction::{ReduceOptions, reduce};
+use crate::reduction::{ReduceOptions, Reduction, reduce};
 use crate::report::{ReportInput, report_pdf};
 use crate::report_text::{reduction_csv, reduction_summary};
 
@@ -157,23 +157,8 @@ pub fn reduce_command(
         Err(e) => return failed(format!("error: {}: {e}\n", files.data.display())),
     };
     let (fits, fit_errors) = calibrate_all(&project, &ev, &reduction);
-    let body = match format {
-        ReduceFormat::Csv => reduction_csv(&reduction),
-        ReduceFormat::Json => {
-            let problems: Vec<String> = fit_errors.iter().map(|e| e.to_string()).collect();
-            let value = serde_json::json!({
-                "reduction": &reduction,
-                "calibrations": &fits,
-                "calibration_problems": problems,
-            });
-            match serde_json::to_string(&value) {
-                Ok(s) => s + "\n",
-                Err(e) => return failed(format!("error: could not write JSON: {e}\n")),
-            }
-        }
-    };
-    if let Err(e) = write_file(files.out, body.as_bytes(), Backup::Replace) {
-        return failed(format!("error: {e}\n"));
+    if let Err(e) = write_result(files.out, format, &reduction, &fits, &fit_errors) {
+        return failed(e);
     }
     let mut stdout = reduction_summary(&reduction, &fits);
     if let Some(path) = files.report {
@@ -224,4 +209,29 @@ fn records_hint(data: &Path) -> String {
     } else {
         String::new()
     }
+}
+
+/// Writes the result file: one row per sample, or everything as JSON.
+fn write_result(
+    out: &Path,
+    format: ReduceFormat,
+    reduction: &Reduction,
+    fits: &[CalibrationFit],
+    fit_errors: &[CalibrationError],
+) -> Result<(), String> {
+    let body = match format {
+        ReduceFormat::Csv => reduction_csv(reduction),
+        ReduceFormat::Json => {
+            let problems: Vec<String> = fit_errors.iter().map(|e| e.to_string()).collect();
+            let value = serde_json::json!({
+                "reduction": reduction,
+                "calibrations": fits,
+                "calibration_problems": problems,
+            });
+            serde_json::to_string(&value)
+                .map(|s| s + "\n")
+                .map_err(|e| format!("error: could not write JSON: {e}\n"))?
+        }
+    };
+    write_file(out, body.as_bytes(), Backup::Replace).map_err(|e| format!("error: {e}\n"))
 }

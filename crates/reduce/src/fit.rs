@@ -106,39 +106,9 @@ pub enum FitError {
 /// assert_eq!(fit.degrees_of_freedom, 2);
 /// ```
 pub fn fit_polynomial(x: &[f64], y: &[f64], degree: usize) -> Result<PolynomialFit, FitError> {
-    if x.len() != y.len() {
-        return Err(FitError::LengthMismatch {
-            x: x.len(),
-            y: y.len(),
-        });
-    }
+    check_inputs(x, y, degree)?;
     let n = x.len();
     let p = degree + 1;
-    if n < p + 1 {
-        return Err(FitError::TooFewPoints {
-            needed: p + 1,
-            got: n,
-        });
-    }
-    if let Some(index) = x
-        .iter()
-        .zip(y)
-        .position(|(a, b)| !a.is_finite() || !b.is_finite())
-    {
-        return Err(FitError::NotFinite { index });
-    }
-    if p >= 2 {
-        let distinct = count_distinct(x);
-        if distinct == 1 {
-            return Err(FitError::AllSameX);
-        }
-        if distinct < p {
-            return Err(FitError::TooFewDistinctX {
-                needed: p,
-                got: distinct,
-            });
-        }
-    }
 
     // Vandermonde matrix with each column scaled to unit norm.
     let mut design = DMatrix::from_fn(n, p, |i, k| x[i].powi(k as i32));
@@ -199,6 +169,45 @@ pub fn fit_polynomial(x: &[f64], y: &[f64], degree: usize) -> Result<PolynomialF
         r_squared,
         degrees_of_freedom,
     })
+}
+
+/// The inputs a fit of `degree` needs: as many x as y, finite, enough points and enough
+/// distinct x.
+fn check_inputs(x: &[f64], y: &[f64], degree: usize) -> Result<(), FitError> {
+    if x.len() != y.len() {
+        return Err(FitError::LengthMismatch {
+            x: x.len(),
+            y: y.len(),
+        });
+    }
+    let n = x.len();
+    let p = degree + 1;
+    if n < p + 1 {
+        return Err(FitError::TooFewPoints {
+            needed: p + 1,
+            got: n,
+        });
+    }
+    if let Some(index) = x
+        .iter()
+        .zip(y)
+        .position(|(a, b)| !a.is_finite() || !b.is_finite())
+    {
+        return Err(FitError::NotFinite { index });
+    }
+    if p >= 2 {
+        let distinct = count_distinct(x);
+        if distinct == 1 {
+            return Err(FitError::AllSameX);
+        }
+        if distinct < p {
+            return Err(FitError::TooFewDistinctX {
+                needed: p,
+                got: distinct,
+            });
+        }
+    }
+    Ok(())
 }
 
 /// Fits a straight line y ≈ b0 + b1 x by ordinary least squares: [`fit_polynomial`] of

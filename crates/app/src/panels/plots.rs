@@ -35,9 +35,12 @@ pub enum PlotView {
 #[derive(Default)]
 pub struct PlotsPanel {
     view: PlotView,
-    monte_carlo: Option<(u64, usize, usize, Result<BridgeUncertainty, String>)>,
+    monte_carlo: Option<MonteCarloRun>,
     measured: super::measured::MeasuredPanel,
 }
+
+/// A Monte Carlo result with what it was run for: the evaluation count, part and bridge.
+type MonteCarloRun = (u64, usize, usize, Result<BridgeUncertainty, String>);
 
 fn status_colour(s: MarginStatus) -> Color32 {
     match s {
@@ -56,42 +59,7 @@ impl PlotsPanel {
             measured,
         } = self;
         let sel = doc.selection;
-        ui.horizontal(|ui| {
-            for (v, name, help) in [
-                (
-                    PlotView::Output,
-                    "Output vs load",
-                    "Displayed strain over each load case's ramp, with the straight line",
-                ),
-                (
-                    PlotView::Temperature,
-                    "Temperature",
-                    "Apparent strain against temperature, by cause",
-                ),
-                (
-                    PlotView::Margins,
-                    "Margins",
-                    "Utilisation of every limit at the selected load case",
-                ),
-                (
-                    PlotView::Uncertainty,
-                    "Uncertainty",
-                    "Contributions to the uncertainty of the inferred load",
-                ),
-                (
-                    PlotView::Cancellation,
-                    "What cancels what",
-                    "Each bridge's response to every load component",
-                ),
-                (
-                    PlotView::Measured,
-                    "Measured",
-                    "The check-out records and the test log against the plan",
-                ),
-            ] {
-                ui.selectable_value(view, v, name).on_hover_text(help);
-            }
-        });
+        view_tabs_ui(ui, view);
         ui.separator();
         if *view == PlotView::Measured {
             measured.measured_ui(ui, doc, out);
@@ -127,28 +95,83 @@ impl PlotsPanel {
             PlotView::Output => output_ui(ui, doc, be),
             PlotView::Temperature => temperature_ui(ui, be),
             PlotView::Margins => margins_ui(ui, doc, be),
-            PlotView::Uncertainty => {
-                uncertainty_ui(ui, doc, be);
-                ui.separator();
-                let bridge = sel.bridge.unwrap_or(0);
-                if ui.button("Run Monte Carlo (20 000 trials)").on_hover_text("Propagate the same inputs by random sampling (JCGM 101:2008); takes a few seconds").clicked() {
-                    let r = gw_plan::evaluate::monte_carlo_for(&doc.project, sel.part, bridge, 20_000);
-                    *monte_carlo = Some((doc.evaluations, sel.part, bridge, r));
-                }
-                if let Some((n, p, b, r)) = monte_carlo.as_ref()
-                    && *n == doc.evaluations
-                    && *p == sel.part
-                    && *b == bridge
-                {
-                    match r {
-                        Ok(u) => histogram_ui(ui, doc, be, u),
-                        Err(e) => {
-                            ui.colored_label(palette::FAIL, e);
-                        }
-                    }
-                }
-            }
+            PlotView::Uncertainty => uncertainty_with_monte_carlo_ui(ui, doc, be, monte_carlo),
             PlotView::Cancellation | PlotView::Measured => {}
+        }
+    }
+}
+
+/// The row of result views.
+fn view_tabs_ui(ui: &mut egui::Ui, view: &mut PlotView) {
+    ui.horizontal(|ui| {
+        for (v, name, help) in [
+            (
+                PlotView::Output,
+                "Output vs load",
+                "Displayed strain over each load case's ramp, with the straight line",
+            ),
+            (
+                PlotView::Temperature,
+                "Temperature",
+                "Apparent strain against temperature, by cause",
+            ),
+            (
+                PlotView::Margins,
+                "Margins",
+                "Utilisation of every limit at the selected load case",
+            ),
+            (
+                PlotView::Uncertainty,
+                "Uncertainty",
+                "Contributions to the uncertainty of the inferred load",
+            ),
+            (
+                PlotView::Cancellation,
+                "What cancels what",
+                "Each bridge's response to every load component",
+            ),
+            (
+                PlotView::Measured,
+                "Measured",
+                "The check-out records and the test log against the plan",
+            ),
+        ] {
+            ui.selectable_value(view, v, name).on_hover_text(help);
+        }
+    });
+}
+
+/// The uncertainty budget, and the Monte Carlo check on demand.
+fn uncertainty_with_monte_carlo_ui(
+    ui: &mut egui::Ui,
+    doc: &DocumentState,
+    be: &BridgeEvaluation,
+    monte_carlo: &mut Option<MonteCarloRun>,
+) {
+    let sel = doc.selection;
+    uncertainty_ui(ui, doc, be);
+    ui.separator();
+    let bridge = sel.bridge.unwrap_or(0);
+    if ui
+        .button("Run Monte Carlo (20 000 trials)")
+        .on_hover_text(
+            "Propagate the same inputs by random sampling (JCGM 101:2008); takes a few seconds",
+        )
+        .clicked()
+    {
+        let r = gw_plan::evaluate::monte_carlo_for(&doc.project, sel.part, bridge, 20_000);
+        *monte_carlo = Some((doc.evaluations, sel.part, bridge, r));
+    }
+    if let Some((n, p, b, r)) = monte_carlo.as_ref()
+        && *n == doc.evaluations
+        && *p == sel.part
+        && *b == bridge
+    {
+        match r {
+            Ok(u) => histogram_ui(ui, doc, be, u),
+            Err(e) => {
+                ui.colored_label(palette::FAIL, e);
+            }
         }
     }
 }
