@@ -38,8 +38,6 @@ const ZERO_WINDOW_S: f64 = 1.0;
 /// Largest pull of the invented test, N; one cycle every `PULL_PERIOD_S`.
 const PULL_PEAK_N: f64 = 6000.0;
 const PULL_PERIOD_S: f64 = 200.0;
-/// Drum radius: drive torque = pull × radius, m (as the demo's example log).
-const DRUM_RADIUS_M: f64 = 0.25;
 
 fn placed(id: &str, pattern: GaugePattern, face: Face, x_m: f64, s_m: f64) -> PlanGauge {
     PlanGauge {
@@ -175,22 +173,6 @@ impl Noise {
     }
 }
 
-fn loads_at(part: &str, pull_n: f64) -> Vec<(LoadComponent, f64)> {
-    let f = pull_n / PULL_PEAK_N;
-    match part {
-        "Reaction arm" => vec![
-            (LoadComponent::VerticalForce, pull_n),
-            (LoadComponent::AxialForce, 1500.0 * f),
-        ],
-        "Drum drive shaft" => vec![
-            (LoadComponent::Torque, pull_n * DRUM_RADIUS_M),
-            (LoadComponent::BendingMomentY, 250.0 * f),
-        ],
-        "Accumulator shell" => vec![(LoadComponent::InternalPressure, 14e6 * f)],
-        _ => Vec::new(),
-    }
-}
-
 fn per_unit(be: &BridgeEvaluation, component: LoadComponent) -> f64 {
     be.sensitivities
         .iter()
@@ -244,7 +226,7 @@ fn long_log(ev: &Evaluation) -> TestLog {
     let mut noise = Noise(0x5eed_0016_0000_0001);
     for pe in &ev.parts {
         for be in &pe.bridges {
-            let full = loads_at(&pe.name, 1.0);
+            let full = gw_reduce::example::loads_at(&pe.name, 1.0);
             let per_newton: f64 = full.iter().map(|(c, v)| per_unit(be, *c) * v).sum();
             let (unit, unit_text, to_mv_per_v) = unit_of(be);
             let zero_mv_per_v = 0.002 * be.channel_number as f64;

@@ -73,7 +73,7 @@ fn pull_at(t_s: f64) -> f64 {
 /// The loads on each part at a pull: the arm carries the pull and a quarter of it along its
 /// axis, the drive shaft the pull times the drum radius and a bending moment in proportion,
 /// the shell a pressure in proportion (the rated case's ratios of the demo).
-fn loads_at(part: &str, pull_n: f64) -> Vec<(LoadComponent, f64)> {
+pub fn loads_at(part: &str, pull_n: f64) -> Vec<(LoadComponent, f64)> {
     let f = pull_n / 6000.0;
     match part {
         "Reaction arm" => vec![
