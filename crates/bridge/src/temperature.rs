@@ -41,15 +41,43 @@ pub fn thermal_sweep(
     steps: usize,
     full_load: &LoadVector,
 ) -> Result<Vec<ThermalPoint>, BridgeError> {
+    let steps = steps.max(1);
+    let changes: Vec<f64> = (0..=steps)
+        .map(|i| low_c + (high_c - low_c) * i as f64 / steps as f64)
+        .collect();
+    thermal_sweep_at(model, &changes, full_load)
+}
+
+/// The temperature changes of a sweep from `low_c` to `high_c` in at least `steps` steps,
+/// with the reference (a change of zero) among them whenever the range holds it, so that a
+/// curve with a corner at the reference (the magnitude of an uncompensated sum) is drawn
+/// with its corner in place.
+pub fn sweep_changes(low_c: f64, high_c: f64, steps: usize) -> Vec<f64> {
+    let steps = steps.max(1);
+    let mut changes: Vec<f64> = (0..=steps)
+        .map(|i| low_c + (high_c - low_c) * i as f64 / steps as f64)
+        .collect();
+    if low_c < 0.0 && high_c > 0.0 && !changes.contains(&0.0) {
+        let at = changes.partition_point(|&dt| dt < 0.0);
+        changes.insert(at, 0.0);
+    }
+    changes
+}
+
+/// The apparent strain and its causes at each temperature change of `changes_c` (relative to
+/// the reference); `full_load` is the load case used to show gauge-factor drift.
+pub fn thermal_sweep_at(
+    model: &BridgeModel,
+    changes_c: &[f64],
+    full_load: &LoadVector,
+) -> Result<Vec<ThermalPoint>, BridgeError> {
     let b = model.bridge();
     let t_ref = model.reference_temperature_c();
-    let steps = steps.max(1);
     let mut mechanical_full = *full_load;
     mechanical_full[LoadComponent::TemperatureChange] = 0.0;
     let full_at_ref = model.displayed(&mechanical_full)?;
-    let mut out = Vec::with_capacity(steps + 1);
-    for i in 0..=steps {
-        let dt = low_c + (high_c - low_c) * i as f64 / steps as f64;
+    let mut out = Vec::with_capacity(changes_c.len());
+    for &dt in changes_c {
         let t = t_ref + dt;
         let ArmSplit {
             lot,
@@ -140,4 +168,18 @@ fn arm_split(model: &BridgeModel, dt: f64) -> ArmSplit {
         }
     }
     split
+}
+
+#[cfg(test)]
+mod sweep_tests {
+    use super::sweep_changes;
+
+    #[test]
+    fn a_sweep_across_the_reference_holds_it() {
+        let c = sweep_changes(-30.0, 20.0, 7);
+        assert!(c.contains(&0.0));
+        assert_eq!(c.len(), 9);
+        assert!(c.windows(2).all(|w| w[0] < w[1]));
+        assert_eq!(sweep_changes(5.0, 20.0, 3), vec![5.0, 10.0, 15.0, 20.0]);
+    }
 }

@@ -109,12 +109,10 @@ pub fn chooser_request(
         .filter(|(c, _)| *c != plan.wanted && *c != LoadComponent::TemperatureChange)
         .copied()
         .collect();
-    let range = part
-        .load_cases
-        .iter()
-        .map(|c| c.temperature_range_c)
-        .reduce(|a, b| (a.0.min(b.0), a.1.max(b.1)))
-        .unwrap_or((-20.0, 40.0));
+    // Part temperatures in the document; the chooser works in changes from the reference.
+    let t_ref = project.reference_temperature_c;
+    let range = crate::document::temperature_span(&part.load_cases)
+        .map_or((-20.0, 40.0), |(lo, hi)| (lo - t_ref, hi - t_ref));
     let spec = catalogue_spec(project, part);
     Ok(gw_bridge::chooser::ChooserRequest {
         wanted: plan.wanted,

@@ -11,8 +11,9 @@ use serde::{Deserialize, Serialize};
 pub use crate::installation::{BridgeRecord, GridRecord, InPlaceCalibration, InstallationRecords};
 
 /// The format version this build writes. Version 1 files (gauge data inside every gauge, a
-/// typed bridge factor) are read and migrated by [`crate::io`].
-pub const FORMAT_VERSION: u32 = 2;
+/// typed bridge factor) and version 2 files (temperature ranges as changes from the
+/// reference) are read and migrated by [`crate::io`].
+pub const FORMAT_VERSION: u32 = 3;
 
 /// Paper size for the build sheet. Default: A4.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
@@ -160,7 +161,9 @@ pub struct LoadCase {
     /// Points on the ramp from zero to full load for plots.
     #[serde(default = "default_ramp")]
     pub ramp_steps: u32,
-    /// Temperature range for apparent-strain plots, as changes from the reference, °C.
+    /// The part's temperature range during the case (low, high), absolute, °C: the span of
+    /// the apparent-strain plots and the temperature error. (Format versions 1 and 2 stored
+    /// changes from the reference; reading them adds the reference.)
     pub temperature_range_c: (f64, f64),
     /// Whether the case is applied many times (fatigue margins apply).
     #[serde(default)]
@@ -172,6 +175,14 @@ pub struct LoadCase {
 
 fn default_ramp() -> u32 {
     10
+}
+
+/// The union of the load cases' part-temperature ranges, °C; `None` without cases.
+pub fn temperature_span(cases: &[LoadCase]) -> Option<(f64, f64)> {
+    cases
+        .iter()
+        .map(|c| c.temperature_range_c)
+        .reduce(|a, b| (a.0.min(b.0), a.1.max(b.1)))
 }
 
 impl LoadCase {

@@ -6,7 +6,7 @@ use gw_bridge::margins::{Margin, MarginKind, MarginStatus};
 use gw_bridge::multi_axis::{MultiAxis, multi_axis};
 use gw_bridge::shunt::{ShuntCalibration, shunt_calibration};
 use gw_bridge::signal_chain::{ChannelFigures, adc_volts, channel_figures};
-use gw_bridge::temperature::{ThermalPoint, thermal_sweep};
+use gw_bridge::temperature::ThermalPoint;
 use gw_bridge::zero_band::{ZeroBand, ZeroBandLimit, zero_band_of_model};
 use gw_bridge::{ArmElement, BridgeModel, Reading, Setup};
 use gw_mechanics::{LoadComponent, LoadVector, QuadratureOrder};
@@ -49,7 +49,7 @@ impl Default for EvalOptions {
             monte_carlo_trials: 0,
             quadrature: QuadratureOrder::default(),
             peak_samples: 24,
-            temperature_steps: 8,
+            temperature_steps: 60,
         }
     }
 }
@@ -332,7 +332,7 @@ fn evaluate_part(
     }
     let cases = case_figures(project, pi, part, options, findings);
     let gauges = project.placed_gauges(part);
-    curve_range_findings(project, pi, part, &gauges, findings);
+    curve_range_findings(pi, part, &gauges, findings);
     crate::placement::placement_findings(pi, part, &gauges, options.quadrature, findings);
     let setup = Setup {
         member,
@@ -529,7 +529,6 @@ fn multi_axis_of(
 /// Warns where a load case's temperatures leave the range a gauge's thermal-output curve was
 /// measured over: the apparent strain there is an extrapolation of the polynomial.
 fn curve_range_findings(
-    project: &Project,
     pi: usize,
     part: &Part,
     gauges: &[gw_bridge::PlacedGauge],
@@ -540,8 +539,7 @@ fn curve_range_findings(
             continue;
         };
         for case in &part.load_cases {
-            let t0 = project.reference_temperature_c + case.temperature_range_c.0;
-            let t1 = project.reference_temperature_c + case.temperature_range_c.1;
+            let (t0, t1) = case.temperature_range_c;
             if !(g.spec.thermal_output.covers(t0) && g.spec.thermal_output.covers(t1)) {
                 findings.push(Finding {
                     severity: Severity::Warn,
@@ -651,11 +649,11 @@ fn evaluate_bridge(
         findings,
     );
     let rejection = rejections(&sensitivities, expected, b.wanted, s_w, m_w);
-    let (lo, hi) = part
-        .load_cases
-        .first()
-        .map(|c| c.temperature_range_c)
-        .unwrap_or((-20.0, 40.0));
+    // The cases' ranges are part temperatures; the bridge model works in changes from the
+    // reference.
+    let t_ref = project.reference_temperature_c;
+    let (lo, hi) = crate::document::temperature_span(&part.load_cases)
+        .map_or((-20.0, 40.0), |(a, b)| (a - t_ref, b - t_ref));
     let full_case = part
         .load_cases
         .iter()
@@ -663,7 +661,8 @@ fn evaluate_bridge(
     let full = full_case
         .map(|c| c.load_vector())
         .unwrap_or(LoadVector::ZERO);
-    let temperature = thermal_sweep(model, lo, hi, options.temperature_steps, &full)?;
+    let changes = gw_bridge::temperature::sweep_changes(lo, hi, options.temperature_steps);
+    let temperature = gw_bridge::temperature::thermal_sweep_at(model, &changes, &full)?;
     let shunt = shunt_calibration(model)?;
     let uncertainty = uncertainty_at(
         part, model, &channel, options, full_case, &place, target, findings,

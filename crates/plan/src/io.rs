@@ -70,7 +70,14 @@ fn parse_version(text: &str, from: u32) -> Result<Project, PlanError> {
         1 => {
             let v1: crate::migrate::ProjectV1 =
                 ron::from_str(text).map_err(|e| syntax(&e, text))?;
-            Ok(v1.upgrade())
+            let mut project = v1.upgrade();
+            crate::migrate::ranges_to_part_temperatures(&mut project);
+            Ok(project)
+        }
+        2 => {
+            let mut project: Project = ron::from_str(text).map_err(|e| syntax(&e, text))?;
+            crate::migrate::ranges_to_part_temperatures(&mut project);
+            Ok(project)
         }
         FORMAT_VERSION => ron::from_str(text).map_err(|e| syntax(&e, text)),
         found => Err(PlanError::UnknownVersion {

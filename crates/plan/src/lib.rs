@@ -32,6 +32,7 @@ pub mod parse_errors;
 pub mod placement;
 pub mod safe_write;
 pub mod sheet;
+pub mod units;
 pub mod validate;
 pub mod wiring;
 

@@ -4,6 +4,10 @@
 //! every bridge. Version 2 keeps gauge data once, in the project's gauge stock, and computes
 //! the bridge factor from the arrangement and the part; a version-1 factor that differs from
 //! the computed one is kept as an override with its reason, so the evaluation does not change.
+//!
+//! Versions 1 and 2 stored each load case's temperature range as changes from the reference
+//! temperature; version 3 stores the part's own temperatures, so reading an older file adds
+//! the reference to both ends (the evaluation does not change).
 
 use gw_bridge::bridge_uncertainty::InstallationTolerances;
 use gw_bridge::{
@@ -91,6 +95,17 @@ struct BridgePlanV1 {
     shunt: Option<ShuntPlan>,
     #[serde(default)]
     channel: u32,
+}
+
+/// Turns load-case temperature ranges stored as changes from the reference (versions 1 and 2)
+/// into part temperatures (version 3), and marks the project as the current version.
+pub(crate) fn ranges_to_part_temperatures(project: &mut Project) {
+    let t_ref = project.reference_temperature_c;
+    for case in project.parts.iter_mut().flat_map(|p| p.load_cases.iter_mut()) {
+        let (lo, hi) = case.temperature_range_c;
+        case.temperature_range_c = (lo + t_ref, hi + t_ref);
+    }
+    project.format_version = FORMAT_VERSION;
 }
 
 impl ProjectV1 {

@@ -65,14 +65,15 @@ pub fn validate_temperatures(part: &Part, t_ref: f64) -> Result<(), PlanError> {
     for case in &part.load_cases {
         let dt = case.value(LoadComponent::TemperatureChange);
         let lowest = (t_ref + dt)
-            .min(t_ref + case.temperature_range_c.0)
-            .min(t_ref + case.temperature_range_c.1);
+            .min(case.temperature_range_c.0)
+            .min(case.temperature_range_c.1);
         if lowest < ABSOLUTE_ZERO_C {
             return Err(invalid(
                 format!("part \"{}\" › load case \"{}\"", part.name, case.name),
                 format!(
-                    "takes the part to {lowest:.2} °C, below absolute zero (−273.15 °C); \
-                     temperatures here are changes from the reference {t_ref} °C"
+                    "takes the part to {lowest:.2} °C, below absolute zero (−273.15 °C); the \
+                     temperature change counts from the reference {t_ref} °C, the range is the \
+                     part's own temperature"
                 ),
             ));
         }
@@ -283,8 +284,8 @@ fn validate_load_cases(part: &Part, here: &str) -> Result<(), PlanError> {
             return Err(invalid(
                 at,
                 format!(
-                    "temperature range {lo} to {hi} °C must run from low to high, within ±1000 °C \
-                     of the reference"
+                    "part temperature range {lo} to {hi} °C must run from low to high, within \
+                     −1000 to 1000 °C"
                 ),
             ));
         }

@@ -86,11 +86,11 @@ fn load_the_part_cannot_carry_is_named() {
 
 #[test]
 fn unknown_format_version_says_which_versions_are_read() {
-    let text = demo_text().replacen("format_version: 2", "format_version: 7", 1);
+    let text = demo_text().replacen("format_version: 3", "format_version: 7", 1);
     let e = project_from_str(&text).unwrap_err();
     assert_eq!(
         e.to_string(),
-        "format version 7 is not known to this Gaugewright, which reads versions 1 to 2; open it with a newer Gaugewright"
+        "format version 7 is not known to this Gaugewright, which reads versions 1 to 3; open it with a newer Gaugewright"
     );
 }
 

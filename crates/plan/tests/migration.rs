@@ -32,6 +32,13 @@ fn the_version_1_demo_opens_and_evaluates_like_the_current_demo() {
     }
     demo.gauge_stock
         .retain(|s| s.spec.pattern != gw_bridge::GaugePattern::RectangularRosette);
+    // The version-1 file holds the demo's ranges as changes from the reference, so once read
+    // they are the demo's numbers plus the reference.
+    let t_ref = demo.reference_temperature_c;
+    for case in demo.parts.iter_mut().flat_map(|p| &mut p.load_cases) {
+        let (lo, hi) = case.temperature_range_c;
+        case.temperature_range_c = (lo + t_ref, hi + t_ref);
+    }
     let b = evaluate(&demo, &options);
     assert_eq!(
         serde_json::to_string(&a).unwrap(),
@@ -83,4 +90,36 @@ fn a_typed_version_1_bridge_factor_that_differs_is_kept_with_its_reason() {
     assert!(o.reason.contains("version-1"));
     let ev = evaluate(&p, &EvalOptions::default());
     assert!((ev.parts[0].bridges[0].bridge_factor - 3.5).abs() < 1e-12);
+}
+
+#[test]
+fn a_version_2_file_reads_its_temperature_changes_as_part_temperatures_and_evaluates_the_same() {
+    // A version-2 file stored each case's range as changes from the reference: write the demo
+    // that way and read it back.
+    let demo = gw_plan::demo::demo_project();
+    let t_ref = demo.reference_temperature_c;
+    let mut old = demo.clone();
+    old.format_version = 2;
+    for case in old.parts.iter_mut().flat_map(|p| &mut p.load_cases) {
+        let (lo, hi) = case.temperature_range_c;
+        case.temperature_range_c = (lo - t_ref, hi - t_ref);
+    }
+    let text = project_to_string(&old).unwrap();
+    assert!(text.contains("format_version: 2"));
+    let read = project_from_str(&text).unwrap();
+    assert_eq!(read.format_version, FORMAT_VERSION);
+    for (a, b) in read
+        .parts
+        .iter()
+        .flat_map(|p| &p.load_cases)
+        .zip(demo.parts.iter().flat_map(|p| &p.load_cases))
+    {
+        assert!((a.temperature_range_c.0 - b.temperature_range_c.0).abs() < 1e-9);
+        assert!((a.temperature_range_c.1 - b.temperature_range_c.1).abs() < 1e-9);
+    }
+    let options = EvalOptions::default();
+    assert_eq!(
+        serde_json::to_string(&evaluate(&read, &options)).unwrap(),
+        serde_json::to_string(&evaluate(&demo, &options)).unwrap()
+    );
 }
