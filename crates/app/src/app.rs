@@ -223,6 +223,16 @@ impl GaugewrightApp {
         self.part_view.turn(delta);
     }
 
+    /// Shows one results tab (when the Results view is open).
+    pub fn show_results(&mut self, view: crate::panels::plots::PlotView) {
+        self.plots.show(view);
+    }
+
+    /// Shows values in a unit system for this run (the remembered choice is not changed).
+    pub fn show_units(&mut self, units: Units) {
+        self.doc.units = units;
+    }
+
     /// Turns the part view to a preset view.
     pub fn look_from(&mut self, preset: crate::panels::part_view::Preset) {
         self.part_view.look_from(preset);

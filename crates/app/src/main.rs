@@ -1,6 +1,8 @@
 //! The `gaugewright` binary: the desktop app, and the command line for scripts.
 
 use gw_app::panels::part_view::Preset;
+use gw_app::panels::plots::PlotView;
+use gw_app::units::Units;
 use gw_app::{GaugewrightApp, app::Tab, screenshot, settings::AppPaths};
 
 use std::io::Write;
@@ -52,6 +54,12 @@ struct Cli {
     /// Which part to show first, counted from 1 in the plan tree's order.
     #[arg(long, value_name = "N", value_parser = clap::value_parser!(u32).range(1..))]
     part: Option<u32>,
+    /// Which results tab to show first (with --view results).
+    #[arg(long, value_name = "TAB", value_enum, default_value_t = ResultsTab::Output)]
+    results: ResultsTab,
+    /// Display units for this run (the remembered choice otherwise).
+    #[arg(long, value_name = "SYSTEM", value_enum)]
+    units: Option<UnitsArg>,
     #[command(subcommand)]
     command: Option<Command>,
 }
@@ -72,6 +80,45 @@ fn project_file(path: PathBuf) -> Result<PathBuf, String> {
         ));
     }
     Ok(path)
+}
+
+/// The results tabs `--results` can open on.
+#[derive(Clone, Copy, Debug, clap::ValueEnum)]
+enum ResultsTab {
+    /// Output against load, with the error against the required accuracy.
+    Output,
+    /// Apparent strain against the part temperature.
+    Temperature,
+    /// Utilisation of every limit.
+    Margins,
+    /// The uncertainty budget.
+    Uncertainty,
+    /// What cancels what.
+    Cancellation,
+    /// Check-out and test log against the plan.
+    Measured,
+}
+
+impl ResultsTab {
+    fn plot_view(self) -> PlotView {
+        match self {
+            ResultsTab::Output => PlotView::Output,
+            ResultsTab::Temperature => PlotView::Temperature,
+            ResultsTab::Margins => PlotView::Margins,
+            ResultsTab::Uncertainty => PlotView::Uncertainty,
+            ResultsTab::Cancellation => PlotView::Cancellation,
+            ResultsTab::Measured => PlotView::Measured,
+        }
+    }
+}
+
+/// The unit systems `--units` can show.
+#[derive(Clone, Copy, Debug, clap::ValueEnum)]
+enum UnitsArg {
+    /// mm, N, N·m, MPa, °C.
+    Si,
+    /// in, lbf, lbf·in, psi, °F.
+    Us,
 }
 
 /// The views `--view` can open on. Each maps to one tab of the app.
@@ -397,6 +444,11 @@ fn main() -> ExitCode {
     let tab = cli.view.tab();
     let part = cli.part.map(|n| n as usize - 1);
     let preset = cli.camera.preset();
+    let results = cli.results.plot_view();
+    let units = cli.units.map(|u| match u {
+        UnitsArg::Si => Units::Si,
+        UnitsArg::Us => Units::UsCustomary,
+    });
     let file = cli.file;
     let screenshot = cli.screenshot.map(screenshot::ScreenshotRequest::new);
     let outcome = screenshot.as_ref().map(|r| r.outcome());
@@ -414,6 +466,10 @@ fn main() -> ExitCode {
                 app.open_path(path);
             }
             app.tab = tab;
+            app.show_results(results);
+            if let Some(u) = units {
+                app.show_units(u);
+            }
             app.look_from(preset);
             if let Some(part) = part {
                 app.show_part(part);

@@ -2,6 +2,7 @@
 //! temperature, margins, uncertainty, what cancels what, and the multi-bridge matrix.
 
 mod cancellation;
+pub mod export;
 mod margins;
 mod output;
 mod temperature;
@@ -58,6 +59,11 @@ fn status_colour(s: MarginStatus) -> Color32 {
 }
 
 impl PlotsPanel {
+    /// Shows one results tab.
+    pub fn show(&mut self, view: PlotView) {
+        self.view = view;
+    }
+
     /// Draws the plots of the selected bridge.
     pub fn plots_ui(&mut self, ui: &mut egui::Ui, doc: &DocumentState, out: &mut Vec<Command>) {
         let Self {
