@@ -143,6 +143,8 @@ pub struct GaugewrightApp {
     face_view: FaceView,
     bridges: BridgesPanel,
     plots: PlotsPanel,
+    /// Where the view in the centre was drawn last frame (tests check that texts stay in it).
+    pub view_rect: egui::Rect,
     findings: FindingsPanel,
     help: HelpPanel,
     settings: Settings,
@@ -208,6 +210,7 @@ impl GaugewrightApp {
             face_view: FaceView::default(),
             bridges: BridgesPanel::default(),
             plots: PlotsPanel::default(),
+            view_rect: egui::Rect::NOTHING,
             findings: FindingsPanel,
             help: HelpPanel,
             settings: Settings::default(),
@@ -790,24 +793,32 @@ impl GaugewrightApp {
             .show(ui, |ui| {
                 self.inspector.inspector_ui(ui, &self.doc, &mut out);
             });
-        egui::CentralPanel::default().show(ui, |ui| match self.tab {
+        egui::CentralPanel::default().show(ui, |ui| {
+            self.view_rect = ui.max_rect();
+            self.view_ui(ui, &mut out);
+        });
+        self.modal_ui(ui);
+        self.finish_frame(ui, out);
+    }
+
+    /// The view in the centre: the tab shown.
+    fn view_ui(&mut self, ui: &mut egui::Ui, out: &mut Vec<Command>) {
+        match self.tab {
             Tab::Part => {
-                if let Some(face) = self
-                    .part_view
-                    .part_ui(ui, &self.doc, &mut self.map, &mut out)
-                {
+                if let Some(face) = self.part_view.part_ui(ui, &self.doc, &mut self.map, out) {
                     self.face_view.show_face(self.doc.selection.part, face);
                     self.tab = Tab::Face;
                 }
             }
-            Tab::Face => self
-                .face_view
-                .face_ui(ui, &self.doc, &mut self.map, &mut out),
-            Tab::Bridges => self.bridges.bridges_ui(ui, &self.doc, &mut out),
-            Tab::Results => self.plots.plots_ui(ui, &self.doc, &mut out),
+            Tab::Face => self.face_view.face_ui(ui, &self.doc, &mut self.map, out),
+            Tab::Bridges => self.bridges.bridges_ui(ui, &self.doc, out),
+            Tab::Results => self.plots.plots_ui(ui, &self.doc, out),
             Tab::Help => self.help.help_ui(ui, &self.doc),
-        });
-        self.modal_ui(ui);
+        }
+    }
+
+    /// After the panels: apply the commands they emitted, title, autosave, screenshot.
+    fn finish_frame(&mut self, ui: &mut egui::Ui, out: Vec<Command>) {
         if !out.is_empty() {
             let before = self.doc.evaluations;
             self.doc.apply_all(out);
