@@ -12,6 +12,7 @@ use crate::panels::map::MapSettings;
 use crate::panels::new_project::{NewProjectDialog, NewProjectOutcome};
 use crate::panels::part_view::PartView;
 use crate::panels::plots::PlotsPanel;
+use crate::panels::plots::export::{ExportRequest, PlotExport};
 use crate::panels::tree::TreePanel;
 use crate::screenshot::ScreenshotRequest;
 use crate::settings::{AppPaths, Settings};
@@ -71,6 +72,10 @@ pub enum PathPurpose {
     Template,
     /// Import a test log (CSV).
     Log,
+    /// Save the picture of a plot (PNG).
+    PlotPicture,
+    /// Save the numbers of a plot (CSV).
+    PlotData,
 }
 
 impl PathPurpose {
@@ -83,6 +88,8 @@ impl PathPurpose {
             PathPurpose::Records => "Import the filled-in check-out records from this CSV file:",
             PathPurpose::Template => "Write the check-out records template to this CSV file:",
             PathPurpose::Log => "Import the test log from this CSV file:",
+            PathPurpose::PlotPicture => "Save the picture of the plot to this PNG file:",
+            PathPurpose::PlotData => "Save the data of the plot to this CSV file:",
         }
     }
 
@@ -93,6 +100,8 @@ impl PathPurpose {
             PathPurpose::Sheet => "/path/to/build_sheet.pdf",
             PathPurpose::Records | PathPurpose::Template => "/path/to/checkout_records.csv",
             PathPurpose::Log => "/path/to/test_log.csv",
+            PathPurpose::PlotPicture => "/path/to/plot.png",
+            PathPurpose::PlotData => "/path/to/plot.csv",
         }
     }
 
@@ -104,6 +113,7 @@ impl PathPurpose {
             PathPurpose::Sheet => "Export",
             PathPurpose::Records | PathPurpose::Log => "Import",
             PathPurpose::Template => "Write",
+            PathPurpose::PlotPicture | PathPurpose::PlotData => "Save",
         }
     }
 }
@@ -150,6 +160,7 @@ pub struct GaugewrightApp {
     settings: Settings,
     paths: AppPaths,
     screenshot: Option<ScreenshotRequest>,
+    plot_export: PlotExport,
     last_title: String,
     last_autosave_s: f64,
 }
@@ -216,6 +227,7 @@ impl GaugewrightApp {
             settings: Settings::default(),
             paths,
             screenshot,
+            plot_export: PlotExport::default(),
             last_title: String::new(),
             last_autosave_s: 0.0,
         }
@@ -642,6 +654,9 @@ impl GaugewrightApp {
             PathPurpose::Records => crate::test_files::import_records(&mut self.doc, path),
             PathPurpose::Template => crate::test_files::write_template(&mut self.doc, path),
             PathPurpose::Log => crate::test_files::import_log(&mut self.doc, path),
+            PathPurpose::PlotPicture | PathPurpose::PlotData => {
+                self.plot_export.write(path, &mut self.doc)
+            }
         }
     }
 
@@ -797,6 +812,7 @@ impl GaugewrightApp {
             self.view_rect = ui.max_rect();
             self.view_ui(ui, &mut out);
         });
+        self.plot_export_frame(ui.ctx());
         self.modal_ui(ui);
         self.finish_frame(ui, out);
     }
@@ -839,6 +855,45 @@ impl GaugewrightApp {
         if let Some(request) = &mut self.screenshot {
             request.on_frame(ui.ctx());
         }
+    }
+}
+
+/// Saving plots: the request a plot's context menu left, its path, and the picture's screenshot.
+impl GaugewrightApp {
+    fn plot_export_frame(&mut self, ctx: &egui::Context) {
+        if let Some(request) = crate::panels::plots::export::take_request(ctx) {
+            self.pick_plot_export(request);
+        }
+        let dialog_open = self.modal.is_some();
+        self.plot_export.on_frame(ctx, &mut self.doc, dialog_open);
+    }
+
+    /// Asks where to save what a plot's menu asked for: the desktop's save dialog with a name
+    /// from the plot's title, or a typed path with that name beside the project.
+    fn pick_plot_export(&mut self, request: ExportRequest) {
+        let suggested = request.suggested_file_name();
+        let (purpose, filter) = match request {
+            ExportRequest::Picture { .. } => (PathPurpose::PlotPicture, "PNG picture"),
+            ExportRequest::Data { .. } => (PathPurpose::PlotData, "CSV"),
+        };
+        let extension = request.extension();
+        self.plot_export.wait_for_path(request);
+        if self.dialogs == FileDialogs::Native
+            && let Some(p) = rfd::FileDialog::new()
+                .add_filter(filter, &[extension])
+                .set_file_name(&suggested)
+                .save_file()
+        {
+            self.run_path(purpose, &p);
+            return;
+        }
+        let beside_project = self
+            .doc
+            .path
+            .as_deref()
+            .and_then(std::path::Path::parent)
+            .map(|dir| dir.join(&suggested).display().to_string());
+        self.modal = Some(Modal::Path(purpose, beside_project.unwrap_or(suggested)));
     }
 }
 
