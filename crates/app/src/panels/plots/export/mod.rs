@@ -143,7 +143,9 @@ fn request_id() -> egui::Id {
 /// CSV…". `name` is the plot's title (the default file name); `table` builds the numbers only
 /// when the menu asks for them.
 pub fn export_menu(response: &egui::Response, name: &str, table: impl FnOnce() -> PlotTable) {
-    response.context_menu(|ui| {
+    // The container form opens on a right click anywhere inside, whether the response senses
+    // clicks (a plot) or only hovering (a table or grid of bars, whose cells take the clicks).
+    response.container_context_menu(|ui| {
         let mut request = None;
         if ui
             .button("Save picture as PNG…")
