@@ -243,11 +243,6 @@ impl PlotExport {
             self.shot = None;
         }
     }
-
-    /// True while a picture waits for its screenshot.
-    pub fn picture_pending(&self) -> bool {
-        self.shot.is_some()
-    }
 }
 
 /// A typed path without an extension gains the one for what is written.
