@@ -30,6 +30,7 @@ pub mod io;
 pub mod migrate;
 pub mod parse_errors;
 pub mod placement;
+pub mod result_series;
 pub mod result_tables;
 pub mod safe_write;
 pub mod sheet;

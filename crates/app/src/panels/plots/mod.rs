@@ -106,7 +106,7 @@ impl PlotsPanel {
         ));
         match view {
             PlotView::Output => output_ui(ui, doc, be),
-            PlotView::Temperature => temperature_ui(ui, be),
+            PlotView::Temperature => temperature_ui(ui, doc, be),
             PlotView::Margins => margins_ui(ui, doc, be),
             PlotView::Uncertainty => uncertainty_with_monte_carlo_ui(ui, doc, be, monte_carlo),
             PlotView::Cancellation | PlotView::Measured => {}

@@ -1,66 +1,284 @@
-//! Output against load: each load case's ramp and the straight line.
+//! Output against load: each load case's ramp with its straight line, and beside it the
+//! predicted error against load with the required accuracy as a band. The series come from
+//! `gw_plan::result_series`; this file only draws them.
 
-use egui_plot::{Legend, Line, Plot};
+use egui::Color32;
+use egui_plot::{Corner, Legend, Line, LineStyle, MarkerShape, Plot, Points, Polygon};
 use gw_plan::evaluate::BridgeEvaluation;
+use gw_plan::result_series::{self, CaseRamp, ErrorCurve};
 
 use crate::panels::capitalise;
+use crate::panels::plots::export::{PlotTable, export_menu};
 use crate::state::DocumentState;
-use crate::units::{Quantity, microstrain};
+use crate::units::{Quantity, Units, microstrain};
+
+/// Case colours and markers, taken in turn, so two cases differ in both.
+const CASE_STYLES: [(Color32, MarkerShape); 6] = [
+    (Color32::from_rgb(60, 120, 200), MarkerShape::Circle),
+    (Color32::from_rgb(220, 120, 40), MarkerShape::Square),
+    (Color32::from_rgb(60, 160, 90), MarkerShape::Diamond),
+    (Color32::from_rgb(170, 80, 170), MarkerShape::Up),
+    (Color32::from_rgb(190, 60, 60), MarkerShape::Cross),
+    (Color32::from_rgb(120, 120, 120), MarkerShape::Down),
+];
+
+fn case_style(i: usize) -> (Color32, MarkerShape) {
+    CASE_STYLES[i % CASE_STYLES.len()]
+}
+
+/// The band colour of the required accuracy.
+const BAND: Color32 = Color32::from_rgba_premultiplied(40, 70, 40, 50);
 
 pub(super) fn output_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
-    let units = doc.units;
-    let q = Quantity::of(be.wanted);
     for c in &be.cases {
-        let nl = c
-            .ramp
-            .iter()
-            .map(|p| (p.displayed_strain - p.linear_strain).abs())
-            .fold(0.0, f64::max);
         ui.label(format!(
-            "{}: {:.4} mV/V, displays {} (target {}); largest departure from the straight line {}",
+            "{}: {:.4} mV/V, displays {} (target {})",
             c.case,
             c.reading.mv_per_v,
             microstrain(c.reading.displayed_strain),
             microstrain(c.reading.target_strain),
-            microstrain(nl)
         ));
     }
     zero_and_conversion_ui(ui, doc, be);
-    Plot::new("output vs load")
-        .legend(Legend::default())
+    let curves = result_series::error_curves(be);
+    error_summary_ui(ui, doc.units, be, curves.as_deref());
+    ui.columns(2, |cols| {
+        ramps_plot_ui(&mut cols[0], doc.units, be);
+        match &curves {
+            Some(curves) => error_plot_ui(&mut cols[1], doc.units, be, curves),
+            None => {
+                cols[1].weak("No error against load: no case applies the wanted load.");
+            }
+        }
+    });
+}
+
+/// The wanted load's axis title: "Axial force (kN)".
+fn load_axis(units: Units, be: &BridgeEvaluation) -> String {
+    let q = Quantity::of(be.wanted);
+    format!("{} ({})", capitalise(be.wanted.name()), units.label(q))
+}
+
+/// Displayed strain against load: markers for the exact circuit, dashed straight line.
+fn ramps_plot_ui(ui: &mut egui::Ui, units: Units, be: &BridgeEvaluation) {
+    let q = Quantity::of(be.wanted);
+    let ramps = result_series::case_ramps(be);
+    let shown = |pts: &[[f64; 2]]| -> Vec<[f64; 2]> {
+        pts.iter()
+            .map(|[w, s]| [units.to_display(q, *w), s * 1e6])
+            .collect()
+    };
+    let plot = readable_x_axis(Plot::new("output vs load"), load_axis(units, be));
+    let response = plot
+        .legend(Legend::default().position(Corner::LeftTop))
         .height(300.0)
-        .x_axis_label(format!(
-            "{} ({})",
-            capitalise(be.wanted.name()),
-            units.label(q)
-        ))
         .y_axis_label("Displayed strain (µε)")
         .show(ui, |plot| {
-            for c in &be.cases {
-                let pts: Vec<[f64; 2]> = c
-                    .ramp
-                    .iter()
-                    .map(|p| {
-                        [
-                            units.to_display(q, p.wanted_value),
-                            p.displayed_strain * 1e6,
-                        ]
-                    })
-                    .collect();
-                let lin: Vec<[f64; 2]> = c
-                    .ramp
-                    .iter()
-                    .map(|p| [units.to_display(q, p.wanted_value), p.linear_strain * 1e6])
-                    .collect();
-                plot.line(Line::new(c.case.clone(), pts));
+            for (i, r) in ramps.iter().enumerate() {
+                let (colour, marker) = case_style(i);
                 plot.line(
-                    Line::new(format!("{} straight line", c.case), lin)
-                        .style(egui_plot::LineStyle::dashed_dense()),
+                    Line::new(r.case.clone(), shown(&r.straight))
+                        .color(colour)
+                        .style(LineStyle::dashed_loose()),
+                );
+                plot.points(
+                    Points::new(r.case.clone(), shown(&r.displayed))
+                        .color(colour)
+                        .shape(marker)
+                        .radius(4.0),
                 );
             }
         });
+    export_menu(&response.response, "Output vs load", || {
+        ramps_table(units, be, &ramps)
+    });
 }
 
+fn ramps_table(units: Units, be: &BridgeEvaluation, ramps: &[CaseRamp]) -> PlotTable {
+    let q = Quantity::of(be.wanted);
+    let mut rows = Vec::new();
+    for r in ramps {
+        for (d, s) in r.displayed.iter().zip(&r.straight) {
+            rows.push(vec![
+                r.case.clone(),
+                units.format_table_number(q, d[0]),
+                format!("{:.3}", d[1] * 1e6),
+                format!("{:.3}", s[1] * 1e6),
+            ]);
+        }
+    }
+    PlotTable {
+        columns: vec![
+            "Load case".into(),
+            load_axis(units, be),
+            "Displayed strain (µε)".into(),
+            "Straight line (µε)".into(),
+        ],
+        rows,
+    }
+}
+
+/// The band the required accuracy allows, as a closed polygon over the load range.
+fn band_polygon(units: Units, be: &BridgeEvaluation, fs: f64) -> Option<Vec<[f64; 2]>> {
+    let q = Quantity::of(be.wanted);
+    let (lo, hi) = be
+        .cases
+        .iter()
+        .flat_map(|c| c.ramp.iter().map(|p| p.wanted_value))
+        .fold((0.0_f64, 0.0_f64), |(a, b), v| (a.min(v), b.max(v)));
+    let xs = [lo, 0.0, hi];
+    let upper: Vec<[f64; 2]> = xs
+        .iter()
+        .map(|&w| {
+            Some([
+                units.to_display(q, w),
+                result_series::allowed_pct(be, w, fs)?,
+            ])
+        })
+        .collect::<Option<_>>()?;
+    let lower = upper.iter().rev().map(|[x, y]| [*x, -y]);
+    Some(upper.iter().copied().chain(lower).collect())
+}
+
+/// Departure from the straight line (dashed) and total predicted error (markers and solid
+/// line), % of full scale, with the required accuracy shaded.
+fn error_plot_ui(ui: &mut egui::Ui, units: Units, be: &BridgeEvaluation, curves: &[ErrorCurve]) {
+    let q = Quantity::of(be.wanted);
+    let fs = result_series::full_scale(be).unwrap_or(f64::NAN);
+    let band = band_polygon(units, be, fs);
+    // Headroom above the highest curve or band keeps the legend (top left) off the data.
+    let top = curves
+        .iter()
+        .flat_map(|c| c.points.iter().map(|p| p.total_pct.max(p.departure_pct)))
+        .chain(band.iter().flatten().map(|p| p[1]))
+        .filter(|v| v.is_finite())
+        .fold(0.0, f64::max);
+    let plot = readable_x_axis(Plot::new("error vs load"), load_axis(units, be));
+    let response = plot
+        .legend(Legend::default().position(Corner::LeftTop))
+        .height(300.0)
+        .include_y(0.0)
+        .include_y(top * 1.6)
+        .y_axis_label("Error (% of full scale)")
+        .show(ui, |plot| {
+            if let Some(band) = &band {
+                plot.polygon(
+                    Polygon::new("Required accuracy ±", band.clone())
+                        .fill_color(BAND)
+                        .stroke(egui::Stroke::new(1.0, Color32::from_rgb(70, 150, 110))),
+                );
+            }
+            for (i, c) in curves.iter().enumerate() {
+                let (colour, marker) = case_style(i);
+                let at = |f: fn(&result_series::ErrorPoint) -> f64| -> Vec<[f64; 2]> {
+                    c.points
+                        .iter()
+                        .map(|p| [units.to_display(q, p.wanted), f(p)])
+                        .collect()
+                };
+                let total = format!("{} total", c.case);
+                plot.line(Line::new(total.clone(), at(|p| p.total_pct)).color(colour));
+                plot.points(
+                    Points::new(total, at(|p| p.total_pct))
+                        .color(colour)
+                        .shape(marker)
+                        .radius(4.0),
+                );
+                plot.line(
+                    Line::new(format!("{} departure", c.case), at(|p| p.departure_pct))
+                        .color(colour)
+                        .style(LineStyle::dashed_loose()),
+                );
+            }
+        });
+    export_menu(&response.response, "Error vs load", || {
+        error_table(units, be, curves, fs)
+    });
+}
+
+fn error_table(units: Units, be: &BridgeEvaluation, curves: &[ErrorCurve], fs: f64) -> PlotTable {
+    let q = Quantity::of(be.wanted);
+    let pct = |v: f64| format!("{v:.4}");
+    let mut rows = Vec::new();
+    for c in curves {
+        for p in &c.points {
+            let allowed = result_series::allowed_pct(be, p.wanted, fs).map_or(String::new(), pct);
+            rows.push(vec![
+                c.case.clone(),
+                units.format_table_number(q, p.wanted),
+                pct(p.departure_pct),
+                pct(p.leakage_pct),
+                pct(p.temperature_pct),
+                pct(p.leads_pct),
+                pct(p.gauge_pct),
+                pct(p.total_pct),
+                allowed,
+            ]);
+        }
+    }
+    let columns = [
+        "Load case".to_owned(),
+        load_axis(units, be),
+        "Departure from straight line (% FS)".into(),
+        "Leakage (% FS)".into(),
+        "Temperature (% FS)".into(),
+        "Leads (% FS)".into(),
+        "Gauge effects (% FS)".into(),
+        "Total predicted error (% FS)".into(),
+        "Required accuracy ± (% FS)".into(),
+    ];
+    PlotTable {
+        columns: columns.to_vec(),
+        rows,
+    }
+}
+
+/// One line answering "how big is the predicted error against the required accuracy".
+fn error_summary_ui(
+    ui: &mut egui::Ui,
+    units: Units,
+    be: &BridgeEvaluation,
+    curves: Option<&[ErrorCurve]>,
+) {
+    let q = Quantity::of(be.wanted);
+    let (Some(curves), Some(fs)) = (curves, result_series::full_scale(be)) else {
+        return;
+    };
+    let worst = curves
+        .iter()
+        .flat_map(|c| c.points.iter().map(move |p| (c, p)))
+        .filter(|(_, p)| p.total_pct.is_finite())
+        .max_by(|a, b| a.1.total_pct.total_cmp(&b.1.total_pct));
+    let Some((c, p)) = worst else {
+        return;
+    };
+    ui.label(format!(
+        "Full scale {}. Largest predicted error {:.3} % of full scale ({}, at {}).",
+        units.format(q, fs),
+        p.total_pct,
+        c.case,
+        units.format(q, p.wanted)
+    ))
+    .on_hover_text(
+        "Sum of the magnitudes of departure from the straight line, leakage of unwanted loads, \
+         temperature at the extreme of the range, leads and gauge effects",
+    );
+    match result_series::allowed_pct(be, p.wanted, fs) {
+        Some(a) => {
+            let verdict = if p.total_pct <= a {
+                "within"
+            } else {
+                "outside"
+            };
+            ui.label(format!(
+                "Required accuracy there: ±{a:.3} % of full scale — {verdict}."
+            ));
+        }
+        None => {
+            ui.weak("No required accuracy is stated for this bridge, so no band is drawn.");
+        }
+    }
+}
 /// The zero reading a technician should see at no load, with its statistical and worst-case
 /// spread, and the wanted load per mV/V in the display unit.
 fn zero_and_conversion_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
@@ -111,4 +329,30 @@ fn zero_and_conversion_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEva
             ));
         }
     }
+}
+
+/// An x axis titled `title` whose tick labels read in narrow plots: steps of 1, 2 or 5 times a
+/// power of ten, about five labels across (the default spacing keeps only powers of ten, which
+/// can leave a single "0").
+pub(super) fn readable_x_axis<'a>(plot: Plot<'a>, title: String) -> Plot<'a> {
+    plot.custom_x_axes(vec![
+        egui_plot::AxisHints::new_x()
+            .label(title)
+            .label_spacing(30.0..=45.0),
+    ])
+    .x_grid_spacer(egui_plot::uniform_grid_spacer(|input| {
+        let span = input.bounds.1 - input.bounds.0;
+        let raw = if span.is_finite() && span > 0.0 {
+            span / 5.0
+        } else {
+            input.base_step_size.max(f64::MIN_POSITIVE)
+        };
+        let power = 10f64.powf(raw.log10().floor());
+        let step = [1.0, 2.0, 5.0, 10.0]
+            .into_iter()
+            .map(|m| m * power)
+            .find(|s| *s >= raw)
+            .unwrap_or(10.0 * power);
+        [step / 5.0, step, step * 5.0]
+    }))
 }
