@@ -200,3 +200,105 @@ fn picture_saved_from_the_menu_is_the_plot_with_its_axes() {
     colours.dedup();
     assert!(colours.len() > 10, "only {} colours", colours.len());
 }
+
+/// The app alone, as the user sees it.
+fn app_harness() -> Harness<'static, GaugewrightApp> {
+    let mut app = GaugewrightApp::with_document(
+        DocumentState::new(gw_plan::demo::demo_project(), None),
+        AppPaths::default(),
+        None,
+    );
+    app.dialogs = FileDialogs::TypedPath;
+    let mut h = Harness::builder()
+        .with_size(egui::vec2(1280.0, 800.0))
+        .with_max_steps(32)
+        .build_ui_state(|ui, app: &mut GaugewrightApp| app.frame_ui(ui), app);
+    h.run();
+    h
+}
+
+fn click_labelled(
+    h: &mut Harness<'static, GaugewrightApp>,
+    label: &str,
+    pick: impl Fn(Rect) -> bool,
+) {
+    h.get_all_by_label(label)
+        .find(|n| pick(n.rect()))
+        .unwrap_or_else(|| panic!("no {label}"))
+        .click();
+    h.run();
+}
+
+#[test]
+fn results_table_saves_its_data_from_a_right_click() {
+    let mut h = app_harness();
+    click_labelled(&mut h, "Results", |r| r.top() < 30.0);
+    click_labelled(&mut h, "Temperature", |r| r.top() > 30.0 && r.top() < 60.0);
+    // The contributions table's "Cause" header, in the centre view.
+    let cause = h
+        .get_all_by_label("Cause")
+        .map(|n| n.rect())
+        .find(|r| r.left() > 300.0 && r.right() < 900.0)
+        .expect("the contributions table in the centre");
+    right_click_app(&mut h, cause.center());
+    h.get_by_label("Save data as CSV…").click();
+    h.run();
+    let offered = h
+        .get_by_role_and_label(Role::TextInput, PATH_FIELD)
+        .value()
+        .unwrap_or_default();
+    assert!(
+        offered.ends_with("apparent-strain-contributions.csv"),
+        "{offered}"
+    );
+    let path = temp("results-table.csv");
+    let _ = std::fs::remove_file(&path);
+    h.get_by_role_and_label(Role::TextInput, PATH_FIELD).focus();
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, egui::Key::A);
+    h.run();
+    h.get_by_role_and_label(Role::TextInput, PATH_FIELD)
+        .type_text(&path.display().to_string());
+    h.run();
+    h.get_by_label("Save").click();
+    h.run();
+
+    let mut reader = csv::Reader::from_path(&path).expect("the CSV was written");
+    let headers: Vec<String> = reader
+        .headers()
+        .unwrap()
+        .iter()
+        .map(str::to_owned)
+        .collect();
+    assert_eq!(headers.first().map(String::as_str), Some("Cause"));
+    assert!(
+        headers.iter().skip(1).all(|c| c.ends_with("(µε)")),
+        "{headers:?}"
+    );
+    let causes: Vec<String> = reader
+        .records()
+        .map(|r| r.unwrap().get(0).unwrap_or_default().to_owned())
+        .collect();
+    assert!(!causes.is_empty());
+    // Every cause in the file is one the view names, in the table or among those at zero.
+    for cause in &causes {
+        let in_view = h
+            .query_all_by_label(cause)
+            .any(|n| n.rect().left() > 300.0 && n.rect().right() < 900.0);
+        assert!(in_view, "{cause} is not shown in the centre view");
+    }
+}
+
+fn right_click_app(h: &mut Harness<'static, GaugewrightApp>, pos: Pos2) {
+    h.hover_at(pos);
+    h.run();
+    for pressed in [true, false] {
+        h.event(Event::PointerButton {
+            pos,
+            button: PointerButton::Secondary,
+            pressed,
+            modifiers: Modifiers::NONE,
+        });
+    }
+    h.run();
+}
