@@ -15,8 +15,10 @@
 //!   `reading.error.leads_and_loading` × `f` (a span error);
 //! - gauge effects (grid averaging, transverse sensitivity, gauge-factor setting): their sum in
 //!   `reading.error` × `f` (span errors);
-//! - temperature: the largest |total apparent strain| of the thermal sweep, which runs over
-//!   the cases' temperature range; it is present at no load, so it does not scale with `f`.
+//! - temperature: the largest |total apparent strain at no load| of the thermal sweep within
+//!   the case's own range of part temperature (the sweep read linearly at the range's ends;
+//!   the whole sweep when the case's range is not known); it is present at no load, so it
+//!   does not scale with `f`.
 //!
 //! The total predicted error is the sum of the magnitudes (a worst case: the sources are not
 //! assumed to cancel one another).
@@ -25,7 +27,7 @@
 
 use gw_bridge::temperature::ThermalPoint;
 
-use crate::document::RequiredAccuracy;
+use crate::document::{LoadCase, RequiredAccuracy};
 use crate::evaluate::{BridgeCase, BridgeEvaluation};
 
 /// One load case's ramp: points of (wanted load SI, strain m/m).
@@ -121,14 +123,52 @@ pub fn temperature_extreme_strain(sweep: &[ThermalPoint]) -> f64 {
         .fold(0.0, f64::max)
 }
 
-/// The error curves of every case, or `None` when the bridge has no full scale.
-pub fn error_curves(be: &BridgeEvaluation) -> Option<Vec<ErrorCurve>> {
+/// The largest |total apparent strain| of the sweep between part temperatures `low_c` and
+/// `high_c`, m/m: the sweep's points inside, and the sweep read linearly at both ends.
+pub fn temperature_extreme_strain_in(sweep: &[ThermalPoint], low_c: f64, high_c: f64) -> f64 {
+    let (lo, hi) = (low_c.min(high_c), low_c.max(high_c));
+    let inside = sweep
+        .iter()
+        .filter(|p| p.temperature_c >= lo && p.temperature_c <= hi)
+        .map(|p| p.total);
+    let ends = [lo, hi].into_iter().filter_map(|t| total_at(sweep, t));
+    inside
+        .chain(ends)
+        .map(f64::abs)
+        .filter(|v| v.is_finite())
+        .fold(0.0, f64::max)
+}
+
+/// The sweep's total read linearly at `t_c`; `None` outside the sweep.
+fn total_at(sweep: &[ThermalPoint], t_c: f64) -> Option<f64> {
+    sweep.windows(2).find_map(|w| {
+        let (a, b) = (&w[0], &w[1]);
+        let (t0, t1) = (a.temperature_c, b.temperature_c);
+        if t_c < t0.min(t1) || t_c > t0.max(t1) {
+            return None;
+        }
+        let span = t1 - t0;
+        let share = if span == 0.0 { 0.0 } else { (t_c - t0) / span };
+        Some(a.total + (b.total - a.total) * share)
+    })
+}
+
+/// The error curves of every case, or `None` when the bridge has no full scale. `cases` are
+/// the part's load cases, for each case's temperature range (a case not found there takes
+/// the whole sweep).
+pub fn error_curves(be: &BridgeEvaluation, cases: &[LoadCase]) -> Option<Vec<ErrorCurve>> {
     let fs_strain = full_scale_strain(be)?;
-    let temperature = temperature_extreme_strain(&be.temperature);
+    let whole = temperature_extreme_strain(&be.temperature);
     Some(
         be.cases
             .iter()
-            .map(|c| error_curve(c, temperature, fs_strain))
+            .map(|c| {
+                let temperature = cases.iter().find(|l| l.name == c.case).map_or(whole, |l| {
+                    let (t0, t1) = l.temperature_range_c;
+                    temperature_extreme_strain_in(&be.temperature, t0, t1)
+                });
+                error_curve(c, temperature, fs_strain)
+            })
             .collect(),
     )
 }
@@ -366,5 +406,9 @@ mod tests {
         assert!(curves[1].is_zero(), "gauge thermal output is zero here");
         assert_eq!(curves[4].largest, -2e-7);
         assert_eq!(temperature_extreme_strain(&sweep), 3e-6);
+        // From 5 °C to 60 °C: halfway between −10 °C (−3 µε) and 20 °C (0) reads −1.5 µε, and
+        // 60 °C reads 2 µε, the larger (worked by hand).
+        assert!((temperature_extreme_strain_in(&sweep, 5.0, 60.0) - 2e-6).abs() < 1e-18);
+        assert!((temperature_extreme_strain_in(&sweep, 5.0, 20.0) - 1.5e-6).abs() < 1e-18);
     }
 }

@@ -6,7 +6,7 @@ use gw_plan::demo::demo_project;
 use gw_plan::document::RequiredAccuracy;
 use gw_plan::evaluate::{EvalOptions, evaluate};
 use gw_plan::result_series::{
-    allowed_pct, case_ramps, error_curves, full_scale, temperature_extreme_strain,
+    allowed_pct, case_ramps, error_curves, full_scale, temperature_extreme_strain_in,
 };
 
 #[test]
@@ -73,8 +73,15 @@ fn demo_bridge_series_agree_with_the_project() {
         .find(|s| s.component == plan.wanted)
         .unwrap()
         .displayed_per_unit;
-    let zero_load_pct = 100.0 * temperature_extreme_strain(&be.temperature) / (fs * per_unit).abs();
-    for curve in error_curves(be).unwrap() {
+    for curve in error_curves(be, &part.load_cases).unwrap() {
+        let case = part
+            .load_cases
+            .iter()
+            .find(|c| c.name == curve.case)
+            .unwrap();
+        let (t0, t1) = case.temperature_range_c;
+        let extreme = temperature_extreme_strain_in(&be.temperature, t0, t1);
+        let zero_load_pct = 100.0 * extreme / (fs * per_unit).abs();
         let first = curve.points[0];
         assert!(
             (first.total_pct - zero_load_pct).abs() < 1e-9,

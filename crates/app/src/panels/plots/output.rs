@@ -40,7 +40,12 @@ pub(super) fn output_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvalu
         ));
     }
     zero_and_conversion_ui(ui, doc, be);
-    let curves = result_series::error_curves(be);
+    let cases = doc
+        .project
+        .parts
+        .get(doc.selection.part)
+        .map_or(&[][..], |p| &p.load_cases[..]);
+    let curves = result_series::error_curves(be, cases);
     error_summary_ui(ui, doc.units, be, curves.as_deref());
     ui.columns(2, |cols| {
         ramps_plot_ui(&mut cols[0], doc.units, be);
