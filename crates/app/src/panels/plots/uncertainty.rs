@@ -1,10 +1,14 @@
-//! The uncertainty budget of the inferred load, and the Monte Carlo check on demand.
+//! The uncertainty budget of the inferred load, largest source first, and the Monte Carlo
+//! check on demand.
 
 use egui_plot::{Bar, BarChart, Plot, VLine};
 use gw_bridge::bridge_uncertainty::BridgeUncertainty;
 use gw_plan::evaluate::BridgeEvaluation;
+use gw_plan::result_tables::{ContributionRow, contribution_rows, dominant_sentence, share_text};
 
 use super::MonteCarloRun;
+use super::export::{PlotTable, export_menu};
+use super::margins::{bar_cell_ui, bar_width, widest};
 use crate::panels::palette;
 use crate::state::DocumentState;
 use crate::units::Quantity;
@@ -16,9 +20,24 @@ pub(super) fn uncertainty_with_monte_carlo_ui(
     be: &BridgeEvaluation,
     monte_carlo: &mut Option<MonteCarloRun>,
 ) {
+    egui::ScrollArea::vertical()
+        .id_salt("uncertainty scroll")
+        .auto_shrink([false, true])
+        .show(ui, |ui| {
+            uncertainty_ui(ui, doc, be);
+            ui.separator();
+            monte_carlo_ui(ui, doc, be, monte_carlo);
+        });
+}
+
+/// The button that runs the Monte Carlo check, and its result while it still applies.
+fn monte_carlo_ui(
+    ui: &mut egui::Ui,
+    doc: &DocumentState,
+    be: &BridgeEvaluation,
+    monte_carlo: &mut Option<MonteCarloRun>,
+) {
     let sel = doc.selection;
-    uncertainty_ui(ui, doc, be);
-    ui.separator();
     let bridge = sel.bridge.unwrap_or(0);
     if ui
         .button("Run Monte Carlo (20 000 trials)")
@@ -52,44 +71,107 @@ fn uncertainty_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation)
     let units = doc.units;
     let q = Quantity::of(be.wanted);
     ui.label(format!(
-        "At {}: inferred {} = {}; combined standard uncertainty {}, expanded ± {} for {:.0} % coverage, {}",
+        "At {}: inferred {} = {}; combined standard uncertainty u = {}, expanded U = ±{} for {:.0} % coverage, {}",
         be.uncertainty_case.as_deref().unwrap_or("—"),
         be.wanted.name(),
         units.format(q, u.gum.value),
-        units.format(q, u.gum.combined),
-        units.format(q, u.gum.expanded),
+        units.format_difference(q, u.gum.combined),
+        units.format_difference(q, u.gum.expanded),
         u.gum.coverage_probability * 100.0,
         u.gum.coverage_text()
     ));
-    let bars: Vec<Bar> = u
-        .gum
-        .rows
+    let rows = contribution_rows(&u.gum);
+    ui.strong(dominant_sentence(&rows, units, q));
+    let response = contribution_bars_ui(ui, doc, be, &rows);
+    export_menu(&response, "Uncertainty budget", || {
+        budget_table(doc, be, &rows)
+    });
+    ui.weak(
+        "Share: each source's part of the combined variance u² (the shares of uncorrelated \
+         sources add to 100 %).",
+    );
+}
+
+/// One row per source: its name, a bar of its contribution, the contribution in the measured
+/// unit and its share of the variance.
+fn contribution_bars_ui(
+    ui: &mut egui::Ui,
+    doc: &DocumentState,
+    be: &BridgeEvaluation,
+    rows: &[ContributionRow],
+) -> egui::Response {
+    let units = doc.units;
+    let q = Quantity::of(be.wanted);
+    let largest = rows.first().map_or(0.0, |r| r.contribution);
+    let contribution_header = format!("Contribution ({})", units.label(q));
+    let share_header = "Share of variance (%)";
+    let values: Vec<String> = rows
         .iter()
-        .enumerate()
-        .map(|(i, r)| {
-            Bar::new(
-                i as f64,
-                units.to_display(q, r.contribution) - units.to_display(q, 0.0),
-            )
-            .name(&r.name)
-        })
+        .map(|r| units.format_difference(q, r.contribution))
         .collect();
-    Plot::new("uncertainty")
-        .height(240.0)
-        .x_axis_label(format!("Contribution ({})", units.label(q)))
-        .show(ui, |plot| {
-            plot.bar_chart(BarChart::new("contributions", bars).horizontal())
-        });
-    egui::Grid::new("budget")
+    let shares: Vec<String> = rows
+        .iter()
+        .map(|r| share_text(r.variance_percent))
+        .collect();
+    let width = bar_width(
+        ui,
+        &[
+            widest(ui, rows.iter().map(|r| r.name.as_str()).chain(["Source"])),
+            widest(
+                ui,
+                values
+                    .iter()
+                    .map(String::as_str)
+                    .chain([contribution_header.as_str()]),
+            ),
+            widest(ui, shares.iter().map(String::as_str).chain([share_header])),
+        ],
+    );
+    egui::Grid::new("budget bars")
         .striped(true)
-        .num_columns(2)
+        .num_columns(4)
         .show(ui, |ui| {
-            for r in u.gum.rows.iter().take(8) {
+            ui.strong("Source");
+            ui.label("");
+            ui.strong(&contribution_header);
+            ui.strong(share_header);
+            ui.end_row();
+            for ((r, value), share) in rows.iter().zip(values).zip(shares) {
                 ui.label(&r.name);
-                ui.label(units.format(q, r.contribution).replace("+", ""));
+                let fraction = if largest > 0.0 {
+                    r.contribution / largest
+                } else {
+                    0.0
+                };
+                bar_cell_ui(ui, width, fraction, palette::WARN, None);
+                ui.label(value);
+                ui.label(share);
                 ui.end_row();
             }
-        });
+        })
+        .response
+}
+
+fn budget_table(doc: &DocumentState, be: &BridgeEvaluation, rows: &[ContributionRow]) -> PlotTable {
+    let units = doc.units;
+    let q = Quantity::of(be.wanted);
+    PlotTable {
+        columns: vec![
+            "Source".into(),
+            format!("Contribution ({})", units.label(q)),
+            "Share of variance (%)".into(),
+        ],
+        rows: rows
+            .iter()
+            .map(|r| {
+                vec![
+                    r.name.clone(),
+                    format!("{}", units.scale_to_display(q, r.contribution)),
+                    r.variance_percent.map_or("—".into(), |p| format!("{p}")),
+                ]
+            })
+            .collect(),
+    }
 }
 
 fn histogram_ui(
@@ -123,9 +205,14 @@ fn histogram_ui(
             .width(units.to_display(q, *width) - units.to_display(q, 0.0))
         })
         .collect();
-    Plot::new("histogram")
+    let response = Plot::new("histogram")
         .height(200.0)
-        .x_axis_label(units.label(q))
+        .x_axis_label(format!(
+            "Inferred {} ({})",
+            be.wanted.name(),
+            units.label(q)
+        ))
+        .y_axis_label("Trials")
         .show(ui, |plot| {
             plot.bar_chart(BarChart::new("trials", bars));
             plot.vline(
@@ -139,5 +226,19 @@ fn histogram_ui(
                 )
                 .color(palette::WARN),
             );
-        });
+        })
+        .response;
+    export_menu(&response, "Monte Carlo histogram", || PlotTable {
+        columns: vec![format!("Bin centre ({})", units.label(q)), "Trials".into()],
+        rows: counts
+            .iter()
+            .enumerate()
+            .map(|(i, n)| {
+                vec![
+                    format!("{}", units.to_display(q, lo + width * (i as f64 + 0.5))),
+                    n.to_string(),
+                ]
+            })
+            .collect(),
+    });
 }
