@@ -43,7 +43,7 @@ fn short_arm_text(arm: &PlanArm) -> String {
 }
 
 /// Draws the four arms as a diamond with what sits in each, the corners' roles and the wiring.
-fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
+fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan, units: crate::units::Units) {
     let width = ui.available_width().clamp(460.0, 620.0);
     let (resp, painter) = ui.allocate_painter(vec2(width, 320.0), egui::Sense::hover());
     let r = resp.rect;
@@ -114,9 +114,9 @@ fn schematic_ui(ui: &mut egui::Ui, plan: &BridgePlan) {
         r.left_top(),
         egui::Align2::LEFT_TOP,
         format!(
-            "{} wiring, {:.1} m leads",
+            "{} wiring, {} leads",
             plan.wiring.trade_name(at_gauge),
-            plan.lead.length_m
+            units.format(crate::units::Quantity::CableLength, plan.lead.length_m)
         ),
         egui::FontId::proportional(12.0),
         text,
@@ -175,7 +175,7 @@ impl BridgesPanel {
                 plan.channel,
                 plan.gauge_factor_setting,
             ));
-            schematic_ui(ui, plan);
+            schematic_ui(ui, plan, doc.units);
             ui.horizontal(|ui| {
                 ui.label("Wiring");
                 let at_gauge = plan.arms.clone().map(|a| !matches!(a, PlanArm::Completion(_)));

@@ -53,8 +53,8 @@ pub const PLAIN: Unit = Unit::Scaled(1.0, "");
 pub const OHM: Unit = Unit::Scaled(1.0, "Ω");
 /// Volts.
 pub const VOLT: Unit = Unit::Scaled(1.0, "V");
-/// Per °C shown in ppm/°C.
-pub const PPM_PER_C: Unit = Unit::Scaled(1e6, "ppm/°C");
+/// A relative change per degree: ppm/°C or ppm/°F.
+pub const PPM_PER_DEGREE: Unit = Unit::Of(Quantity::ExpansionCoefficient);
 /// Radians shown in degrees.
 pub const DEGREES: Unit = Unit::Scaled(180.0 / std::f64::consts::PI, "°");
 

@@ -4,7 +4,7 @@
 use gw_plan::Project;
 use gw_plan::edit::Item;
 
-use super::fields::{Editor, Field, Group};
+use super::fields::{Editor, Field, Group, Unit};
 use super::item_fields;
 use crate::command::Command;
 use crate::state::DocumentState;
@@ -64,11 +64,17 @@ fn number_ui<T: Clone>(
     let mut shown = unit.show(units, stored);
     let speed = (shown.abs() * 0.005).max(0.001);
     let suffix = unit.suffix(units);
+    let mut drag = egui::DragValue::new(&mut shown)
+        .speed(speed)
+        .max_decimals(6);
+    if let Unit::Of(q) = *unit {
+        // The quantity's own resolution, so a field never reads "0.0000 mm" or "17.7165 in".
+        drag =
+            drag.custom_formatter(move |v, _| crate::units::number_text(v, units.decimals(q, v)));
+    }
     let r = ui
         .add(
-            egui::DragValue::new(&mut shown)
-                .speed(speed)
-                .max_decimals(6)
+            drag
                 // A typed number is one edit (one undo step), applied on Enter or leaving.
                 .update_while_editing(false)
                 .suffix(if suffix.is_empty() {

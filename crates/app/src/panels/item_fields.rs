@@ -202,13 +202,13 @@ fn thermal_fields<T: 'static>(
     let mut out = vec![num(
         prefix[0],
         "Matched expansion",
-        PPM_PER_C,
+        PPM_PER_DEGREE,
         "Expansion coefficient of the material the gauge is matched to",
         move |t: &T| at(t).matched_cte_per_c,
         move |t, v| at_mut(t).matched_cte_per_c = v,
     )];
     let names = [
-        "Thermal output c0",
+        "Thermal output c0 (T in °C)",
         "c1 (per °C)",
         "c2 (per °C²)",
         "c3 (per °C³)",
@@ -360,7 +360,7 @@ fn stock_limit_fields() -> Vec<Field<StockGauge>> {
         num(
             "spec.max_power_density_w_m2",
             "Allowed power density",
-            Unit::Scaled(1e-3, "kW/m²"),
+            Unit::Of(Quantity::PowerDensity),
             "Self-heating limit; depends on the part's heat sinking (common practice: about 3 kW/m² on thick steel)",
             |s: &StockGauge| s.spec.max_power_density_w_m2,
             |s, v| s.spec.max_power_density_w_m2 = v,
@@ -445,7 +445,7 @@ fn stock_type_fields() -> Vec<Field<StockGauge>> {
         num(
             "spec.gauge_factor_temp_coeff_per_c",
             "Gauge-factor drift",
-            PPM_PER_C,
+            PPM_PER_DEGREE,
             "Relative change of the gauge factor per °C",
             |s: &StockGauge| s.spec.gauge_factor_temp_coeff_per_c,
             |s, v| s.spec.gauge_factor_temp_coeff_per_c = v,
@@ -1154,7 +1154,7 @@ fn material_fields() -> Vec<Field<Part>> {
         material_field(
             "member.*.material.cte_per_c",
             "Expansion",
-            PPM_PER_C,
+            PPM_PER_DEGREE,
             "Coefficient of thermal expansion",
             |m| m.cte_per_c,
             |m, v| m.cte_per_c = v,
@@ -1162,7 +1162,7 @@ fn material_fields() -> Vec<Field<Part>> {
         material_field(
             "member.*.material.yield_strength_pa",
             "Yield strength",
-            Unit::Of(Quantity::Pressure),
+            Unit::Of(Quantity::Stress),
             "0.2 % yield strength",
             |m| m.yield_strength_pa,
             |m, v| m.yield_strength_pa = v,
@@ -1359,16 +1359,16 @@ pub fn load_case_groups(member: &Member) -> Vec<Group<LoadCase>> {
                 num(
                     "temperature_range_c",
                     "Temperature from",
-                    Unit::Of(Quantity::TemperatureChange),
-                    "Low end of the apparent-strain plot, as a change from the reference temperature",
+                    Unit::Of(Quantity::Temperature),
+                    "Lowest part temperature of this case (low end of the apparent-strain plot)",
                     |c: &LoadCase| c.temperature_range_c.0,
                     |c, v| c.temperature_range_c.0 = v,
                 ),
                 num(
                     "temperature_range_c",
                     "Temperature to",
-                    Unit::Of(Quantity::TemperatureChange),
-                    "High end of the apparent-strain plot, as a change from the reference temperature",
+                    Unit::Of(Quantity::Temperature),
+                    "Highest part temperature of this case (high end of the apparent-strain plot)",
                     |c: &LoadCase| c.temperature_range_c.1,
                     |c, v| c.temperature_range_c.1 = v,
                 ),
@@ -1706,7 +1706,7 @@ fn completion_fields(k: usize) -> Vec<Field<BridgePlan>> {
         num(
             "arms.Completion.tcr_per_c",
             &format!("Arm {} drift", k + 1),
-            PPM_PER_C,
+            PPM_PER_DEGREE,
             "Temperature coefficient of the completion resistor",
             move |p: &BridgePlan| get(p, k).map(|c| c.tcr_per_c).unwrap_or(f64::NAN),
             move |p, v| {
@@ -2279,7 +2279,7 @@ fn lead_fields() -> Vec<Field<BridgePlan>> {
         num(
             "lead.length_m",
             "Lead length",
-            Unit::Scaled(1.0, "m"),
+            Unit::Of(Quantity::CableLength),
             "Length of each lead wire",
             |p: &BridgePlan| p.lead.length_m,
             |p, v| p.lead.length_m = v,
@@ -2295,7 +2295,7 @@ fn lead_fields() -> Vec<Field<BridgePlan>> {
         num(
             "lead.tcr_per_c",
             "Lead drift",
-            PPM_PER_C,
+            PPM_PER_DEGREE,
             "Temperature coefficient of the lead resistance (copper about 3900 ppm/°C, from memory)",
             |p: &BridgePlan| p.lead.tcr_per_c,
             |p, v| p.lead.tcr_per_c = v,

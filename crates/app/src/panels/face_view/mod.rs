@@ -128,9 +128,7 @@ impl Scene<'_> {
 
     /// A length in display units.
     fn length(&self, v_m: f64) -> String {
-        let v = self.units.to_display(Quantity::Length, v_m);
-        let digits = if v.abs() >= 100.0 { 1 } else { 2 };
-        format!("{v:.digits$} {}", self.units.label(Quantity::Length))
+        self.units.format(Quantity::Length, v_m)
     }
 
     /// Display units per metre of length.
