@@ -272,8 +272,9 @@ fn switch_units() {
     };
     assert!((modulus(&h) - 207.0).abs() < 1e-9);
     menu(&mut h, "Units", "US customary (in, lbf, psi, °F)");
-    // 207 GPa = 30.02 Mpsi (NIST SP 811: 1 psi = 6 894.757 Pa).
-    assert!((modulus(&h) - 30.02).abs() < 0.005, "{}", modulus(&h));
+    // 207 GPa = 30.02 Mpsi (NIST SP 811: 1 psi = 6 894.757 Pa), shown to the modulus's three
+    // significant digits.
+    assert!((modulus(&h) - 30.02).abs() < 0.05, "{}", modulus(&h));
     // The stored value is unchanged.
     assert_eq!(vertical_force(&h), 6000.0);
 }

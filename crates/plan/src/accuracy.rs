@@ -11,12 +11,13 @@
 use gw_bridge::bridge_uncertainty::{BridgeUncertainty, bridge_uncertainty};
 use gw_bridge::margins::{Margin, MarginKind};
 use gw_bridge::signal_chain::ChannelFigures;
-use gw_bridge::units::si;
 use gw_bridge::{BridgeError, BridgeModel};
 use gw_mechanics::{LoadComponent, LoadVector, QuadratureOrder};
 use serde::Serialize;
 
 use crate::document::{LoadCase, Part, RequiredAccuracy};
+use crate::marked::{Rounding, mark, mark_rounded, render};
+use crate::units::{Quantity, Units};
 
 /// The accuracy check of one load case, every figure in the wanted load's SI unit.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -66,11 +67,20 @@ impl AccuracyCheck {
         (self.inferred - self.applied).abs() + self.expanded_uncertainty
     }
 
-    /// One line: the prediction by cause against the requirement.
-    pub fn describe(&self, unit: &str) -> String {
+    /// One line: the prediction by cause against the requirement, in the wanted load's
+    /// display unit (`wanted` is the component the bridge measures).
+    pub fn describe(&self, wanted: LoadComponent, units: Units) -> String {
+        render(&self.describe_marked(wanted), units)
+    }
+
+    /// [`AccuracyCheck::describe`] with its figures marked for either unit system.
+    pub fn describe_marked(&self, wanted: LoadComponent) -> String {
+        let q = Quantity::of(wanted);
+        let size = |v: f64| mark_rounded(q, v, Rounding::Difference);
+        let load = |v: f64| mark(q, v);
         let asked = match self.required {
             RequiredAccuracy::PercentOfReading(p) => {
-                format!(" ({p} % of {})", si(self.applied.abs(), unit))
+                format!(" ({p} % of {})", load(self.applied.abs()))
             }
             RequiredAccuracy::InMeasuredUnit(_) => String::new(),
         };
@@ -84,15 +94,15 @@ impl AccuracyCheck {
             ("gauge effects", self.other),
         ] {
             if v.abs() > negligible {
-                parts.push(format!("{name} {}", si(v, unit)));
+                parts.push(format!("{name} {}", size(v)));
             }
         }
         let mut line = format!(
             "predicted error ±{} against the required ±{}{asked}: reads {} for {}",
-            si(self.predicted(), unit),
-            si(self.allowed, unit),
-            si(self.inferred, unit),
-            si(self.applied, unit),
+            size(self.predicted()),
+            size(self.allowed),
+            load(self.inferred),
+            load(self.applied),
         );
         if !parts.is_empty() {
             line += &format!(" ({})", parts.join(", "));
@@ -100,7 +110,7 @@ impl AccuracyCheck {
         if self.expanded_uncertainty > 0.0 {
             line += &format!(
                 ", uncertainty ±{} with {}",
-                si(self.expanded_uncertainty, unit),
+                size(self.expanded_uncertainty),
                 self.coverage
             );
         }

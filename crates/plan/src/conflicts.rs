@@ -27,6 +27,7 @@ pub fn bridge_conflicts(project: &Project) -> Vec<Finding> {
                         plan.channel, other.bridges[b0].name, other.name
                     ),
                     target,
+                    marked: String::new(),
                 });
             } else {
                 channels.push((plan.channel, pi, bi));
@@ -45,6 +46,7 @@ pub fn bridge_conflicts(project: &Project) -> Vec<Finding> {
                             part.bridges[b0].name
                         ),
                         target,
+                        marked: String::new(),
                     }),
                     Some(_) => {}
                     None => grids.push((gauge.as_str(), *grid, bi)),

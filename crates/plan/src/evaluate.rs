@@ -83,10 +83,35 @@ pub enum Target {
 pub struct Finding {
     /// Severity.
     pub severity: Severity,
-    /// Plain message with the numbers.
+    /// Plain message with the numbers, in SI.
     pub message: String,
     /// What it is about.
     pub target: Target,
+    /// The message with its quantities marked for either unit system ([`crate::marked`]);
+    /// empty when it holds none.
+    #[serde(skip)]
+    pub marked: String,
+}
+
+impl Finding {
+    /// A finding whose message holds marked quantities.
+    pub fn marked(severity: Severity, marked: String, target: Target) -> Finding {
+        Finding {
+            severity,
+            message: crate::marked::render(&marked, crate::units::Units::Si),
+            target,
+            marked,
+        }
+    }
+
+    /// The message in a unit system.
+    pub fn text(&self, units: crate::units::Units) -> String {
+        if self.marked.is_empty() {
+            self.message.clone()
+        } else {
+            crate::marked::render(&self.marked, units)
+        }
+    }
 }
 
 /// A point of the output-versus-load plot.
@@ -217,8 +242,11 @@ pub struct CaseFigures {
     pub case: String,
     /// Largest von Mises stress in the part, Pa.
     pub peak_von_mises_pa: f64,
-    /// Where the largest stress is, in words (a face point, or the bore of a vessel).
+    /// Where the largest stress is, in words (a face point, or the bore of a vessel), in SI.
     pub peak_location: String,
+    /// The same with its lengths marked for either unit system ([`crate::marked`]).
+    #[serde(skip)]
+    pub peak_location_marked: String,
     /// Yield strength over the peak stress (`None` when the case leaves the part unstressed).
     pub safety_factor_to_yield: Option<f64>,
     /// Thin-walled vessels: the hoop stress at the mean radius (membrane, the design figure),
@@ -229,6 +257,11 @@ pub struct CaseFigures {
 }
 
 impl CaseFigures {
+    /// Where the largest stress is, in a unit system.
+    pub fn peak_location_text(&self, units: crate::units::Units) -> String {
+        crate::marked::render(&self.peak_location_marked, units)
+    }
+
     /// "2.32 × below yield", or that the case leaves the part unstressed.
     pub fn yield_words(&self) -> String {
         match self.safety_factor_to_yield {
@@ -293,6 +326,7 @@ pub fn evaluate(project: &Project, options: &EvalOptions) -> Evaluation {
                 severity: Severity::Error,
                 message: e.to_string(),
                 target: Target::Part { part: pi },
+                marked: String::new(),
             });
             continue;
         }
@@ -328,6 +362,7 @@ fn evaluate_part(
             severity: Severity::Warn,
             message: format!("part \"{}\": {w}", part.name),
             target: Target::Part { part: pi },
+            marked: String::new(),
         });
     }
     let cases = case_figures(project, pi, part, options, findings);
@@ -372,6 +407,7 @@ fn evaluate_part(
                     part.name, plan.name
                 ),
                 target,
+                marked: String::new(),
             }),
         }
     }
@@ -414,7 +450,7 @@ fn case_figures(
                         "part \"{}\", {} (peak {})",
                         part.name,
                         case.name,
-                        at.describe()
+                        peak_marked(&at)
                     ),
                     Target::LoadCase { part: pi, case: ci },
                 );
@@ -422,7 +458,11 @@ fn case_figures(
                 cases.push(CaseFigures {
                     case: case.name.clone(),
                     peak_von_mises_pa: peak,
-                    peak_location: at.describe(),
+                    peak_location: crate::marked::render(
+                        &peak_marked(&at),
+                        crate::units::Units::Si,
+                    ),
+                    peak_location_marked: peak_marked(&at),
                     safety_factor_to_yield: (peak > 0.0).then(|| m.safety_factor()),
                     membrane_hoop_pa: hoop.map(|h| h.0),
                     outer_hoop_pa: hoop.map(|h| h.1),
@@ -432,6 +472,7 @@ fn case_figures(
                 severity: Severity::Error,
                 message: format!("part \"{}\", {}: {e}", part.name, case.name),
                 target: Target::LoadCase { part: pi, case: ci },
+                marked: String::new(),
             }),
         }
     }
@@ -457,6 +498,7 @@ fn bridge_plan_findings(
                 part.name, plan.name, o.value
             ),
             target,
+            marked: String::new(),
         });
     }
     if !plan.is_wired() {
@@ -467,6 +509,7 @@ fn bridge_plan_findings(
                 part.name, plan.name
             ),
             target,
+            marked: String::new(),
         });
         return false;
     }
@@ -506,6 +549,7 @@ fn multi_axis_of(
                 severity: Severity::Warn,
                 message: format!("part \"{}\": {e}", part.name),
                 target: Target::Part { part: pi },
+                marked: String::new(),
             });
             None
         }
@@ -521,6 +565,7 @@ fn multi_axis_of(
                 part.name, m.condition_number
             ),
             target: Target::Part { part: pi },
+            marked: String::new(),
         });
     }
     multi
@@ -541,19 +586,26 @@ fn curve_range_findings(
         for case in &part.load_cases {
             let (t0, t1) = case.temperature_range_c;
             if !(g.spec.thermal_output.covers(t0) && g.spec.thermal_output.covers(t1)) {
-                findings.push(Finding {
-                    severity: Severity::Warn,
-                    message: format!(
-                        "part \"{}\", gauge {}: its thermal-output curve is given from {lo:.0} to \
-                         {hi:.0} °C, but load case \"{}\" runs from {t0:.0} to {t1:.0} °C; the \
-                         apparent strain outside the curve's range is extrapolated",
-                        part.name, g.id, case.name
+                let t = |c: f64| crate::marked::mark(crate::units::Quantity::Temperature, c);
+                findings.push(Finding::marked(
+                    Severity::Warn,
+                    format!(
+                        "part \"{}\", gauge {}: its thermal-output curve is given from {} to {}, \
+                         but load case \"{}\" runs from {} to {}; the apparent strain outside \
+                         the curve's range is extrapolated",
+                        part.name,
+                        g.id,
+                        t(lo),
+                        t(hi),
+                        case.name,
+                        t(t0),
+                        t(t1)
                     ),
-                    target: Target::Gauge {
+                    Target::Gauge {
                         part: pi,
                         gauge: gi,
                     },
-                });
+                ));
             }
         }
     }
@@ -565,9 +617,9 @@ fn push_margin(findings: &mut Vec<Finding>, m: &Margin, place: String, target: T
         MarginStatus::Warn => Severity::Warn,
         MarginStatus::Fail => Severity::Fail,
     };
-    findings.push(Finding {
+    findings.push(Finding::marked(
         severity,
-        message: format!(
+        format!(
             "{place}: {} at {:.0} % ({} {})",
             m.kind.name(),
             m.utilisation * 100.0,
@@ -579,7 +631,24 @@ fn push_margin(findings: &mut Vec<Finding>, m: &Margin, place: String, target: T
             }
         ),
         target,
-    });
+    ));
+}
+
+/// Where the largest stress is, its lengths marked for either unit system.
+fn peak_marked(at: &gw_mechanics::PeakLocation) -> String {
+    use crate::marked::mark;
+    use crate::units::Quantity::Length;
+    match at {
+        gw_mechanics::PeakLocation::Surface(p) => format!(
+            "on the {} at x = {}, s = {}",
+            p.face.name(),
+            mark(Length, p.x_m),
+            mark(Length, p.s_m)
+        ),
+        gw_mechanics::PeakLocation::Bore { radius_m } => {
+            format!("at the bore (r = {})", mark(Length, *radius_m))
+        }
+    }
 }
 
 /// A required accuracy that the prediction misses or nearly misses, with the prediction by
@@ -596,11 +665,11 @@ fn accuracy_finding(
         MarginStatus::Warn => (Severity::Warn, "little margin left"),
         MarginStatus::Fail => (Severity::Fail, check.advice()),
     };
-    findings.push(Finding {
+    findings.push(Finding::marked(
         severity,
-        message: format!("{place}: {} — {advice}", check.describe(plan.wanted.unit())),
+        format!("{place}: {} — {advice}", check.describe_marked(plan.wanted)),
         target,
-    });
+    ));
 }
 
 #[allow(clippy::too_many_arguments)]
@@ -1045,6 +1114,7 @@ fn uncertainty_at(
                         severity: Severity::Warn,
                         message: format!("{}: no uncertainty budget: {e}", place(&case.name)),
                         target,
+                        marked: String::new(),
                     });
                     None
                 }
@@ -1076,6 +1146,7 @@ fn no_response_finding(
                 wanted.name()
             ),
             target,
+            marked: String::new(),
         });
         return;
     }
@@ -1096,6 +1167,7 @@ fn no_response_finding(
             wanted.name()
         ),
         target,
+        marked: String::new(),
     });
 }
 

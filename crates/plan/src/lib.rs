@@ -27,6 +27,7 @@ pub mod finite;
 pub mod gallery;
 pub mod installation;
 pub mod io;
+pub mod marked;
 pub mod migrate;
 pub mod parse_errors;
 pub mod placement;

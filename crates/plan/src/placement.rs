@@ -14,6 +14,8 @@ use gw_mechanics::{
 
 use crate::document::{LoadCase, Part, PlanArm};
 use crate::evaluate::{Finding, Severity, Target};
+use crate::marked::{Rounding, mark, mark_rounded};
+use crate::units::Quantity;
 
 /// The share of an end disturbance still left where the end checks stop warning, and the
 /// largest difference between a grid's average and its centre value before the gradient check
@@ -57,14 +59,14 @@ pub fn placement_findings(
         let Some(g) = gauges.get(gi) else {
             continue;
         };
-        findings.push(Finding {
-            severity: Severity::Warn,
-            message: format!("part \"{}\", gauge {}: {note}", part.name, g.id),
-            target: Target::Gauge {
+        findings.push(Finding::marked(
+            Severity::Warn,
+            format!("part \"{}\", gauge {}: {note}", part.name, g.id),
+            Target::Gauge {
                 part: pi,
                 gauge: gi,
             },
-        });
+        ));
     }
 }
 
@@ -571,36 +573,23 @@ fn gradient_notes(
     notes
 }
 
-/// A length for a message: whole millimetres from 10 mm up (and for zero), tenths below.
+/// A length for a message, marked to read in either unit system ([`crate::marked`]).
 fn mm(m: f64) -> String {
-    let v = m * 1e3;
-    if v == 0.0 {
-        "0 mm".to_owned()
-    } else if v.abs() >= 10.0 {
-        format!("{v:.0} mm")
-    } else {
-        format!("{v:.1} mm")
-    }
+    mark(Quantity::Length, m)
 }
 
 /// A length for a "move it at least" message, rounded up (`up`) or down to the shown digit so
 /// that the rounded figure still keeps the grid clear.
 fn mm_rounded(m: f64, up: bool) -> String {
-    let v = m * 1e3;
-    let step = if v.abs() >= 10.0 { 1.0 } else { 0.1 };
-    let steps = v / step;
-    // Float noise must not push an exact figure to the next step.
-    let r = if up {
-        (steps - 1e-9).ceil()
-    } else {
-        (steps + 1e-9).floor()
-    } * step;
-    mm(r * 1e-3)
+    let rounding = if up { Rounding::Up } else { Rounding::Down };
+    mark_rounded(Quantity::Length, m, rounding)
 }
 
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::marked::render;
+    use crate::units::Units;
     use gw_mechanics::{Face, SurfacePoint};
 
     fn grid(x_mm: f64, s_mm: f64, angle_deg: f64) -> GridFootprint {
@@ -674,11 +663,21 @@ mod tests {
 
     #[test]
     fn rounded_lengths_keep_the_grid_clear() {
-        assert_eq!(mm_rounded(0.04267, true), "43 mm");
-        assert_eq!(mm_rounded(0.04267, false), "42 mm");
-        assert_eq!(mm_rounded(0.06, true), "60 mm");
-        assert_eq!(mm_rounded(0.00512, true), "5.2 mm");
-        assert_eq!(mm(0.0), "0 mm");
-        assert_eq!(mm(-0.0), "0 mm");
+        let si = |text: String| render(&text, Units::Si);
+        assert_eq!(si(mm_rounded(0.04267, true)), "43 mm");
+        assert_eq!(si(mm_rounded(0.04267, false)), "42 mm");
+        assert_eq!(si(mm_rounded(0.06, true)), "60 mm");
+        assert_eq!(si(mm_rounded(0.00512, true)), "5.2 mm");
+        assert_eq!(si(mm(0.0)), "0 mm");
+        assert_eq!(si(mm(-0.0)), "0 mm");
+        // 42.67 mm = 1.6799 in (1 in = 25.4 mm, NIST SP 811): 1.68 in up, 1.67 in down.
+        assert_eq!(
+            render(&mm_rounded(0.04267, true), Units::UsCustomary),
+            "1.68 in"
+        );
+        assert_eq!(
+            render(&mm_rounded(0.04267, false), Units::UsCustomary),
+            "1.67 in"
+        );
     }
 }

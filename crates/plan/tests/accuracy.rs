@@ -12,6 +12,7 @@ use gw_plan::document::RequiredAccuracy;
 use gw_plan::edit::{ItemKind, add};
 use gw_plan::evaluate::{EvalOptions, Severity, evaluate};
 use gw_plan::gallery::model_gallery;
+use gw_plan::units::Units;
 use gw_plan::{PlanArm, PlanGauge, Project, save_project};
 
 fn saved(project: &Project, test: &str) -> PathBuf {
@@ -70,6 +71,10 @@ fn a_single_hoop_grid_that_reads_high_fails_a_stated_accuracy() {
         "{}",
         fail.message
     );
+    // The same finding read in US customary units: the pressure in psi.
+    let us = fail.text(Units::UsCustomary);
+    assert!(us.contains(" psi") && !us.contains("MPa"), "{us}");
+    assert!(us.contains("predicted error ±"), "{us}");
     let after = check(&saved(&project, "two-percent"));
     assert_eq!(after.code, 1, "{}", after.stdout);
     assert!(

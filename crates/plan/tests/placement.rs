@@ -9,6 +9,7 @@ use gw_mechanics::{
 use gw_plan::Project;
 use gw_plan::demo::demo_project;
 use gw_plan::evaluate::{EvalOptions, Finding, Severity, Target, evaluate};
+use gw_plan::units::Units;
 
 const ARM: usize = 0;
 const SHAFT: usize = 1;
@@ -85,6 +86,26 @@ fn a_grid_near_the_clamp_warns_until_it_is_moved_clear() {
     no_warning(&p, ARM, 0, "clamp");
     place(&mut p, ARM, 0, 50.0, -7.5);
     no_warning(&p, ARM, 0, "clamp");
+}
+
+#[test]
+fn a_placement_warning_reads_in_us_customary_units() {
+    let mut p = demo_project();
+    place(&mut p, ARM, 0, 5.0, -7.5);
+    let found = warnings(&p, ARM, 0, "clamp");
+    let us = found[0].text(Units::UsCustomary);
+    // 3.5 mm = 0.1378 in and 60 mm = 2.362 in (1 in = 25.4 mm exactly, NIST SP 811,
+    // Appendix B); the clearance, just under 42.67 mm (1.680 in), is rounded up to the shown
+    // hundredth so that it still keeps the grid clear.
+    for words in [
+        "within 0.138 in of the clamp at x = 0 in",
+        "section depth of 2.36 in",
+        "move it at least 1.68 in from the clamp",
+    ] {
+        assert!(us.contains(words), "{words}: {us}");
+    }
+    assert!(!us.contains(" mm"), "{us}");
+    assert_eq!(found[0].text(Units::Si), found[0].message);
 }
 
 #[test]

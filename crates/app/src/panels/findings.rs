@@ -33,6 +33,7 @@ impl FindingsPanel {
             }
         });
         let mut select = None;
+        let units = doc.units;
         egui::ScrollArea::vertical()
             .max_height(110.0)
             .show(ui, |ui| {
@@ -46,7 +47,7 @@ impl FindingsPanel {
                     ui.horizontal_wrapped(|ui| {
                         ui.colored_label(colour, word);
                         if ui
-                            .link(&f.message)
+                            .link(f.text(units))
                             .on_hover_text("Select the item this is about")
                             .clicked()
                         {
