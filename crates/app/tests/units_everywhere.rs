@@ -1,13 +1,15 @@
 //! One unit switch converts the inspector: with US customary units chosen from the Units menu,
 //! a gauge, a load case, a bridge and a part show inches, °F, ppm/°F and W/in², never mm, °C
-//! or ppm/°C; and a temperature range typed in °F is stored in °C.
+//! or ppm/°C; and a temperature range typed in °F is stored in °C. A lead's resistance reads
+//! per foot; angles, gauge factors and other fixed-unit numbers carry no noise digits; the
+//! face view's readout and the map legend follow the switch too.
 
 mod support;
 
 use egui::accesskit::Role;
 use egui_kittest::kittest::{NodeT, Queryable};
 use gw_app::units::Units;
-use support::{App, app_on, menu, select, set_number};
+use support::{App, Look, app_on, control, menu, select, set_number};
 
 /// The demo in US customary units.
 fn demo_in_us() -> App {
@@ -113,4 +115,156 @@ fn a_range_typed_in_fahrenheit_is_stored_in_celsius() {
     menu(&mut h, "Units", "SI (mm, N, MPa, °C)");
     assert_eq!(number_value(&h, "Temperature from"), "-10.0 °C");
     assert_eq!(number_value(&h, "Temperature to"), "40.0 °C");
+}
+
+/// Exact by definition (NIST SP 811, 2008, Appendix B): 1 ft = 0.3048 m, 1 in = 0.0254 m.
+const FOOT_M: f64 = 0.3048;
+const INCH_M: f64 = 0.0254;
+
+/// The number and the unit of a field's text: "0.0396 Ω/ft" → (0.0396, "Ω/ft").
+fn number_and_unit(text: &str) -> (f64, String) {
+    let (number, unit) = text.split_once(' ').unwrap_or((text, ""));
+    let value = number
+        .parse::<f64>()
+        .unwrap_or_else(|_| panic!("\"{text}\" does not start with a number"));
+    (value, unit.to_owned())
+}
+
+/// Decimal places written in a number's text.
+fn places(text: &str) -> usize {
+    let number = text.split(' ').next().unwrap_or_default();
+    number.split_once('.').map_or(0, |(_, d)| d.len())
+}
+
+#[test]
+fn lead_resistance_reads_per_foot_and_a_typed_value_is_stored_per_metre() {
+    let mut h = demo_in_us();
+    select(&mut h, "Bridge Arm bending");
+    // The demo's leads: 0.13 Ω/m, 12 m.
+    let text = number_value(&h, "Lead resistance");
+    let (shown, unit) = number_and_unit(&text);
+    assert_eq!(unit, "Ω/ft", "{text}");
+    // 0.13 Ω/m × 0.3048 m/ft = 0.039 624 Ω/ft, shown to three significant digits.
+    assert!((shown - 0.13 * FOOT_M).abs() <= 0.000_05, "{text}");
+    assert_eq!(text, "0.0396 Ω/ft");
+    let (length, unit) = number_and_unit(&number_value(&h, "Lead length"));
+    assert_eq!(unit, "ft");
+    // 12 m / 0.3048 m/ft = 39.37 ft, shown to a tenth.
+    assert!((length - 12.0 / FOOT_M).abs() <= 0.05, "{length} ft");
+
+    set_number(&mut h, "Lead resistance", "0.05");
+    let stored = h.state().doc.project.parts[0].bridges[0].lead.ohm_per_m;
+    // 0.05 Ω/ft / 0.3048 m/ft = 0.164 04 Ω/m.
+    assert!(
+        (stored - 0.05 / FOOT_M).abs() < 1e-12,
+        "stored {stored} Ω/m"
+    );
+    assert_eq!(number_value(&h, "Lead resistance"), "0.05 Ω/ft");
+    menu(&mut h, "Units", "SI (mm, N, MPa, °C)");
+    assert_eq!(number_value(&h, "Lead resistance"), "0.164 Ω/m");
+}
+
+#[test]
+fn angles_and_gauge_factors_show_no_noise_digits() {
+    let mut h = demo_in_us();
+    select(&mut h, "Gauge A1 (single grid)");
+    // The demo's A1 lies along the axis, 50 mm from the end: 50 / 25.4 = 1.9685 in.
+    assert_eq!(number_value(&h, "Angle"), "0 °");
+    let (x, unit) = number_and_unit(&number_value(&h, "Along (x)"));
+    assert_eq!(unit, "in");
+    assert!((x - 0.05 / INCH_M).abs() <= 0.0005, "{x} in");
+    // Typed as a whole angle, read back as one.
+    set_number(&mut h, "Angle", "45");
+    let angle = h.state().doc.project.parts[0].gauges[0].angle_rad;
+    assert!((angle - std::f64::consts::FRAC_PI_4).abs() < 1e-12);
+    assert_eq!(number_value(&h, "Angle"), "45 °");
+
+    select(&mut h, "Bridge Arm bending");
+    // The demo sets the instrument to the gauges' factor, 2.05.
+    assert_eq!(number_value(&h, "Instrument gauge factor"), "2.05");
+    assert_eq!(number_value(&h, "Gain"), "400");
+    assert_eq!(number_value(&h, "Excitation"), "3 V");
+
+    select(&mut h, STOCK_NAME);
+    assert_eq!(number_value(&h, "Gauge factor"), "2.05");
+    assert_eq!(number_value(&h, "Resistance"), "350 Ω");
+    // 0.003 and 0.007 as fractions: 0.3 % and 0.7 %, not 0.30000000000000004.
+    assert_eq!(number_value(&h, "Resistance tolerance"), "0.3 %");
+    assert_eq!(number_value(&h, "Transverse sensitivity"), "0.7 %");
+    // 3 mm grid: 3 / 25.4 = 0.1181 in, at the thousandth an inch field shows.
+    let text = number_value(&h, "Grid length");
+    assert_eq!(places(&text), 3, "{text}");
+    assert!(
+        (number_and_unit(&text).0 - 0.003 / INCH_M).abs() <= 0.0005,
+        "{text}"
+    );
+}
+
+/// Opens a tab of the menu bar (Part, Face, …).
+fn open_tab(h: &mut App, tab: &str) {
+    h.get_all_by_label(tab)
+        .find(|n| n.rect().top() < 30.0)
+        .unwrap_or_else(|| panic!("the {tab} tab in the menu bar"))
+        .click();
+    h.run();
+}
+
+/// The first label whose text contains `part`.
+fn label_containing(h: &App, part: &str) -> String {
+    h.root()
+        .children_recursive()
+        .flat_map(|n| {
+            let a = n.accesskit_node();
+            [a.label(), a.value()]
+        })
+        .flatten()
+        .find(|t| t.contains(part))
+        .unwrap_or_else(|| panic!("no text contains \"{part}\""))
+}
+
+#[test]
+fn face_view_readout_reads_inches_and_whole_degrees() {
+    let mut h = demo_in_us();
+    open_tab(&mut h, "Face");
+    select(&mut h, "Gauge A1 (single grid)");
+    let line = label_containing(&h, "across from the datum");
+    // A1 at x = 50 mm, s = −7.5 mm from the datum at 0: 50 / 25.4 = 1.969 in and
+    // −7.5 / 25.4 = −0.295 in; along the axis, 0°.
+    let along = format!("{:.3} in along", 0.05 / INCH_M);
+    let across = format!("{:.3} in across", -0.0075 / INCH_M);
+    assert!(line.contains(&along), "{line}");
+    assert!(line.contains(&across), "{line}");
+    assert!(line.ends_with("grid at 0°"), "{line}");
+    assert!(!line.contains("mm"), "{line}");
+
+    // Over the gauge, the readout names a grid of the chosen pattern by its length:
+    // 3 mm / 25.4 = 0.118 in.
+    let at = h
+        .get_by_role_and_label(Role::Button, "Gauge A1")
+        .rect()
+        .center();
+    h.hover_at(at);
+    h.run();
+    let reads = label_containing(&h, "single grid along the axis here reads");
+    let grid = format!("A {:.3} in single grid", 0.003 / INCH_M);
+    assert!(reads.starts_with(&grid), "{reads}");
+}
+
+#[test]
+fn map_legend_of_stress_reads_ksi() {
+    let mut h = demo_in_us();
+    open_tab(&mut h, "Part");
+    control(&h, Look::Anywhere, Role::ComboBox, "Map").click();
+    h.run();
+    h.query_all_by_role(Role::ListBox)
+        .find_map(|list| list.query_by_label("Von Mises stress"))
+        .expect("the map list offers von Mises stress")
+        .click();
+    h.run();
+    let legend = label_containing(&h, "Von Mises stress, ");
+    assert_eq!(legend, "Von Mises stress, ksi");
+    // "on the part: 0.000 ksi to 12.34 ksi": both ends in ksi, none in MPa.
+    let range = label_containing(&h, "on the part: ");
+    assert_eq!(range.matches(" ksi").count(), 2, "{range}");
+    assert!(!range.contains("MPa"), "{range}");
 }

@@ -32,12 +32,13 @@ pub struct BridgesPanel {
     catalogue: Option<Catalogue>,
 }
 
-use super::item_fields::{arm_choices, arm_text};
+use super::fields::{BRIDGE_FACTOR, GAUGE_FACTOR};
+use super::item_fields::{arm_choices, arm_text, ohm_text};
 
 /// What sits in an arm, short enough for the schematic.
 fn short_arm_text(arm: &PlanArm) -> String {
     match arm {
-        PlanArm::Completion(c) => format!("{} Ω resistor", c.ohm),
+        PlanArm::Completion(c) => format!("{} resistor", ohm_text(c.ohm)),
         other => arm_text(other),
     }
 }
@@ -165,15 +166,15 @@ impl BridgesPanel {
                 .iter()
                 .find(|p| p.part_index == sel.part)
                 .and_then(|pe| pe.bridge_indices.iter().position(|&b| b == bi).and_then(|k| pe.bridges.get(k)))
-                .map(|be| format!("bridge factor {:.3}", be.bridge_factor))
+                .map(|be| format!("bridge factor {}", BRIDGE_FACTOR.number_text(doc.units, be.bridge_factor)))
                 .unwrap_or_else(|| "not evaluated yet".to_owned());
             ui.label(format!(
-                "{} — measures {}; arrangement: {}; channel {}; instrument gauge factor {:.3}, {factor}. Edit every setting in the inspector.",
+                "{} — measures {}; arrangement: {}; channel {}; instrument gauge factor {}, {factor}. Edit every setting in the inspector.",
                 plan.name,
                 plan.wanted.name(),
                 if plan.arrangement.is_empty() { "custom" } else { &plan.arrangement },
                 plan.channel,
-                plan.gauge_factor_setting,
+                GAUGE_FACTOR.number_text(doc.units, plan.gauge_factor_setting),
             ));
             schematic_ui(ui, plan, doc.units);
             ui.horizontal(|ui| {

@@ -4,15 +4,52 @@
 
 use gw_plan::Project;
 
-use crate::units::{Quantity, Units};
+use crate::units::{Quantity, Units, number_text};
 
 /// How a number is shown.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum Unit {
-    /// A quantity whose unit follows the chosen unit system.
+    /// A quantity whose unit follows the chosen unit system, at the quantity's resolution.
     Of(Quantity),
-    /// A fixed scale and suffix: shown = stored × scale.
-    Scaled(f64, &'static str),
+    /// A fixed scale and suffix: shown = stored × scale, with its digits.
+    Scaled(f64, &'static str, Digits),
+    /// A fixed unit of each system, SI first then US customary, for a quantity the shared
+    /// unit list does not name (a resistance per cable length): shown = stored × scale.
+    PerSystem([(f64, &'static str); 2], Digits),
+}
+
+/// How many decimals a number in a fixed unit shows.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Digits {
+    /// As many decimals as the value needs, at least the first and at most the second: a
+    /// gauge factor reads "2.10" or "2.125", an angle "45" or "12.5".
+    Places(usize, usize),
+    /// Significant digits, trailing zeros dropped, for values that range over decades
+    /// ("0.13 Ω/m", "0.0396 Ω/ft").
+    Significant(u32),
+}
+
+impl Digits {
+    /// The number alone: never "-0", "—" when not finite.
+    pub fn text(self, shown: f64) -> String {
+        let (min, max) = match self {
+            Digits::Places(min, max) => (min, max),
+            Digits::Significant(n) => {
+                let magnitude = if shown == 0.0 || !shown.is_finite() {
+                    0
+                } else {
+                    shown.abs().log10().floor() as i32
+                };
+                (0, (n as i32 - 1 - magnitude).clamp(0, 9) as usize)
+            }
+        };
+        let full = number_text(shown, max);
+        let Some(point) = full.find('.') else {
+            return full;
+        };
+        let keep = full.trim_end_matches('0').len().max(point + 1 + min);
+        full[..keep].trim_end_matches('.').to_owned()
+    }
 }
 
 impl Unit {
@@ -20,7 +57,8 @@ impl Unit {
     pub fn show(self, units: Units, v: f64) -> f64 {
         match self {
             Unit::Of(q) => units.to_display(q, v),
-            Unit::Scaled(k, _) => v * k,
+            Unit::Scaled(k, _, _) => v * k,
+            Unit::PerSystem(each, _) => v * each[system(units)].0,
         }
     }
 
@@ -28,7 +66,8 @@ impl Unit {
     pub fn store(self, units: Units, v: f64) -> f64 {
         match self {
             Unit::Of(q) => units.from_display(q, v),
-            Unit::Scaled(k, _) => v / k,
+            Unit::Scaled(k, _, _) => v / k,
+            Unit::PerSystem(each, _) => v / each[system(units)].0,
         }
     }
 
@@ -36,27 +75,58 @@ impl Unit {
     pub fn suffix(self, units: Units) -> &'static str {
         match self {
             Unit::Of(q) => units.label(q),
-            Unit::Scaled(_, s) => s,
+            Unit::Scaled(_, s, _) => s,
+            Unit::PerSystem(each, _) => each[system(units)].1,
         }
+    }
+
+    /// A shown value as text, without the suffix, at the unit's resolution.
+    pub fn number_text(self, units: Units, shown: f64) -> String {
+        match self {
+            Unit::Of(q) => number_text(shown, units.decimals(q, shown)),
+            Unit::Scaled(_, _, digits) | Unit::PerSystem(_, digits) => digits.text(shown),
+        }
+    }
+}
+
+/// The position of a unit system in a [`Unit::PerSystem`] pair.
+fn system(units: Units) -> usize {
+    match units {
+        Units::Si => 0,
+        Units::UsCustomary => 1,
     }
 }
 
 /// Millimetres or inches.
 pub const LENGTH: Unit = Unit::Of(Quantity::Length);
-/// A fraction shown in per cent.
-pub const PERCENT: Unit = Unit::Scaled(100.0, "%");
+/// A fraction shown in per cent ("80 %", "0.35 %").
+pub const PERCENT: Unit = Unit::Scaled(100.0, "%", Digits::Places(0, 3));
 /// A strain shown in µε.
-pub const MICROSTRAIN: Unit = Unit::Scaled(1e6, "µε");
-/// A plain number.
-pub const PLAIN: Unit = Unit::Scaled(1.0, "");
+pub const MICROSTRAIN: Unit = Unit::Scaled(1e6, "µε", Digits::Places(0, 1));
+/// A plain number (a multiple, a bridge factor).
+pub const PLAIN: Unit = Unit::Scaled(1.0, "", Digits::Places(0, 3));
+/// A bridge factor: one decimal, up to three where the value has them ("4.0", "2.6", "2.598").
+pub const BRIDGE_FACTOR: Unit = Unit::Scaled(1.0, "", Digits::Places(1, 3));
+/// A gauge factor: two decimals, a third where the value has one ("2.10", "2.125").
+pub const GAUGE_FACTOR: Unit = Unit::Scaled(1.0, "", Digits::Places(2, 3));
+/// An amplifier gain ("1000", "12.5").
+pub const GAIN: Unit = Unit::Scaled(1.0, "", Digits::Places(0, 2));
 /// Ohms.
-pub const OHM: Unit = Unit::Scaled(1.0, "Ω");
+pub const OHM: Unit = Unit::Scaled(1.0, "Ω", Digits::Places(0, 2));
 /// Volts.
-pub const VOLT: Unit = Unit::Scaled(1.0, "V");
+pub const VOLT: Unit = Unit::Scaled(1.0, "V", Digits::Places(0, 3));
 /// A relative change per degree: ppm/°C or ppm/°F.
 pub const PPM_PER_DEGREE: Unit = Unit::Of(Quantity::ExpansionCoefficient);
-/// Radians shown in degrees.
-pub const DEGREES: Unit = Unit::Scaled(180.0 / std::f64::consts::PI, "°");
+/// Radians shown in degrees, to a tenth of a degree ("0", "45", "12.5").
+pub const DEGREES: Unit = Unit::Scaled(180.0 / std::f64::consts::PI, "°", Digits::Places(0, 1));
+/// Metres in a foot, exact by definition (NIST SP 811, 2008, Appendix B): a resistance per
+/// metre times this is the resistance per foot.
+pub const METRES_PER_FOOT: f64 = 0.3048;
+/// Resistance per length of a lead: Ω/m, or Ω/ft in US customary units (stored per metre).
+pub const OHM_PER_CABLE_LENGTH: Unit = Unit::PerSystem(
+    [(1.0, "Ω/m"), (METRES_PER_FOOT, "Ω/ft")],
+    Digits::Significant(3),
+);
 
 type Get<T, V> = Box<dyn Fn(&T) -> V>;
 type Set<T, V> = Box<dyn Fn(&mut T, V)>;
@@ -350,17 +420,52 @@ pub fn optional_number<T>(
 
 #[cfg(test)]
 mod tests {
-    use super::{Unit, read_optional, show_optional};
+    use super::{
+        DEGREES, Digits, GAUGE_FACTOR, OHM_PER_CABLE_LENGTH, Unit, read_optional, show_optional,
+    };
     use crate::units::Units;
 
     #[test]
     fn a_stored_value_shows_as_typed_without_conversion_noise() {
-        let gigaohm = Unit::Scaled(1e-9, "GΩ");
-        let microstrain = Unit::Scaled(1e6, "µε");
+        let gigaohm = Unit::Scaled(1e-9, "GΩ", Digits::Places(0, 2));
+        let microstrain = Unit::Scaled(1e6, "µε", Digits::Places(0, 1));
         for (typed, unit) in [("6.6", gigaohm), ("15.6", gigaohm), ("-127.9", microstrain)] {
             let stored = read_optional(typed, unit, Units::Si).unwrap();
             assert_eq!(show_optional(stored, unit, Units::Si), typed);
         }
         assert_eq!(show_optional(None, gigaohm, Units::Si), "");
+    }
+
+    #[test]
+    fn fixed_units_show_the_digits_the_value_needs() {
+        let shown = |unit: Unit, stored: f64| {
+            let units = Units::Si;
+            unit.number_text(units, unit.show(units, stored))
+        };
+        // π/4 rad is 45° (definition of the radian); a whole angle shows no decimals.
+        assert_eq!(shown(DEGREES, std::f64::consts::FRAC_PI_4), "45");
+        assert_eq!(shown(DEGREES, 0.0), "0");
+        assert_eq!(shown(DEGREES, 12.5f64.to_radians()), "12.5");
+        assert_eq!(shown(DEGREES, -1e-12), "0");
+        assert_eq!(shown(GAUGE_FACTOR, 2.1), "2.10");
+        assert_eq!(shown(GAUGE_FACTOR, 4.0), "4.00");
+        assert_eq!(shown(GAUGE_FACTOR, 2.125), "2.125");
+        assert_eq!(Digits::Places(0, 1).text(f64::NAN), "—");
+        assert_eq!(Digits::Places(0, 1).text(1000.0), "1000");
+        assert_eq!(Digits::Significant(3).text(0.1300), "0.13");
+        assert_eq!(Digits::Significant(3).text(1234.6), "1235");
+    }
+
+    #[test]
+    fn lead_resistance_per_foot_in_us_customary_units() {
+        // 1 ft = 0.3048 m exactly (NIST SP 811, Appendix B): 0.13 Ω/m is 0.039 624 Ω/ft.
+        let us = Units::UsCustomary;
+        let per_ft = OHM_PER_CABLE_LENGTH.show(us, 0.13);
+        assert!((per_ft - 0.039_624).abs() < 1e-12, "{per_ft}");
+        assert_eq!(OHM_PER_CABLE_LENGTH.suffix(us), "Ω/ft");
+        assert_eq!(OHM_PER_CABLE_LENGTH.number_text(us, per_ft), "0.0396");
+        assert!((OHM_PER_CABLE_LENGTH.store(us, 0.039_624) - 0.13).abs() < 1e-12);
+        assert_eq!(OHM_PER_CABLE_LENGTH.suffix(Units::Si), "Ω/m");
+        assert_eq!(OHM_PER_CABLE_LENGTH.show(Units::Si, 0.13), 0.13);
     }
 }

@@ -4,7 +4,7 @@
 use gw_plan::Project;
 use gw_plan::edit::Item;
 
-use super::fields::{Editor, Field, Group, Unit};
+use super::fields::{Editor, Field, Group};
 use super::item_fields;
 use crate::command::Command;
 use crate::state::DocumentState;
@@ -67,11 +67,10 @@ fn number_ui<T: Clone>(
     let mut drag = egui::DragValue::new(&mut shown)
         .speed(speed)
         .max_decimals(6);
-    if let Unit::Of(q) = *unit {
-        // The quantity's own resolution, so a field never reads "0.0000 mm" or "17.7165 in".
-        drag =
-            drag.custom_formatter(move |v, _| crate::units::number_text(v, units.decimals(q, v)));
-    }
+    // The unit's own resolution, so a field never reads "0.0000 mm", "17.7165 in", "0.000 °"
+    // or "2.1000" for a gauge factor.
+    let unit = *unit;
+    drag = drag.custom_formatter(move |v, _| unit.number_text(units, v));
     let r = ui
         .add(
             drag

@@ -15,7 +15,7 @@ use gw_plan::document::{BridgeFactorOverride, GaugeLot, PaperSize, RequiredAccur
 use gw_plan::{BridgePlan, LoadCase, Part, PlanArm, PlanGauge, Project, StockGauge};
 
 use super::fields::*;
-use crate::units::Quantity;
+use crate::units::{Quantity, Units};
 
 /// Project header, reference temperature, warning level, lead colours and notes.
 pub fn project_groups() -> Vec<Group<Project>> {
@@ -421,7 +421,7 @@ fn stock_type_fields() -> Vec<Field<StockGauge>> {
         num(
             "spec.gauge_factor",
             "Gauge factor",
-            PLAIN,
+            GAUGE_FACTOR,
             "Gauge factor at the reference temperature",
             |s: &StockGauge| s.spec.gauge_factor,
             |s, v| s.spec.gauge_factor = v,
@@ -1566,7 +1566,7 @@ fn lot_value_fields() -> Vec<Field<PlanGauge>> {
     out.push(lot_num(
         "lot.gauge_factor",
         "Gauge factor",
-        PLAIN,
+        GAUGE_FACTOR,
         "Gauge factor of the lot",
         |l| l.gauge_factor,
         |l, v| l.gauge_factor = v,
@@ -1632,8 +1632,17 @@ pub fn arm_text(arm: &PlanArm) -> String {
     match arm {
         PlanArm::Grid { gauge, grid } => format!("{gauge} grid {grid}"),
         PlanArm::Dummy { gauge, grid } => format!("dummy like {gauge} grid {grid}"),
-        PlanArm::Completion(c) => format!("{} Ω completion resistor", c.ohm),
+        PlanArm::Completion(c) => format!("{} completion resistor", ohm_text(c.ohm)),
     }
+}
+
+/// A resistance in words, at the resistance fields' digits: "350 Ω", "349.5 Ω".
+pub fn ohm_text(ohm: f64) -> String {
+    format!(
+        "{} {}",
+        OHM.number_text(Units::Si, ohm),
+        OHM.suffix(Units::Si)
+    )
 }
 
 fn arm_field(k: usize, choices: &[PlanArm]) -> Field<BridgePlan> {
@@ -1788,7 +1797,7 @@ fn signal_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
         num(
             "signal.gain",
             "Gain",
-            PLAIN,
+            GAIN,
             "Amplifier voltage gain",
             |p: &BridgePlan| p.signal.gain,
             |p, v| p.signal.gain = v,
@@ -1812,7 +1821,7 @@ fn signal_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
         num(
             "signal.amplifier_noise_v_per_rt_hz",
             "Noise density",
-            Unit::Scaled(1e9, "nV/√Hz"),
+            Unit::Scaled(1e9, "nV/√Hz", Digits::Places(0, 1)),
             "Amplifier input voltage noise density",
             |p: &BridgePlan| p.signal.amplifier_noise_v_per_rt_hz,
             |p, v| p.signal.amplifier_noise_v_per_rt_hz = v,
@@ -1820,7 +1829,7 @@ fn signal_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
         num(
             "signal.bandwidth_hz",
             "Bandwidth",
-            Unit::Scaled(1.0, "Hz"),
+            Unit::Scaled(1.0, "Hz", Digits::Places(0, 1)),
             "Measurement bandwidth",
             |p: &BridgePlan| p.signal.bandwidth_hz,
             |p, v| p.signal.bandwidth_hz = v,
@@ -1855,7 +1864,7 @@ fn signal_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
         num(
             "amplifier_input_ohm",
             "Amplifier input",
-            Unit::Scaled(1e-6, "MΩ"),
+            Unit::Scaled(1e-6, "MΩ", Digits::Places(0, 2)),
             "Differential input resistance of the amplifier",
             |p: &BridgePlan| p.amplifier_input_ohm.unwrap_or(f64::NAN),
             |p, v| p.amplifier_input_ohm = Some(v),
@@ -1964,7 +1973,7 @@ fn excitation_fields() -> Vec<Field<BridgePlan>> {
         num(
             "excitation.Current.amps",
             "Excitation current",
-            Unit::Scaled(1e3, "mA"),
+            Unit::Scaled(1e3, "mA", Digits::Places(0, 3)),
             "Bridge excitation current (constant current)",
             |p: &BridgePlan| match p.excitation {
                 Excitation::Current { amps } => amps,
@@ -2049,7 +2058,7 @@ fn factor_fields(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<Field
         num(
             "gauge_factor_setting",
             "Instrument gauge factor",
-            PLAIN,
+            GAUGE_FACTOR,
             "Gauge factor set on the instrument",
             |p: &BridgePlan| p.gauge_factor_setting,
             |p, v| p.gauge_factor_setting = v,
@@ -2077,7 +2086,7 @@ fn factor_fields(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<Field
         out.push(num(
             "bridge_factor_override.value",
             "Bridge factor",
-            PLAIN,
+            BRIDGE_FACTOR,
             "The bridge factor the instrument is set to",
             |p: &BridgePlan| {
                 p.bridge_factor_override
@@ -2255,7 +2264,7 @@ fn accuracy_fields(part: &Part, plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
         Some(RequiredAccuracy::PercentOfReading(_)) => out.push(num(
             "required_accuracy.PercentOfReading",
             "Within ±",
-            Unit::Scaled(1.0, "% of reading"),
+            Unit::Scaled(1.0, "% of reading", Digits::Places(0, 3)),
             "The error allowed, as a percentage of the wanted load in each load case",
             |p: &BridgePlan| p.required_accuracy.map(|a| a.amount()).unwrap_or(f64::NAN),
             |p, v| p.required_accuracy = Some(RequiredAccuracy::PercentOfReading(v)),
@@ -2287,8 +2296,8 @@ fn lead_fields() -> Vec<Field<BridgePlan>> {
         num(
             "lead.ohm_per_m",
             "Lead resistance",
-            Unit::Scaled(1.0, "Ω/m"),
-            "Resistance per metre of one lead",
+            OHM_PER_CABLE_LENGTH,
+            "Resistance per length of one lead (per metre, or per foot in US customary units)",
             |p: &BridgePlan| p.lead.ohm_per_m,
             |p, v| p.lead.ohm_per_m = v,
         ),

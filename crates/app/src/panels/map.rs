@@ -4,7 +4,7 @@
 use egui::{Color32, Rect, Sense, pos2, vec2};
 use gw_mechanics::{StrainBasis, SurfaceQuantity};
 
-use crate::units::{Units, microstrain};
+use crate::units::{Quantity, Units, microstrain, number_text};
 
 /// Which quantity the colour map shows.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
@@ -132,11 +132,30 @@ impl MapSettings {
 
     /// The unit the legend's ticks are in.
     fn tick_unit(&self, units: Units) -> &'static str {
-        match (self.is_stress(), units) {
-            (false, _) => "µε",
-            (true, Units::Si) => "MPa",
-            (true, Units::UsCustomary) => "ksi",
+        if self.is_stress() {
+            units.label(Quantity::Stress)
+        } else {
+            "µε"
         }
+    }
+
+    /// Legend value per SI value: µε per unit strain, MPa or ksi per pascal.
+    fn tick_scale(&self, units: Units) -> f64 {
+        if self.is_stress() {
+            units.scale_to_display(Quantity::Stress, 1.0)
+        } else {
+            1e6
+        }
+    }
+
+    /// The legend's ticks across `range` as SI values: round numbers of the legend's unit
+    /// (every 100 µε, every 10 MPa, every 2 ksi), so the contours drawn at them are too.
+    pub fn levels(&self, range: (f64, f64), units: Units) -> Vec<f64> {
+        let k = self.tick_scale(units);
+        ticks((range.0 * k, range.1 * k))
+            .into_iter()
+            .map(|t| t / k)
+            .collect()
     }
 
     /// The map choice controls: quantity, direction, thermal expansion, contours.
@@ -232,17 +251,19 @@ impl MapSettings {
                 );
             }
             let text = ui.visuals().text_color();
-            let ticks = ticks(range);
+            let scale = self.tick_scale(units);
+            let ticks = ticks((range.0 * scale, range.1 * scale));
+            let decimals = tick_decimals(&ticks);
             let font = egui::FontId::proportional(10.0);
             let mut last_right = f32::NEG_INFINITY;
             for t in &ticks {
-                let x = bar.left() + bar.width() * ((t - range.0) / (range.1 - range.0)) as f32;
+                let at = (t / scale - range.0) / (range.1 - range.0);
+                let x = bar.left() + bar.width() * at as f32;
                 painter.line_segment(
                     [pos2(x, bar.bottom()), pos2(x, bar.bottom() + 3.0)],
                     egui::Stroke::new(1.0, text),
                 );
-                let label = tick_label(*t, self.is_stress(), units);
-                let label = if label == "-0" { "0".to_owned() } else { label };
+                let label = number_text(*t, decimals);
                 let galley = painter.layout_no_wrap(label, font.clone(), text);
                 let left = x - galley.size().x / 2.0;
                 if left > last_right + 4.0 && x + galley.size().x / 2.0 <= rect.right() {
@@ -277,15 +298,11 @@ pub fn ticks((lo, hi): (f64, f64)) -> Vec<f64> {
     (first..=last).map(|k| k as f64 * step).collect()
 }
 
-/// A tick's label, a plain number in the legend's unit (µε; MPa or ksi).
-fn tick_label(value: f64, stress: bool, units: Units) -> String {
-    match (stress, units) {
-        (false, _) => format!("{:.0}", value * 1e6),
-        (true, Units::Si) => format!("{:.0}", value / 1e6),
-        (true, Units::UsCustomary) => {
-            let ksi = units.to_display(crate::units::Quantity::Pressure, value) / 1e3;
-            format!("{ksi:.1}")
-        }
+/// Decimals that tell round ticks apart: none for steps of 1 and more, one for 0.5 or 0.2.
+fn tick_decimals(ticks: &[f64]) -> usize {
+    match ticks {
+        [a, b, ..] if b > a => (-(b - a).log10().floor()).max(0.0) as usize,
+        _ => 0,
     }
 }
 
@@ -348,5 +365,39 @@ mod tests {
         assert_eq!(r, (0.0, 5e-4));
         assert_eq!(m.colour(5e-4, r), diverging(1.0));
         assert_eq!(m.colour(0.0, r), diverging(0.0));
+    }
+
+    #[test]
+    fn stress_ticks_are_round_in_ksi_in_us_customary_units() {
+        let m = MapSettings {
+            quantity: MapQuantity::VonMises,
+            ..MapSettings::default()
+        };
+        // 1 ksi = 6.894 757 MPa (NIST SP 811, Appendix B: 1 psi = 6 894.757 Pa).
+        let ksi_pa = 6.894_757e6;
+        let levels = m.levels((0.0, 100e6), Units::UsCustomary);
+        assert!(levels.len() >= 4, "{levels:?}");
+        for pa in &levels {
+            let ksi = pa / ksi_pa;
+            assert!(
+                (ksi - ksi.round()).abs() < 1e-4,
+                "{ksi} ksi is not a round tick"
+            );
+        }
+        let si = m.levels((0.0, 100e6), Units::Si);
+        assert!(
+            si.iter()
+                .all(|pa| (pa / 1e6 - (pa / 1e6).round()).abs() < 1e-9)
+        );
+        assert_eq!(m.tick_unit(Units::UsCustomary), "ksi");
+        assert_eq!(m.tick_unit(Units::Si), "MPa");
+    }
+
+    #[test]
+    fn small_ticks_keep_the_decimals_that_tell_them_apart() {
+        assert_eq!(tick_decimals(&[0.0, 0.5, 1.0]), 1);
+        assert_eq!(tick_decimals(&[0.0, 0.02]), 2);
+        assert_eq!(tick_decimals(&[-200.0, 0.0, 200.0]), 0);
+        assert_eq!(tick_decimals(&[]), 0);
     }
 }

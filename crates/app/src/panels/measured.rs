@@ -12,7 +12,7 @@ use super::checkout_inspector::verdict_colour;
 use crate::command::Command;
 use crate::measured::{ChannelPlot, Derived};
 use crate::state::DocumentState;
-use crate::units::{Quantity, Units, microstrain};
+use crate::units::{Quantity, Units, microstrain, number_text};
 
 /// Colour of measured series.
 const MEASURED: Color32 = Color32::from_rgb(70, 140, 210);
@@ -42,10 +42,12 @@ pub struct MeasuredPanel {
     abscissa: Abscissa,
 }
 
-/// A number with its unit, or "—" when there is none.
+/// A number with its unit, or "—" when there is none; never "-0.0000".
 fn shown(v: f64, decimals: usize, unit: &str) -> String {
     if v.is_finite() {
-        format!("{v:.decimals$} {unit}").trim_end().to_owned()
+        format!("{} {unit}", number_text(v, decimals))
+            .trim_end()
+            .to_owned()
     } else {
         "—".to_owned()
     }
@@ -438,7 +440,11 @@ fn per_load(doc: &DocumentState, f: &CalibrationFit, v: f64, u: Option<f64>) -> 
 fn percent(v: Option<f64>, u: Option<f64>) -> String {
     match (v, u) {
         (Some(v), Some(u)) if v.is_finite() && u.is_finite() => {
-            format!("{:.2} ± {:.2} %", v * 100.0, u * 100.0)
+            format!(
+                "{} ± {} %",
+                number_text(v * 100.0, 2),
+                number_text(u * 100.0, 2)
+            )
         }
         (Some(v), _) => shown(v * 100.0, 2, "%"),
         _ => "—".into(),

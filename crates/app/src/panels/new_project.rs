@@ -13,7 +13,7 @@ use gw_mechanics::{
 use gw_plan::blank::{ModelKind, blank_project, default_material, new_part};
 
 use crate::panels::palette;
-use crate::units::{Quantity, Units};
+use crate::units::{Quantity, Units, number_text};
 
 /// View state of the dialog: the choices so far.
 pub struct NewProjectDialog {
@@ -589,6 +589,8 @@ fn length_row(ui: &mut egui::Ui, units: Units, d: Dimension<'_>) {
                 .update_while_editing(false)
                 .range(0.0..=f64::MAX)
                 .max_decimals(4)
+                // The length's own resolution, as in the inspector ("500.00 mm", "19.685 in").
+                .custom_formatter(|v, _| number_text(v, units.decimals(q, v)))
                 .suffix(format!(" {}", units.label(q))),
         )
         .labelled_by(label_id)

@@ -5,15 +5,15 @@ use gw_mechanics::LoadComponent;
 use gw_plan::installation::{BridgeRecord, GridRecord};
 
 use super::fields::{
-    Field, Group, MICROSTRAIN, OHM, Unit, optional_number, parsed, read_optional, show_optional,
-    text,
+    Digits, Field, Group, MICROSTRAIN, OHM, Unit, optional_number, parsed, read_optional,
+    show_optional, text,
 };
 use crate::units::{Quantity, Units};
 
 /// Insulation, entered in GΩ.
-const GIGAOHM: Unit = Unit::Scaled(1e-9, "GΩ");
+const GIGAOHM: Unit = Unit::Scaled(1e-9, "GΩ", Digits::Places(0, 2));
 /// A bridge reading in mV/V.
-const MV_PER_V: Unit = Unit::Scaled(1.0, "mV/V");
+const MV_PER_V: Unit = Unit::Scaled(1.0, "mV/V", Digits::Places(0, 4));
 
 fn date_and_initials<T: 'static>(
     date: fn(&T) -> &String,

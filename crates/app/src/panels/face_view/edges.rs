@@ -12,6 +12,7 @@ use gw_plan::drawing::face_layout::{
 };
 
 use super::{BAND, Scene, View, to_rect, to_screen_rect};
+use crate::panels::fields::Digits;
 use crate::units::{Quantity, Units};
 
 /// Space between a label and what it names, points.
@@ -387,6 +388,7 @@ fn load_point_text(scene: &Scene, count: usize, k: usize, multiple: f64) -> Stri
         "load point".to_owned()
     };
     if (multiple - 1.0).abs() > 1e-9 {
+        let multiple = Digits::Places(0, 3).text(multiple);
         name.push_str(&format!(" (×{multiple})"));
     }
     let forces: Vec<String> = [LoadComponent::VerticalForce, LoadComponent::LateralForce]

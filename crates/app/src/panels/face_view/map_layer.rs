@@ -7,7 +7,8 @@ use gw_plan::drawing::contour::{contour_segments, grid_triangles};
 use gw_plan::drawing::probe::principal_strain_at;
 
 use super::{FaceView, Scene, View};
-use crate::panels::map::{MapSettings, ticks};
+use crate::panels::map::MapSettings;
+use crate::units::Units;
 
 const MAP_NX: usize = 192;
 const MAP_NS: usize = 96;
@@ -16,8 +17,9 @@ const MARK_SPACING: f32 = 34.0;
 /// Length of a principal-direction stroke, points.
 const MARK_LENGTH: f32 = 16.0;
 
-/// What the map was made for: evaluation count, part, load case, face and settings.
-type MapKey = (u64, usize, usize, Face, MapSettings);
+/// What the map was made for: evaluation count, part, load case, face, settings and the units
+/// (the contours follow the legend's ticks, round in the unit shown).
+type MapKey = (u64, usize, usize, Face, MapSettings, Units);
 
 /// The sampled map of the face as a texture, with its value range and contour segments.
 pub(super) struct MapLayer {
@@ -38,6 +40,7 @@ impl FaceView {
             scene.sel.case,
             scene.face,
             *settings,
+            scene.units,
         );
         if self.map.as_ref().is_some_and(|m| m.key == key) {
             return;
@@ -75,7 +78,7 @@ impl MapLayer {
             .ctx()
             .load_texture("face map", image, egui::TextureOptions::LINEAR);
         let contours = if settings.contours {
-            contours_of(&map, range)
+            contours_of(&map, &settings.levels(range, scene.units))
         } else {
             Vec::new()
         };
@@ -154,7 +157,7 @@ fn shifts(scene: &Scene) -> Vec<f64> {
 }
 
 /// Contour segments at the legend's ticks, over the map's sample points.
-fn contours_of(map: &gw_mechanics::SurfaceMap, range: (f64, f64)) -> Vec<[(f64, f64); 2]> {
+fn contours_of(map: &gw_mechanics::SurfaceMap, levels: &[f64]) -> Vec<[(f64, f64); 2]> {
     let points: Vec<[f64; 2]> = map
         .s_m
         .iter()
@@ -162,7 +165,7 @@ fn contours_of(map: &gw_mechanics::SurfaceMap, range: (f64, f64)) -> Vec<[(f64, 
         .collect();
     let triangles = grid_triangles(map.x_m.len(), map.s_m.len());
     let mut out = Vec::new();
-    for level in ticks(range) {
+    for &level in levels {
         for [p, q] in contour_segments(&map.values, &triangles, level) {
             let (a, b) = (p.point(&points), q.point(&points));
             out.push([(a[0], a[1]), (b[0], b[1])]);

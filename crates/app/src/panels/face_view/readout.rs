@@ -8,8 +8,9 @@ use gw_plan::drawing::face_layout::normalised_deg;
 use gw_plan::drawing::probe::{probe_readings, probe_spec};
 
 use super::{FaceView, Scene, View};
+use crate::panels::fields::Digits;
 use crate::panels::map::MapSettings;
-use crate::units::microstrain;
+use crate::units::{Quantity, Units, microstrain};
 
 impl FaceView {
     /// The two readout lines, the legend and the selection line, each on one line that is
@@ -61,9 +62,9 @@ impl FaceView {
         };
         let place = match scene.radius_m() {
             Some(r) => format!(
-                "x {}, {:.1}° from the top line (arc {})",
+                "x {}, {}° from the top line (arc {})",
                 scene.length(point.x_m),
-                normalised_deg((point.s_m / r).to_degrees()),
+                TENTH_DEGREE.text(normalised_deg((point.s_m / r).to_degrees())),
                 scene.length(point.s_m)
             ),
             None => format!(
@@ -87,15 +88,18 @@ impl FaceView {
         let spec = probe_spec(&scene.doc.project, self.pattern);
         let second = match probe_readings(member, &scene.loads, &spec, point, 0.0, settings.basis) {
             Some(r) if self.pattern == GaugePattern::SingleGrid => format!(
-                "A {} mm single grid along the axis here reads {} (averaged over its grid)",
-                trim(spec.grid_length_m * 1e3),
+                "A {} single grid along the axis here reads {} (averaged over its grid)",
+                short_length(scene.units, spec.grid_length_m),
                 r.first()
                     .map_or_else(String::new, |g| microstrain(g.strain))
             ),
             Some(r) => {
                 let parts: Vec<String> = r
                     .iter()
-                    .map(|g| format!("{:.0}° grid {}", g.angle_deg, microstrain(g.strain)))
+                    .map(|g| {
+                        let angle = TENTH_DEGREE.text(g.angle_deg);
+                        format!("{angle}° grid {}", microstrain(g.strain))
+                    })
                     .collect();
                 format!(
                     "A {} here (reference along the axis) reads: {}",
@@ -115,18 +119,37 @@ impl FaceView {
         };
         let (dx, ds) = scene.part.datum_m;
         format!(
-            "{} on the {}: {} along, {} across from the datum, grid at {:.1}°",
+            "{} on the {}: {} along, {} across from the datum, grid at {}°",
             g.id,
             g.position.face.name(),
             scene.length(g.position.x_m - dx),
             scene.length(g.position.s_m - ds),
-            g.angle_rad.to_degrees()
+            TENTH_DEGREE.text(g.angle_rad.to_degrees())
         )
     }
 }
 
-/// "3", "1.5": a short number.
-fn trim(v: f64) -> String {
-    let s = format!("{v:.2}");
-    s.trim_end_matches('0').trim_end_matches('.').to_owned()
+/// Angles in the readout: to a tenth of a degree, whole ones without decimals ("45", "12.5").
+const TENTH_DEGREE: Digits = Digits::Places(0, 1);
+
+/// A grid size in words: "3 mm", "1.5 mm", "0.118 in" (the length's resolution, trailing zeros
+/// dropped).
+fn short_length(units: Units, length_m: f64) -> String {
+    let shown = units.to_display(Quantity::Length, length_m);
+    let decimals = units.decimals(Quantity::Length, shown);
+    let number = Digits::Places(0, decimals).text(shown);
+    format!("{number} {}", units.label(Quantity::Length))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn grid_sizes_read_in_the_chosen_units() {
+        assert_eq!(short_length(Units::Si, 0.003), "3 mm");
+        assert_eq!(short_length(Units::Si, 0.0015), "1.5 mm");
+        // 3 mm / 25.4 mm per inch (NIST SP 811, Appendix B) = 0.1181 in.
+        assert_eq!(short_length(Units::UsCustomary, 0.003), "0.118 in");
+    }
 }

@@ -10,7 +10,7 @@ use gw_plan::drawing::face_layout::{
 };
 
 use super::{FIT_MARGIN, FaceView, SIDE_RULER, Scene, TOP_RULER, View, ViewRequest, gauges};
-use crate::units::Quantity;
+use crate::units::{Quantity, number_text};
 
 /// Smallest spacing of labelled ruler ticks, points: along the top (labels side by side) and
 /// down the side (labels stacked).
@@ -127,7 +127,7 @@ fn angle_ruler_ui(painter: &Painter, _scene: &Scene, view: View, r: f64, text: C
         painter.text(
             pos2(x - 9.0, y),
             Align2::RIGHT_CENTER,
-            format!("{:.0}°", normalised_deg(t)),
+            format!("{}°", number_text(normalised_deg(t), 0)),
             ruler_font(),
             text,
         );

@@ -83,6 +83,7 @@ impl PartView {
             part: sel.part,
             case: sel.case,
             map: *map,
+            units: doc.units,
         };
         if self.scene.as_ref().is_none_or(|s| s.key != key) {
             let loads = part
@@ -395,7 +396,8 @@ fn case_text(doc: &DocumentState) -> String {
     }
     if let Member::GivenState(_) = part.member {
         let k = case.value(gw_mechanics::LoadComponent::GivenStateFactor);
-        text += &format!("\nGiven state × {k:.3}");
+        let k = crate::panels::fields::Digits::Places(0, 3).text(k);
+        text += &format!("\nGiven state × {k}");
     }
     text
 }

@@ -12,7 +12,8 @@ use gw_plan::drawing::load_glyphs::{GlyphShape, LoadGlyph, load_glyphs};
 use gw_plan::drawing::part_mesh::{PartMesh, Region};
 
 use super::camera::Camera;
-use crate::panels::map::{MapSettings, ticks};
+use crate::panels::map::MapSettings;
+use crate::units::Units;
 
 /// What the scene was built for.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -25,6 +26,8 @@ pub struct SceneKey {
     pub case: usize,
     /// Map choice.
     pub map: MapSettings,
+    /// Units: the contours lie at the legend's ticks, round in the unit shown.
+    pub units: Units,
 }
 
 /// A contour segment in space with the normal of the surface it lies on.
@@ -98,7 +101,7 @@ impl Scene {
             },
         );
         let contours = if map.contours {
-            contour_lines(&mesh, &values, range)
+            contour_lines(&mesh, &values, range, &map.levels(range, key.units))
         } else {
             Vec::new()
         };
@@ -121,6 +124,7 @@ fn contour_lines(
     mesh: &PartMesh,
     values: &[Option<f64>],
     range: (f64, f64),
+    levels: &[f64],
 ) -> Vec<ContourSegment> {
     let faces: Vec<[u32; 3]> = mesh
         .triangles
@@ -130,7 +134,7 @@ fn contour_lines(
         .map(|(t, _)| *t)
         .collect();
     let mut out = Vec::new();
-    for level in ticks(range) {
+    for &level in levels {
         if level <= range.0 || level >= range.1 {
             continue;
         }
