@@ -113,12 +113,22 @@ impl ResultsTab {
 }
 
 /// The unit systems `--units` can show.
-#[derive(Clone, Copy, Debug, clap::ValueEnum)]
+#[derive(Clone, Copy, Debug, Default, clap::ValueEnum)]
 enum UnitsArg {
     /// mm, N, N·m, MPa, °C.
+    #[default]
     Si,
     /// in, lbf, lbf·in, psi, °F.
     Us,
+}
+
+impl UnitsArg {
+    fn units(self) -> Units {
+        match self {
+            UnitsArg::Si => Units::Si,
+            UnitsArg::Us => Units::UsCustomary,
+        }
+    }
 }
 
 /// The views `--view` can open on. Each maps to one tab of the app.
@@ -180,6 +190,10 @@ enum Command {
     Check {
         /// Project file (.ron).
         file: PathBuf,
+        /// Units of the printed figures: si (mm, N, N·m, MPa, °C) or us (in, lbf, lbf·in, psi
+        /// and ksi, °F). Strain is µε in both.
+        #[arg(long, value_name = "SYSTEM", value_enum, default_value_t = UnitsArg::Si)]
+        units: UnitsArg,
     },
     /// Print every computed figure: a readable summary per bridge and load case (settings,
     /// mV/V, displayed µε, margins, rejection, noise, uncertainty), or everything as JSON with
@@ -193,6 +207,10 @@ enum Command {
         /// Include the Monte Carlo uncertainty propagation (slower).
         #[arg(long)]
         monte_carlo: bool,
+        /// Units of the summary: si (mm, N, N·m, MPa, °C) or us (in, lbf, lbf·in, psi and ksi,
+        /// °F). The JSON of --json is always SI (m, N, N·m, Pa, °C, strain as a ratio).
+        #[arg(long, value_name = "SYSTEM", value_enum, default_value_t = UnitsArg::Si)]
+        units: UnitsArg,
     },
     /// Write the build sheet (PDF) and optionally the acquisition channel list (CSV).
     Sheet {
@@ -207,6 +225,10 @@ enum Command {
         /// Replace an existing project at the output paths (never the project being read).
         #[arg(long)]
         force: bool,
+        /// Units of the sheet and of the channel list's load per mV/V: si (mm, N, N·m, MPa,
+        /// °C) or us (in, lbf, lbf·in, psi and ksi, °F). Strain is µε in both.
+        #[arg(long, value_name = "SYSTEM", value_enum, default_value_t = UnitsArg::Si)]
+        units: UnitsArg,
     },
     /// Reduce a logged test against the plan: zero, shunt span correction, bridge factor,
     /// loads, rosettes, recovered loads and in-place calibration. Writes one row per sample
@@ -344,15 +366,23 @@ fn parse() -> Cli {
             ("part", "--part"),
             ("camera", "--camera"),
             ("screenshot", "--screenshot"),
+            (
+                "units",
+                "--units before the subcommand (give it after the subcommand's FILE)",
+            ),
         ] {
             if matches.value_source(id) == Some(ValueSource::CommandLine) {
-                Cli::command()
-                    .error(
-                        ErrorKind::ArgumentConflict,
-                        format!(
-                            "{shown} is for the desktop app and cannot be used with `{subcommand}`"
-                        ),
+                // check, eval and sheet take their own --units, after the subcommand.
+                let own = id == "units" && ["check", "eval", "sheet"].contains(&subcommand);
+                let message = if own {
+                    format!(
+                        "--units goes after the subcommand: `gaugewright {subcommand} FILE --units us`"
                     )
+                } else {
+                    format!("{shown} is for the desktop app and cannot be used with `{subcommand}`")
+                };
+                Cli::command()
+                    .error(ErrorKind::ArgumentConflict, message)
                     .exit();
             }
         }
@@ -363,15 +393,16 @@ fn parse() -> Cli {
 /// Runs a subcommand and returns its exit status.
 fn run_subcommand(command: Command) -> ExitCode {
     match command {
-        Command::Check { file } => finish(gw_plan::cli::check(&file)),
+        Command::Check { file, units } => finish(gw_plan::cli::check_in(&file, units.units())),
         Command::Eval {
             file,
             json,
             monte_carlo,
+            units,
         } => finish(if json {
             gw_plan::cli::eval_json(&file, monte_carlo)
         } else {
-            gw_plan::cli::eval_summary(&file, monte_carlo)
+            gw_plan::cli::eval_summary_in(&file, monte_carlo, units.units())
         }),
         Command::Demo {
             out,
@@ -387,7 +418,14 @@ fn run_subcommand(command: Command) -> ExitCode {
             output,
             csv,
             force,
-        } => finish(gw_plan::cli::sheet(&file, &output, csv.as_deref(), force)),
+            units,
+        } => finish(gw_plan::cli::sheet_in(
+            &file,
+            &output,
+            csv.as_deref(),
+            force,
+            units.units(),
+        )),
         Command::Reduce {
             plan,
             data,
@@ -445,10 +483,7 @@ fn main() -> ExitCode {
     let part = cli.part.map(|n| n as usize - 1);
     let preset = cli.camera.preset();
     let results = cli.results.plot_view();
-    let units = cli.units.map(|u| match u {
-        UnitsArg::Si => Units::Si,
-        UnitsArg::Us => Units::UsCustomary,
-    });
+    let units = cli.units.map(UnitsArg::units);
     let file = cli.file;
     let screenshot = cli.screenshot.map(screenshot::ScreenshotRequest::new);
     let outcome = screenshot.as_ref().map(|r| r.outcome());

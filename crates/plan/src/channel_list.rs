@@ -2,7 +2,10 @@
 
 use std::fmt::Write;
 
+use gw_mechanics::LoadComponent;
+
 use crate::evaluate::Evaluation;
+use crate::units::{Quantity, Units};
 
 fn field(s: &str) -> String {
     if s.contains([',', '"', '\n']) {
@@ -44,7 +47,27 @@ fn four_decimals(value: f64) -> String {
 /// predicted or from an in-place calibration, shunt value and its expected
 /// reading, and the expected reading (mV/V and µε) at every load case of the part with the
 /// share of it the case's temperature change causes (µε; the conversion applies to the rest).
+///
+/// The wanted load per mV/V is in the load's SI unit (N, N·m, Pa, °C), as `wanted_unit` says.
 pub fn channel_list_csv(ev: &Evaluation) -> String {
+    channel_list_csv_in(ev, Units::Si)
+}
+
+/// The unit the channel list gives a wanted load in, with its size per SI unit: the SI unit
+/// itself (N, Pa: what acquisition software takes), or the US customary display unit.
+fn wanted_unit(units: Units, c: LoadComponent) -> (f64, &'static str) {
+    match units {
+        Units::Si => (1.0, c.unit()),
+        Units::UsCustomary => {
+            let q = Quantity::of(c);
+            (units.scale_to_display(q, 1.0), units.label(q))
+        }
+    }
+}
+
+/// [`channel_list_csv`] with the wanted load per mV/V in `units` (SI units as there; US
+/// customary: lbf, lbf·in, psi, ksi, °F per mV/V). Strains stay µε and outputs mV/V.
+pub fn channel_list_csv_in(ev: &Evaluation, units: Units) -> String {
     let mut out = String::new();
     let _ = writeln!(
         out,
@@ -58,9 +81,10 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
         for b in &part.bridges {
             // Displayed strain = 4 (Vo/Vex) / (GF · bridge factor): µε per mV/V.
             let microstrain_per_mv_per_v = 4000.0 / (b.gauge_factor_setting * b.bridge_factor);
+            let (scale, unit) = wanted_unit(units, b.wanted);
             let wanted_per_mv_per_v = b
                 .channel_load_per_mv_per_v()
-                .map(significant)
+                .map(|k| significant(k * scale))
                 .unwrap_or_default();
             let source = match &b.calibration {
                 Some(_) => "in-place calibration",
@@ -97,7 +121,7 @@ pub fn channel_list_csv(ev: &Evaluation) -> String {
                     b.bridge_factor,
                     microstrain_per_mv_per_v,
                     field(b.wanted.name()),
-                    field(b.wanted.unit()),
+                    field(unit),
                     wanted_per_mv_per_v,
                     zero,
                     shunt_ohm,

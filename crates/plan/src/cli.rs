@@ -4,8 +4,10 @@
 //! Exit status of every subcommand: 0 when nothing fails, 1 when a margin fails or something
 //! could not be computed (the output is still complete), 2 when the project file is broken or
 //! unreadable, or an output file cannot be written.
+//!
+//! The human summaries and the build sheet speak the unit system asked for (SI unless told);
+//! the JSON of `eval --json` and the channel list's SI columns stay SI.
 
-use gw_bridge::units::si;
 use std::fmt::Write;
 use std::path::Path;
 
@@ -15,6 +17,8 @@ use crate::evaluate::{
     BridgeEvaluation, EvalOptions, Evaluation, Severity, UncertaintyDepth, evaluate,
 };
 use crate::io::{PlanError, load_project, save_project};
+use crate::sheet::finding_text;
+use crate::units::{Quantity, Units};
 
 /// What a subcommand prints and returns.
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -45,9 +49,14 @@ fn ue(strain: f64) -> String {
     format!("{:.1} µε", strain * 1e6)
 }
 
-/// `gaugewright check FILE`: validates and prints margins and warnings; status 1 when any
-/// margin fails.
+/// `gaugewright check FILE`: validates and prints margins and warnings in SI; status 1 when
+/// any margin fails.
 pub fn check(path: &Path) -> CliOutput {
+    check_in(path, Units::Si)
+}
+
+/// `gaugewright check FILE --units …`: as [`check`], every figure in `units`.
+pub fn check_in(path: &Path, units: Units) -> CliOutput {
     let project = match load_project(path) {
         Ok(p) => p,
         Err(e) => return broken(path, &e),
@@ -55,14 +64,14 @@ pub fn check(path: &Path) -> CliOutput {
     // With the GUM budgets: a required accuracy is checked with the expanded uncertainty, as
     // in the app, `eval` and on the build sheet.
     let ev = evaluate(&project, &EvalOptions::default());
-    summary_output(&project, &ev, Detail::Margins)
+    summary_output(&project, &ev, Detail::Margins, units)
 }
 
 /// The human summary of an evaluation, with the closing verdict, and its exit status.
-fn summary_output(project: &Project, ev: &Evaluation, detail: Detail) -> CliOutput {
+fn summary_output(project: &Project, ev: &Evaluation, detail: Detail, units: Units) -> CliOutput {
     let mut out = String::new();
     let _ = writeln!(out, "{} — {} part(s)", project.name, project.parts.len());
-    write_summary(&mut out, ev, detail);
+    write_summary(&mut out, ev, detail, units);
     let code = status(ev);
     let _ = writeln!(
         out,
@@ -95,76 +104,93 @@ enum Detail {
     Everything,
 }
 
-fn write_summary(out: &mut String, ev: &Evaluation, detail: Detail) {
+fn write_summary(out: &mut String, ev: &Evaluation, detail: Detail, units: Units) {
+    let stress = |pa: f64| units.format_stress(pa);
     for part in &ev.parts {
         let _ = writeln!(out, "\n{} ({})", part.name, part.kind);
         for c in &part.cases {
             let _ = writeln!(
                 out,
-                "  {}: peak von Mises {:.1} MPa {}, {}",
+                "  {}: peak von Mises {} {}, {}",
                 c.case,
-                c.peak_von_mises_pa / 1e6,
-                c.peak_location,
+                stress(c.peak_von_mises_pa),
+                c.peak_location_text(units),
                 c.yield_words()
             );
             if let (Some(membrane), Some(outer)) = (c.membrane_hoop_pa, c.outer_hoop_pa) {
                 let _ = writeln!(
                     out,
-                    "    hoop stress {:.1} MPa at the mean radius (membrane, the design figure), \
-                     {:.1} MPa on the outer surface where the gauges read",
-                    membrane / 1e6,
-                    outer / 1e6
+                    "    hoop stress {} at the mean radius (membrane, the design figure), \
+                     {} on the outer surface where the gauges read",
+                    stress(membrane),
+                    stress(outer)
                 );
             }
         }
-        for b in &part.bridges {
+        write_bridges(out, part, detail, units);
+    }
+    write_findings_and_cautions(out, ev, units);
+}
+
+/// Each bridge of a part: settings (with `Detail::Everything`), readings, margins, accuracy,
+/// the shunt check, and with `Detail::Everything` rejection, noise and uncertainty.
+fn write_bridges(
+    out: &mut String,
+    part: &crate::evaluate::PartEvaluation,
+    detail: Detail,
+    units: Units,
+) {
+    for b in &part.bridges {
+        let _ = writeln!(
+            out,
+            "  bridge \"{}\" ({}), measures {}",
+            b.name,
+            b.arrangement,
+            b.wanted.name()
+        );
+        if detail == Detail::Everything {
+            write_settings(out, b);
+        }
+        for c in &b.cases {
             let _ = writeln!(
                 out,
-                "  bridge \"{}\" ({}), measures {}",
-                b.name,
-                b.arrangement,
-                b.wanted.name()
+                "    {}: {:.4} mV/V, displays {}, target {}",
+                c.case,
+                c.reading.mv_per_v,
+                ue(c.reading.displayed_strain),
+                ue(c.reading.target_strain)
             );
-            if detail == Detail::Everything {
-                write_settings(out, b);
-            }
-            for c in &b.cases {
+            for m in &c.margins {
                 let _ = writeln!(
                     out,
-                    "    {}: {:.4} mV/V, displays {}, target {}",
-                    c.case,
-                    c.reading.mv_per_v,
-                    ue(c.reading.displayed_strain),
-                    ue(c.reading.target_strain)
-                );
-                for m in &c.margins {
-                    let _ = writeln!(
-                        out,
-                        "      {:<42} {:>6.1} %  {}",
-                        m.kind.name(),
-                        m.utilisation * 100.0,
-                        m.status.word()
-                    );
-                }
-                if let Some(a) = b.accuracy.iter().find(|a| a.case == c.case) {
-                    let _ = writeln!(out, "        {}", a.describe(b.wanted.unit()));
-                }
-            }
-            if let Some(s) = &b.shunt {
-                let _ = writeln!(
-                    out,
-                    "    shunt {:.0} Ω across arm {}: expect {}",
-                    s.e96_ohm,
-                    s.arm + 1,
-                    ue(s.expected_reading_strain)
+                    "      {:<42} {:>6.1} %  {}",
+                    m.kind.name(),
+                    m.utilisation * 100.0,
+                    m.status.word()
                 );
             }
-            if detail == Detail::Everything {
-                write_rejection_and_noise(out, b);
-                write_uncertainty(out, b);
+            if let Some(a) = b.accuracy.iter().find(|a| a.case == c.case) {
+                let _ = writeln!(out, "        {}", a.describe(b.wanted, units));
             }
         }
+        if let Some(s) = &b.shunt {
+            let _ = writeln!(
+                out,
+                "    shunt {:.0} Ω across arm {}: expect {}",
+                s.e96_ohm,
+                s.arm + 1,
+                ue(s.expected_reading_strain)
+            );
+        }
+        if detail == Detail::Everything {
+            write_rejection_and_noise(out, b, units);
+            write_uncertainty(out, b, units);
+        }
     }
+}
+
+/// The findings and cautions after the parts.
+fn write_findings_and_cautions(out: &mut String, ev: &Evaluation, units: Units) {
     if !ev.findings.is_empty() {
         let _ = writeln!(out, "\nFindings:");
         for f in &ev.findings {
@@ -173,7 +199,7 @@ fn write_summary(out: &mut String, ev: &Evaluation, detail: Detail) {
                 Severity::Fail => "FAIL",
                 Severity::Warn => "warn",
             };
-            let _ = writeln!(out, "  {word}: {}", f.message);
+            let _ = writeln!(out, "  {word}: {}", finding_text(f, units));
         }
     }
     if !ev.cautions.is_empty() {
@@ -195,7 +221,7 @@ fn write_settings(out: &mut String, b: &BridgeEvaluation) {
 
 /// Rejection of unwanted loads, noise and resolution, the zero band and the conversion to the
 /// wanted load's unit.
-fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation) {
+fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation, units: Units) {
     if !b.rejection.is_empty() {
         let list: Vec<String> = b
             .rejection
@@ -238,20 +264,22 @@ fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation) {
             out,
             "    {} per mV/V: {}",
             b.wanted.name(),
-            si(f, b.wanted.unit())
+            units.format_difference(Quantity::of(b.wanted), f)
         );
     }
 }
 
 /// The uncertainty of the wanted load inferred from the reading, when it was computed.
-fn write_uncertainty(out: &mut String, b: &BridgeEvaluation) {
+fn write_uncertainty(out: &mut String, b: &BridgeEvaluation, units: Units) {
     let Some(u) = &b.uncertainty else { return };
+    let q = Quantity::of(b.wanted);
+    let value = |v: f64| units.format(q, v);
     let case = b.uncertainty_case.as_deref().unwrap_or("—");
     let _ = writeln!(
         out,
         "    uncertainty at \"{case}\": {} ± {} (GUM, {:.0} % coverage)",
-        si(u.gum.value, u.unit),
-        si(u.gum.expanded, u.unit),
+        value(u.gum.value),
+        units.format_difference(q, u.gum.expanded),
         u.gum.coverage_probability * 100.0
     );
     let _ = writeln!(out, "      {}", u.gum.coverage_text());
@@ -265,8 +293,8 @@ fn write_uncertainty(out: &mut String, b: &BridgeEvaluation) {
             out,
             "      Monte Carlo, {} trials: 95 % interval {} to {}",
             mc.trials,
-            si(mc.interval_95.0, u.unit),
-            si(mc.interval_95.1, u.unit)
+            value(mc.interval_95.0),
+            value(mc.interval_95.1)
         );
     }
 }
@@ -299,15 +327,21 @@ fn load_and_evaluate(path: &Path, monte_carlo: bool) -> Result<(Project, Evaluat
 
 /// `gaugewright eval FILE`: the human summary of every bridge (settings, readings per load
 /// case in mV/V and displayed µε, margins, rejection, noise, uncertainty), then findings and
-/// cautions. Status as for [`check`].
+/// cautions, in SI. Status as for [`check`].
 pub fn eval_summary(path: &Path, monte_carlo: bool) -> CliOutput {
+    eval_summary_in(path, monte_carlo, Units::Si)
+}
+
+/// `gaugewright eval FILE --units …`: as [`eval_summary`], every figure in `units`.
+pub fn eval_summary_in(path: &Path, monte_carlo: bool, units: Units) -> CliOutput {
     match load_and_evaluate(path, monte_carlo) {
-        Ok((project, ev)) => summary_output(&project, &ev, Detail::Everything),
+        Ok((project, ev)) => summary_output(&project, &ev, Detail::Everything, units),
         Err(out) => out,
     }
 }
 
-/// `gaugewright eval FILE --json`: every computed figure as JSON.
+/// `gaugewright eval FILE --json`: every computed figure as JSON, in SI units whatever the
+/// display units (m, N, N·m, Pa, °C, strain as a ratio).
 pub fn eval_json(path: &Path, monte_carlo: bool) -> CliOutput {
     let ev = match load_and_evaluate(path, monte_carlo) {
         Ok((_, ev)) => ev,
@@ -387,9 +421,21 @@ fn write_example(path: &Path, project: &crate::Project, what: &str, force: bool)
 }
 
 /// `gaugewright sheet FILE -o OUT.pdf [--csv OUT.csv] [--force]`: the build sheet and channel
-/// list. Neither may be the project itself, nor (without `force`) another project, nor the
-/// same file as each other.
+/// list, in SI. Neither may be the project itself, nor (without `force`) another project, nor
+/// the same file as each other.
 pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>, force: bool) -> CliOutput {
+    sheet_in(path, pdf, csv, force, Units::Si)
+}
+
+/// `gaugewright sheet … --units …`: as [`sheet`], the sheet and the channel list's wanted load
+/// per mV/V in `units`.
+pub fn sheet_in(
+    path: &Path,
+    pdf: &Path,
+    csv: Option<&Path>,
+    force: bool,
+    units: Units,
+) -> CliOutput {
     for out in std::iter::once(pdf).chain(csv) {
         if let Some(no) = guard_output(out, Some(path), force) {
             return no;
@@ -407,7 +453,7 @@ pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>, force: bool) -> CliOut
     };
     let ev = evaluate(&project, &EvalOptions::default());
     let mut stdout = String::new();
-    match crate::sheet::build_sheet_pdf(&project, &ev) {
+    match crate::sheet::build_sheet_pdf_in(&project, &ev, units) {
         Ok(bytes) => {
             let written =
                 crate::safe_write::write_file(pdf, &bytes, crate::safe_write::Backup::Replace);
@@ -429,7 +475,7 @@ pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>, force: bool) -> CliOut
         }
     }
     if let Some(csv) = csv {
-        let text = crate::channel_list::channel_list_csv(&ev);
+        let text = crate::channel_list::channel_list_csv_in(&ev, units);
         let written =
             crate::safe_write::write_file(csv, text.as_bytes(), crate::safe_write::Backup::Replace);
         if let Err(e) = written {
@@ -456,7 +502,8 @@ pub fn sheet(path: &Path, pdf: &Path, csv: Option<&Path>, force: bool) -> CliOut
 
 #[cfg(test)]
 mod tests {
-    use super::{si, ue_small};
+    use super::ue_small;
+    use gw_bridge::units::si;
 
     #[test]
     fn si_picks_a_prefix_and_keeps_four_significant_figures() {
@@ -471,6 +518,32 @@ mod tests {
     fn si_leaves_temperatures_and_plain_numbers_unprefixed() {
         assert_eq!(si(1500.0, "°C"), "1500.0 °C");
         assert_eq!(si(0.75, ""), "0.750");
+    }
+
+    #[test]
+    fn the_summary_speaks_the_units_asked_for() {
+        use crate::units::Units;
+        let dir = std::env::temp_dir().join(format!("gw-cli-units-{}", std::process::id()));
+        std::fs::create_dir_all(&dir).unwrap();
+        let path = dir.join("demo.ron");
+        assert_eq!(super::write_demo(&path, true).code, 0);
+        let us = super::eval_summary_in(&path, false, Units::UsCustomary);
+        let si = super::eval_summary(&path, false);
+        assert_eq!((us.code, si.code), (0, 0));
+        // The shell's hoop stress on the outer surface: the same figure, once in MPa and once
+        // in ksi (1 ksi = 6.894 757 MPa, NIST SP 811 Appendix B).
+        let hoop = |text: &str, unit: &str| -> f64 {
+            let line = text.lines().find(|l| l.contains("hoop stress")).unwrap();
+            let before = line.split(&format!(" {unit} on the outer")).next().unwrap();
+            before.rsplit(' ').next().unwrap().parse().unwrap()
+        };
+        let (mpa, ksi) = (hoop(&si.stdout, "MPa"), hoop(&us.stdout, "ksi"));
+        assert!(
+            (mpa / 6.894_757 - ksi).abs() < 2e-3 * ksi,
+            "{mpa} MPa, {ksi} ksi"
+        );
+        assert!(!us.stdout.contains("MPa") && !us.stdout.contains(" mm"));
+        let _ = std::fs::remove_dir_all(&dir);
     }
 
     #[test]

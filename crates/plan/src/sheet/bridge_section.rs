@@ -5,10 +5,11 @@ use gw_bridge::margins::MarginStatus;
 use gw_bridge::units::si;
 
 use super::writer::{BODY, Writer};
-use super::{um, wiring_diagram};
+use super::{load, load_per, um, wiring_diagram};
 use crate::connector::{Pinout, pin_number, shunt_place_words};
 use crate::document::{BridgePlan, LeadColours, Part, Project};
 use crate::evaluate::BridgeEvaluation;
+use crate::units::{Quantity, Units};
 
 /// The zero reading expected with the part unloaded, in words for a table cell: the
 /// statistical band (root-sum-square of the arms' tolerances) and the worst case, mV/V.
@@ -49,12 +50,12 @@ fn zero_words(be: &BridgeEvaluation) -> String {
 }
 
 /// The wanted load per mV/V of output, in words.
-fn conversion_words(be: &BridgeEvaluation) -> String {
+fn conversion_words(be: &BridgeEvaluation, units: Units) -> String {
     match be.wanted_per_mv_per_v {
         Some(k) => format!(
             "Conversion to engineering units: {} per mV/V of output (the wanted load divided by \
              the output, from the bridge's sensitivity on this part).",
-            si(k, be.wanted.unit())
+            load_per(units, be.wanted, k)
         ),
         None => "Conversion to engineering units: none, the bridge does not respond to the \
                  wanted load on this part."
@@ -65,25 +66,37 @@ fn conversion_words(be: &BridgeEvaluation) -> String {
 /// Resistivity of annealed copper at 20 °C, Ω·mm²/m (IEC 60028: 1/58).
 const COPPER_OHM_MM2_PER_M: f64 = 1.0 / 58.0;
 
-/// The lead wire: length, resistance per metre and the copper cross-section that gives it.
-fn lead_words(plan: &BridgePlan) -> String {
+/// The lead wire: length, resistance per metre (or foot) and the copper size that gives it
+/// (cross-section in mm², or the nearest AWG number in US customary units).
+fn lead_words(plan: &BridgePlan, units: Units) -> String {
     let l = &plan.lead;
-    let size = if l.ohm_per_m > 0.0 {
-        format!(
-            ", about {:.2} mm² if copper (IEC 60028 resistivity)",
-            COPPER_OHM_MM2_PER_M / l.ohm_per_m
-        )
-    } else {
-        String::new()
+    let area_mm2 = COPPER_OHM_MM2_PER_M / l.ohm_per_m;
+    let size = match units {
+        _ if !(l.ohm_per_m > 0.0 && area_mm2.is_finite()) => String::new(),
+        Units::Si => format!(", about {area_mm2:.2} mm² if copper (IEC 60028 resistivity)"),
+        Units::UsCustomary => format!(
+            ", about {} AWG if copper (IEC 60028 resistivity, ASTM B258 sizes)",
+            awg(area_mm2)
+        ),
     };
+    // Ohms per display length unit of cable: the cable length's scale turns metres into feet.
+    let per_length = l.ohm_per_m / units.to_display(Quantity::CableLength, 1.0);
     format!(
-        "{:.1} m per conductor, {:.4} Ω/m{size}",
-        l.length_m, l.ohm_per_m
+        "{} per conductor, {per_length:.4} Ω/{}{size}",
+        units.format(Quantity::CableLength, l.length_m),
+        units.label(Quantity::CableLength)
     )
 }
 
+/// The American Wire Gauge number nearest a copper cross-section: diameter
+/// d = 0.127 mm × 92^((36 − n)/39) (ASTM B258), solved for n.
+fn awg(area_mm2: f64) -> i32 {
+    let d_mm = (4.0 * area_mm2 / std::f64::consts::PI).sqrt();
+    (36.0 - 39.0 * (d_mm / 0.127).ln() / 92f64.ln()).round() as i32
+}
+
 /// The instrument settings of a bridge, as rows of a two-column table.
-fn settings_rows(be: &BridgeEvaluation, plan: &BridgePlan) -> Vec<Vec<String>> {
+fn settings_rows(be: &BridgeEvaluation, plan: &BridgePlan, units: Units) -> Vec<Vec<String>> {
     let mut rows = vec![
         vec!["Setting".to_owned(), "Value".to_owned()],
         vec!["Measures".to_owned(), be.wanted.name().to_owned()],
@@ -96,7 +109,7 @@ fn settings_rows(be: &BridgeEvaluation, plan: &BridgePlan) -> Vec<Vec<String>> {
             },
         ],
         vec!["Lead wiring".to_owned(), be.wiring.clone()],
-        vec!["Lead wire".to_owned(), lead_words(plan)],
+        vec!["Lead wire".to_owned(), lead_words(plan, units)],
         vec![
             "Excitation".to_owned(),
             format!("{:.2} V at the bridge", be.excitation_v),
@@ -132,8 +145,7 @@ fn settings_rows(be: &BridgeEvaluation, plan: &BridgePlan) -> Vec<Vec<String>> {
 
 /// Readings per load case: the wanted load, the output, what the instrument displays, and
 /// the accuracy check where one is asked for.
-fn case_rows(part: &Part, be: &BridgeEvaluation) -> Vec<Vec<String>> {
-    let unit = be.wanted.unit();
+fn case_rows(part: &Part, be: &BridgeEvaluation, units: Units) -> Vec<Vec<String>> {
     let mut rows = vec![
         [
             "Load case",
@@ -152,7 +164,13 @@ fn case_rows(part: &Part, be: &BridgeEvaluation) -> Vec<Vec<String>> {
             .load_cases
             .iter()
             .find(|l| l.name == c.case)
-            .map(|l| format!("{} {}", be.wanted.name(), si(l.value(be.wanted), unit)))
+            .map(|l| {
+                format!(
+                    "{} {}",
+                    be.wanted.name(),
+                    load(units, be.wanted, l.value(be.wanted))
+                )
+            })
             .unwrap_or_default();
         let accuracy = be
             .accuracy
@@ -227,18 +245,22 @@ pub(crate) fn draw(
     be: &BridgeEvaluation,
     plan: &BridgePlan,
 ) {
+    let units = w.units;
     w.room(330.0);
     w.heading(&format!(
         "Bridge \"{}\", channel {}",
         be.name, be.channel_number
     ));
-    w.table(&[1.0, 2.0], &settings_rows(be, plan));
+    w.table(&[1.0, 2.0], &settings_rows(be, plan, units));
     wiring_diagram::draw_plan(w, project, part, plan);
     w.subheading(&format!(
         "Expected readings: channel {}, {}",
         be.channel_number, be.name
     ));
-    w.table(&[1.2, 1.5, 1.0, 0.9, 1.0, 0.9, 1.0], &case_rows(part, be));
+    w.table(
+        &[1.2, 1.5, 1.0, 0.9, 1.0, 0.9, 1.0],
+        &case_rows(part, be, units),
+    );
     if be
         .cases
         .iter()
@@ -262,12 +284,12 @@ pub(crate) fn draw(
             &format!(
                 "Accuracy, {}: {} — {}.",
                 a.case,
-                a.describe(be.wanted.unit()),
+                a.describe(be.wanted, units),
                 a.margin.status.word()
             ),
         );
     }
-    w.para(BODY, false, &conversion_words(be));
+    w.para(BODY, false, &conversion_words(be, units));
     let pins = Pinout::for_bridge(plan, &project.lead_colours);
     let zero = zero_words(be);
     let shunt = shunt_words(be, plan, &project.lead_colours);

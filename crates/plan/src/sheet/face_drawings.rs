@@ -15,6 +15,7 @@ use self::plan::{FaceSetup, Scale};
 use super::layout::{Area, MARGIN, ascent, descent, line_pitch, text_width, wrap};
 use super::writer::Writer;
 use crate::document::Part;
+use crate::units::{Quantity, Units};
 
 /// Size of labels on the drawings, points (no text on a drawing or template is smaller).
 pub(crate) const LABEL: f32 = 7.5;
@@ -46,11 +47,6 @@ pub(crate) fn draw(w: &mut Writer, part: &Part, placed: &[gw_bridge::PlacedGauge
     }
 }
 
-/// A length in mm with one decimal.
-pub(crate) fn mm1(v_m: f64) -> String {
-    format!("{:.1} mm", v_m * 1e3)
-}
-
 /// The face's name with a capital.
 pub(crate) fn face_title(face: Face) -> String {
     let name = face.name();
@@ -70,8 +66,9 @@ struct Dim {
 }
 
 impl Dim {
-    fn text(&self) -> String {
-        format!("{:.1}", self.value_m * 1e3)
+    /// The number alone, in the display length unit the drawing states.
+    fn text(&self, units: Units) -> String {
+        units.format_number(Quantity::Length, self.value_m)
     }
 }
 
@@ -146,7 +143,7 @@ fn draw_face(w: &mut Writer, setup: &FaceSetup, with_key: bool) {
     let (s_dims, on_s) = dims(setup, false);
     let s_tier = s_dims
         .iter()
-        .map(|d| text_width(&d.text(), LABEL, false))
+        .map(|d| text_width(&d.text(w.units), LABEL, false))
         .fold(0.0f32, f32::max)
         + 12.0;
     let right_room = if s_dims.is_empty() {
@@ -171,8 +168,9 @@ fn draw_face(w: &mut Writer, setup: &FaceSetup, with_key: bool) {
     let after_title = w.wrapped(MARGIN, top, w.column(), 9.0, true, &title);
     let scale_line = format!(
         "Scale {} when printed at 100 % (no fit-to-page): measure the scale bar before marking \
-         out. Dimensions in mm from the datum.",
-        scale.label()
+         out. Dimensions in {} from the datum.",
+        scale.label(),
+        super::length_unit_name(w.units)
     );
     let after_scale = w.wrapped(MARGIN, after_title, w.column(), 8.0, false, &scale_line);
     let frame = Frame {

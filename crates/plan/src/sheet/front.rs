@@ -2,9 +2,10 @@
 
 use super::layout::{Area, line_pitch, wrap};
 use super::writer::{BODY, Writer};
-use super::{bridge_section, failure_lines};
+use super::{bridge_section, failure_lines_in, load_per, units_words};
 use crate::document::Project;
 use crate::evaluate::Evaluation;
+use crate::units::Units;
 
 /// The banner of failing margins and missed accuracies, in a ruled box.
 fn failure_banner(w: &mut Writer, failures: &[String]) {
@@ -28,7 +29,7 @@ fn failure_banner(w: &mut Writer, failures: &[String]) {
 }
 
 /// One row per bridge: where it is, what it measures, its full-scale reading.
-fn channel_rows(project: &Project, ev: &Evaluation) -> Vec<Vec<String>> {
+fn channel_rows(project: &Project, ev: &Evaluation, units: Units) -> Vec<Vec<String>> {
     let mut rows = vec![
         [
             "Channel",
@@ -59,7 +60,7 @@ fn channel_rows(project: &Project, ev: &Evaluation) -> Vec<Vec<String>> {
                 be.wanted.name().to_owned(),
                 largest,
                 be.wanted_per_mv_per_v
-                    .map(|k| gw_bridge::units::si(k, be.wanted.unit()))
+                    .map(|k| load_per(units, be.wanted, k))
                     .unwrap_or_else(|| "none".to_owned()),
                 bridge_section::zero_expected(be),
             ]);
@@ -71,7 +72,15 @@ fn channel_rows(project: &Project, ev: &Evaluation) -> Vec<Vec<String>> {
 /// The first page.
 pub(crate) fn draw(w: &mut Writer, project: &Project, ev: &Evaluation) {
     w.heading("Strain-gauge installation build sheet");
-    let failures = failure_lines(ev);
+    w.para(
+        9.0,
+        true,
+        &format!(
+            "Units: {}. Strain in µε; bridge output in mV/V.",
+            units_words(w.units)
+        ),
+    );
+    let failures = failure_lines_in(ev, w.units);
     if failures.is_empty() {
         w.para(
             9.0,
@@ -84,7 +93,7 @@ pub(crate) fn draw(w: &mut Writer, project: &Project, ev: &Evaluation) {
         failure_banner(w, &failures);
     }
     w.subheading("Channels");
-    let rows = channel_rows(project, ev);
+    let rows = channel_rows(project, ev, w.units);
     if rows.len() > 1 {
         w.table(&[0.75, 2.0, 1.5, 1.1, 1.0, 2.0], &rows);
     } else {

@@ -17,45 +17,126 @@ mod writer;
 use layout::Op;
 use writer::{Header, Writer};
 
+use gw_mechanics::LoadComponent;
+
 use crate::document::Project;
-use crate::evaluate::{Evaluation, Severity};
+use crate::evaluate::{Evaluation, Finding, Severity};
+use crate::units::{Quantity, Units, microstrain};
 
 pub(crate) fn um(strain: f64) -> String {
-    format!("{:.1} µε", strain * 1e6)
+    microstrain(strain)
 }
 
-pub(crate) fn mm(m: f64) -> String {
-    format!("{:.1} mm", m * 1e3)
+/// A length on the part in the sheet's units, at the length's display resolution.
+pub(crate) fn len(units: Units, m: f64) -> String {
+    units.format(Quantity::Length, m)
 }
 
-/// Text of the printed failure banner (also shown by the app and the CLI).
+/// A value of load component `c` (SI) in the sheet's units.
+pub(crate) fn load(units: Units, c: LoadComponent, v: f64) -> String {
+    units.format(Quantity::of(c), v)
+}
+
+/// A load per unit of something (the conversion per mV/V): scale only.
+pub(crate) fn load_per(units: Units, c: LoadComponent, v: f64) -> String {
+    units.format_difference(Quantity::of(c), v)
+}
+
+/// A round scale-bar length no longer than `max_pt` at `pt_per_m` points per metre: 1, 2 or 5
+/// times a power of ten of the display length unit (mm or in). Returns the length in metres
+/// and its label ("50 mm", "2 in").
+pub(crate) fn scale_bar_length(units: Units, pt_per_m: f64, max_pt: f64) -> (f64, String) {
+    let per_m = units.to_display(Quantity::Length, 1.0);
+    let shown = crate::drawing::face_layout::scale_bar_length(pt_per_m / per_m, max_pt);
+    let number = format!("{shown:.3}");
+    let number = number.trim_end_matches('0').trim_end_matches('.');
+    (
+        shown / per_m,
+        format!("{number} {}", units.label(Quantity::Length)),
+    )
+}
+
+/// The display length unit's name in a sentence ("in mm" reads well; "in in" does not).
+pub(crate) fn length_unit_name(units: Units) -> &'static str {
+    match units {
+        Units::Si => "millimetres",
+        Units::UsCustomary => "inches",
+    }
+}
+
+/// The unit system in words, with its units, for the front page.
+pub(crate) fn units_words(units: Units) -> &'static str {
+    match units {
+        Units::Si => "SI (mm, N, N·m, MPa, °C)",
+        Units::UsCustomary => "US customary (in, lbf, lbf·in, psi and ksi, °F)",
+    }
+}
+
+/// Text of the printed failure banner (also shown by the app and the CLI), in SI.
 pub fn failure_lines(ev: &Evaluation) -> Vec<String> {
+    failure_lines_in(ev, Units::Si)
+}
+
+/// Text of the printed failure banner in `units`.
+pub fn failure_lines_in(ev: &Evaluation, units: Units) -> Vec<String> {
     ev.findings
         .iter()
         .filter(|f| matches!(f.severity, Severity::Fail | Severity::Error))
-        .map(|f| f.message.clone())
+        .map(|f| finding_text(f, units))
         .collect()
 }
 
-/// Renders the build sheet to PDF bytes.
+/// A finding's words in `units`.
+pub(crate) fn finding_text(f: &Finding, units: Units) -> String {
+    f.text(units)
+}
+
+/// Renders the build sheet to PDF bytes, in SI units.
 pub fn build_sheet_pdf(project: &Project, ev: &Evaluation) -> Result<Vec<u8>, String> {
-    pdf::render(&compose(project, ev), true)
+    build_sheet_pdf_in(project, ev, Units::Si)
+}
+
+/// Renders the build sheet to PDF bytes, every number in `units`.
+pub fn build_sheet_pdf_in(
+    project: &Project,
+    ev: &Evaluation,
+    units: Units,
+) -> Result<Vec<u8>, String> {
+    pdf::render(&compose(project, ev, units), true)
 }
 
 /// The build sheet with its drawings, rules and boxes but no text: rendered beside the whole
 /// sheet, it shows whether any drawn line runs through a text (the pixels under each word must
-/// be blank here).
+/// be blank here). In SI units.
 pub fn build_sheet_graphics_only_pdf(
     project: &Project,
     ev: &Evaluation,
 ) -> Result<Vec<u8>, String> {
-    pdf::render(&compose(project, ev), false)
+    build_sheet_graphics_only_pdf_in(project, ev, Units::Si)
 }
 
-/// Layout problems of every page of the sheet (overlapping text, lines through text, anything
-/// past a margin), each with its page number; empty for a clean sheet.
+/// [`build_sheet_graphics_only_pdf`] of the sheet in `units`.
+pub fn build_sheet_graphics_only_pdf_in(
+    project: &Project,
+    ev: &Evaluation,
+    units: Units,
+) -> Result<Vec<u8>, String> {
+    pdf::render(&compose(project, ev, units), false)
+}
+
+/// Layout problems of every page of the SI sheet (overlapping text, lines through text,
+/// anything past a margin), each with its page number; empty for a clean sheet.
 pub fn build_sheet_layout_problems(project: &Project, ev: &Evaluation) -> Vec<String> {
-    let w = compose(project, ev);
+    build_sheet_layout_problems_in(project, ev, Units::Si)
+}
+
+/// Layout problems of every page of the sheet in `units`.
+pub fn build_sheet_layout_problems_in(
+    project: &Project,
+    ev: &Evaluation,
+    units: Units,
+) -> Vec<String> {
+    let w = compose(project, ev, units);
     w.pages
         .iter()
         .enumerate()
@@ -67,10 +148,15 @@ pub fn build_sheet_layout_problems(project: &Project, ev: &Evaluation) -> Vec<St
         .collect()
 }
 
-/// Every text the build sheet prints, page by page, one item per line: what a reader of the
+/// Every text the SI build sheet prints, page by page, one item per line: what a reader of the
 /// sheet sees, for checks that need no PDF reader.
 pub fn build_sheet_text(project: &Project, ev: &Evaluation) -> String {
-    let w = compose(project, ev);
+    build_sheet_text_in(project, ev, Units::Si)
+}
+
+/// Every text the build sheet in `units` prints, as [`build_sheet_text`].
+pub fn build_sheet_text_in(project: &Project, ev: &Evaluation, units: Units) -> String {
+    let w = compose(project, ev, units);
     let mut out = String::new();
     for op in w.pages.iter().flatten() {
         if let Op::Text { text, .. } = op {
@@ -125,8 +211,9 @@ fn templates(w: &mut Writer, project: &Project) {
 }
 
 /// Lays out the whole sheet.
-fn compose(project: &Project, ev: &Evaluation) -> Writer {
+fn compose(project: &Project, ev: &Evaluation, units: Units) -> Writer {
     let mut w = Writer::new(project.paper, header(project));
+    w.units = units;
     front::draw(&mut w, project, ev);
     for pe in &ev.parts {
         let Some(part) = project.parts.get(pe.part_index) else {
@@ -177,11 +264,11 @@ mod tests {
             .filter(|a| a.margin.status == gw_bridge::margins::MarginStatus::Fail)
             .collect();
         assert!(!misses.is_empty(), "0.001 % of reading cannot be met");
-        let w = compose(&p, &ev);
+        let w = compose(&p, &ev, Units::Si);
         let first = page_text(&w, 0);
         assert!(first.contains("MARGIN FAILS"), "{first}");
         for a in misses {
-            let words = a.describe(ev.parts[0].bridges[0].wanted.unit());
+            let words = a.describe(ev.parts[0].bridges[0].wanted, Units::Si);
             let start: String = words.chars().take(30).collect();
             assert!(first.contains(&start), "{start} not on page 1: {first}");
         }
@@ -192,7 +279,7 @@ mod tests {
         let p = crate::demo::demo_project();
         let ev = crate::evaluate(&p, &crate::EvalOptions::default());
         assert!(!ev.has_failures());
-        let first = page_text(&compose(&p, &ev), 0);
+        let first = page_text(&compose(&p, &ev, Units::Si), 0);
         assert!(!first.contains("MARGIN FAILS"));
         assert!(first.contains("not a certification"));
     }
@@ -219,10 +306,10 @@ mod tests {
                 .filter(|&i| page_text(w, i).contains("Marking template at 1:1"))
                 .count()
         };
-        let with = compose(&p, &ev);
+        let with = compose(&p, &ev, Units::Si);
         assert!(titled(&with) >= faces_with_gauges);
         p.marking_templates = false;
-        let without = compose(&p, &ev);
+        let without = compose(&p, &ev, Units::Si);
         assert_eq!(titled(&without), 0);
         assert!(without.pages.len() < with.pages.len());
     }

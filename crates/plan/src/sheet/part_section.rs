@@ -4,11 +4,13 @@
 use gw_mechanics::{BeamSupport, LoadPoint, Member, Section, VesselEnds};
 
 use super::writer::{BODY, Writer};
-use super::{face_drawings, mm, part_views};
+use super::{face_drawings, len, part_views};
 use crate::document::{Part, Project};
 use crate::evaluate::PartEvaluation;
+use crate::units::{Quantity, Units, number_text};
 
-pub(crate) fn part_description(part: &Part) -> String {
+pub(crate) fn part_description(part: &Part, units: Units) -> String {
+    let mm = |v: f64| len(units, v);
     let m = &part.member;
     let material = m.material();
     let dims = match m {
@@ -20,8 +22,8 @@ pub(crate) fn part_description(part: &Part) -> String {
                 BeamSupport::SimplySupported => "Simply supported beam, pinned at both ends",
             },
             mm(b.length_m),
-            section_words(&b.section),
-            load_point_words(&b.load_points)
+            section_words(&b.section, units),
+            load_point_words(&b.load_points, units)
         ),
         Member::Shaft(s) => format!(
             "Shaft, outer diameter {}, bore {}, length {}",
@@ -68,14 +70,15 @@ pub(crate) fn part_description(part: &Part) -> String {
         ),
     };
     format!(
-        "{dims}. Material {} (yield {:.0} MPa).",
+        "{dims}. Material {} (yield {}).",
         material.name,
-        material.yield_strength_pa / 1e6
+        units.format_stress(material.yield_strength_pa)
     )
 }
 
 /// A beam section in the words and sizes a technician can check with a calliper.
-fn section_words(section: &Section) -> String {
+fn section_words(section: &Section, units: Units) -> String {
+    let mm = |v: f64| len(units, v);
     match section {
         Section::Rectangle { width_m, height_m } => format!(
             "solid rectangular section {} wide × {} high",
@@ -119,7 +122,8 @@ fn section_words(section: &Section) -> String {
 }
 
 /// Where the load acts along a beam, with the share of it at each point.
-fn load_point_words(points: &[LoadPoint]) -> String {
+fn load_point_words(points: &[LoadPoint], units: Units) -> String {
+    let mm = |v: f64| len(units, v);
     let at: Vec<String> = points
         .iter()
         .map(|p| {
@@ -154,7 +158,8 @@ fn grid_angles(g: &gw_bridge::PlacedGauge) -> String {
 }
 
 /// The gauge table: what each gauge is and where it goes.
-fn gauge_rows(project: &Project, part: &Part) -> Vec<Vec<String>> {
+fn gauge_rows(project: &Project, part: &Part, units: Units) -> Vec<Vec<String>> {
+    let mm = |v: f64| len(units, v);
     let mut rows = vec![
         [
             "ID",
@@ -184,30 +189,45 @@ fn gauge_rows(project: &Project, part: &Part) -> Vec<Vec<String>> {
             mm(g.position.s_m - part.datum_m.1),
             grid_angles(g),
             // Grid plus 10 mm all round for abrading and cleaning: common practice.
-            format!(
-                "{:.0} × {:.0} mm",
-                s.grid_length_m * 1e3 + 20.0,
-                s.grid_width_m * 1e3 + 20.0
-            ),
+            prepared_area(units, s.grid_length_m + 0.02, s.grid_width_m + 0.02),
         ]);
     }
     rows
+}
+
+/// The area to prepare, "along × across": a rough size, to whole millimetres or hundredths of
+/// an inch.
+fn prepared_area(units: Units, along_m: f64, across_m: f64) -> String {
+    let q = Quantity::Length;
+    let places = match units {
+        Units::Si => 0,
+        Units::UsCustomary => 2,
+    };
+    let shown = |m: f64| number_text(units.to_display(q, m), places);
+    format!(
+        "{} × {} {}",
+        shown(along_m),
+        shown(across_m),
+        units.label(q)
+    )
 }
 
 /// Everything about one part, before its bridges.
 pub(crate) fn draw(w: &mut Writer, project: &Project, part: &Part, pe: &PartEvaluation) {
     w.new_page();
     w.heading(&format!("Part: {}", part.name));
-    w.para(9.0, false, &part_description(part));
+    let units = w.units;
+    w.para(9.0, false, &part_description(part, units));
+    let stress = |pa: f64| units.format_stress(pa);
     for c in &pe.cases {
         w.para(
             BODY,
             false,
             &format!(
-                "{}: largest von Mises stress {:.1} MPa {} ({}).",
+                "{}: largest von Mises stress {} {} ({}).",
                 c.case,
-                c.peak_von_mises_pa / 1e6,
-                c.peak_location,
+                stress(c.peak_von_mises_pa),
+                c.peak_location_text(units),
                 c.yield_words()
             ),
         );
@@ -216,10 +236,10 @@ pub(crate) fn draw(w: &mut Writer, project: &Project, part: &Part, pe: &PartEval
                 BODY,
                 false,
                 &format!(
-                    "Hoop stress {:.1} MPa at the mean radius (membrane, the design figure); \
-                     {:.1} MPa on the outer surface, which is what the gauges read.",
-                    membrane / 1e6,
-                    outer / 1e6
+                    "Hoop stress {} at the mean radius (membrane, the design figure); \
+                     {} on the outer surface, which is what the gauges read.",
+                    stress(membrane),
+                    stress(outer)
                 ),
             );
         }
@@ -229,6 +249,6 @@ pub(crate) fn draw(w: &mut Writer, project: &Project, part: &Part, pe: &PartEval
     w.heading("Gauges");
     w.table(
         &[0.6, 1.3, 0.7, 0.9, 0.7, 1.1, 0.9, 0.9, 1.2, 1.3],
-        &gauge_rows(project, part),
+        &gauge_rows(project, part, units),
     );
 }

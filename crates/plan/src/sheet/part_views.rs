@@ -12,7 +12,6 @@ mod geometry;
 mod load_arrows;
 mod symbols;
 
-use gw_bridge::units::si;
 use gw_mechanics::{BeamSupport, LoadComponent, LoadVector, Member, VesselEnds};
 
 use geometry::{Depth, Placed, V3, View, part_bounds, runs, silhouettes};
@@ -23,6 +22,7 @@ use super::writer::Writer;
 use crate::document::Part;
 use crate::drawing::load_glyphs::load_glyphs;
 use crate::drawing::part_mesh::{PartMesh, Region};
+use crate::units::Units;
 
 /// Points per metre on paper at 1:1 (72 points to the inch of 25.4 mm).
 const PT_PER_M: f64 = 72.0 / 0.0254;
@@ -192,7 +192,7 @@ fn axes_words(member: &Member) -> &'static str {
 }
 
 /// The caption over the views: scale, axes, supports, the loads drawn and the marks.
-fn caption(part: &Part, scales: Scales) -> String {
+fn caption(part: &Part, scales: Scales, units: Units) -> String {
     let member = &part.member;
     let scale = if scales.end == scales.main {
         format!("Scale {} when printed at 100 %.", ratio_text(scales.main))
@@ -217,7 +217,7 @@ fn caption(part: &Part, scales: Scales) -> String {
                     format!(
                         "{} {}{}",
                         c.name(),
-                        si(*v, c.unit()),
+                        super::load(units, *c, *v),
                         if arrowless { " (no arrow)" } else { "" }
                     )
                 })
@@ -302,7 +302,7 @@ fn draw_recorded(w: &mut Writer, part: &Part) -> annotate::Record {
     }
     let cells = arrangement(member);
     let scales = choose_scales(w.column(), &cells, bounds);
-    let text = caption(part, scales);
+    let text = caption(part, scales, w.units);
     let caption_h = wrap(&text, 8.0, false, w.column()).len() as f32 * line_pitch(8.0, false);
     let (widths, heights) = grid(&cells, bounds, scales);
     let grid_h: f32 = heights.iter().sum();
@@ -699,31 +699,63 @@ mod tests {
     /// kilonewtons, and a shaft's torque as a turning arrow named with its value.
     #[test]
     fn loads_and_supports_are_named_with_their_values() {
-        let gallery = crate::gallery::model_gallery();
-        for (name, wanted) in [
+        use crate::units::Units::{Si, UsCustomary};
+        // US customary figures worked by hand from NIST SP 811, Appendix B (1 lbf =
+        // 4.448 221 615 260 5 N, 1 in = 25.4 mm, 1 psi = 6 894.757 Pa): 2500 N = 562.0 lbf;
+        // 400 N·m = 400 / (4.448 221 6 × 0.0254) = 3540 lbf·in; 1.6 MPa = 232.1 psi;
+        // 60 MPa = 8.702 ksi; 500 mm = 19.685 in.
+        for (units, name, wanted) in [
             (
+                Si,
                 "Bracket arm (rectangle)",
-                vec!["vertical force 2.500 kN", "clamped end at x = 0 mm"],
+                vec!["vertical force 2500 N", "clamped end at x = 0 mm"],
             ),
             (
+                Si,
                 "Spindle (shaft)",
                 vec!["torque 400.0 N·m", "shaft end at x = 0 mm"],
             ),
             (
+                Si,
                 "Round link (solid round)",
-                vec!["pinned end at x = 500 mm", "s = 0"],
+                vec!["pinned end at x = 500.00 mm", "s = 0"],
             ),
             (
+                Si,
                 "Receiver (thin-walled cylinder)",
                 vec!["internal pressure 1.600 MPa"],
             ),
             (
+                Si,
                 "Lug plate (plate with a hole)",
                 vec!["remote stress along x 60.00 MPa", "plate face"],
             ),
+            (
+                UsCustomary,
+                "Bracket arm (rectangle)",
+                vec!["vertical force 562.0 lbf", "clamped end at x = 0 in"],
+            ),
+            (UsCustomary, "Spindle (shaft)", vec!["torque 3540 lbf·in"]),
+            (
+                UsCustomary,
+                "Round link (solid round)",
+                vec!["pinned end at x = 19.685 in"],
+            ),
+            (
+                UsCustomary,
+                "Receiver (thin-walled cylinder)",
+                vec!["internal pressure 232.1 psi"],
+            ),
+            (
+                UsCustomary,
+                "Lug plate (plate with a hole)",
+                vec!["remote stress along x 8.702 ksi"],
+            ),
         ] {
+            let gallery = crate::gallery::model_gallery();
             let part = gallery.parts.iter().find(|p| p.name == name).unwrap();
             let mut w = Writer::new(PaperSize::A4, header());
+            w.units = units;
             draw(&mut w, part);
             let texts: Vec<String> = w
                 .pages

@@ -211,6 +211,10 @@ pub(crate) fn bridge_records(w: &mut Writer, project: &Project, ev: &Evaluation)
 
 /// The installation steps in order, each with a tick box and who did it.
 pub(crate) fn checklist(w: &mut Writer) {
+    let cure = format!(
+        "cure (h / {}):",
+        w.units.label(crate::units::Quantity::Temperature)
+    );
     w.heading("Installation checklist");
     w.para(
         BODY,
@@ -232,7 +236,7 @@ pub(crate) fn checklist(w: &mut Writer) {
         (
             "Gauges bonded with the solder tabs at the end the face drawing shows; adhesive cured \
              for the time and temperature its instructions give",
-            "cure (h / °C):",
+            cure.as_str(),
         ),
         (
             "Each gauge's resistance and insulation recorded in \"Record: each gauge\"",

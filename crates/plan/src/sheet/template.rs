@@ -1,18 +1,26 @@
 //! The 1:1 marking template of a face: the surroundings of its gauges at true size, to print
-//! at 100 % and lay on the part. A 50 mm check bar on every page proves the print's scale.
+//! at 100 % and lay on the part. A check bar on every page (50 mm, or 2 in in US customary
+//! units) proves the print's scale.
 
 use gw_bridge::PlacedGauge;
 use gw_mechanics::Face;
 
 use super::face_drawings::piece::{EDGE_ROOM, PIECE_ROOM, draw_piece, piece_setup};
 use super::face_drawings::plan::{FaceSetup, PT_PER_M, Scale};
-use super::face_drawings::{LABEL, face_title, mm1};
+use super::face_drawings::{LABEL, face_title};
 use super::layout::{Area, MARGIN};
 use super::writer::Writer;
 use crate::document::Part;
+use crate::units::Units;
 
-/// Length of the check bar, millimetres.
-pub(crate) const CHECK_BAR_MM: f64 = 50.0;
+/// The check bar: its length in metres and in words. 50 mm, or 2 in (50.8 mm, 1 in = 25.4 mm
+/// exactly, NIST SP 811 Appendix B) for a technician with an inch rule.
+fn check_bar_length(units: Units) -> (f64, &'static str) {
+    match units {
+        Units::Si => (0.050, "50 mm"),
+        Units::UsCustomary => (2.0 * 0.0254, "2 in"),
+    }
+}
 
 /// Face shown round each gauge on the template, points (at 1:1, 10.6 mm).
 const PAD_PT: f64 = 30.0;
@@ -57,6 +65,8 @@ pub(crate) fn draw(w: &mut Writer, part: &Part, placed: &[PlacedGauge], face: Fa
             check_bar(w);
         }
         let (dx, ds) = setup.datum;
+        let units = w.units;
+        let mm1 = |v: f64| super::len(units, v);
         w.para(
             8.0,
             true,
@@ -92,11 +102,14 @@ pub(crate) fn draw(w: &mut Writer, part: &Part, placed: &[PlacedGauge], face: Fa
 
 /// What the template is and how to use it.
 fn instructions(w: &mut Writer, setup: &FaceSetup, whole: bool, pieces: usize) {
+    let (_, bar) = check_bar_length(w.units);
     w.para(
         8.5,
         true,
-        "Print this page at 100 % (actual size: no fit-to-page, no shrinking) and measure the \
-         50 mm check bar before use; if it is not 50 mm, do not use the template.",
+        &format!(
+            "Print this page at 100 % (actual size: no fit-to-page, no shrinking) and measure \
+             the {bar} check bar before use; if it is not {bar}, do not use the template."
+        ),
     );
     let extent = match (whole, pieces) {
         (true, _) => "The whole face is shown.",
@@ -126,11 +139,12 @@ fn instructions(w: &mut Writer, setup: &FaceSetup, whole: bool, pieces: usize) {
     );
 }
 
-/// The 50 mm check bar with its label, at `w.y`.
+/// The check bar with its label, at `w.y`.
 fn check_bar(w: &mut Writer) {
+    let (length_m, words) = check_bar_length(w.units);
     w.room(30.0);
     let y = w.y + 4.0;
-    let len = (CHECK_BAR_MM * 1e-3 * PT_PER_M) as f32;
+    let len = (length_m * PT_PER_M) as f32;
     let x = MARGIN + 4.0;
     for end in [x, x + len] {
         w.line([end, y - 3.0], [end, y + 8.0], 0.6, 0);
@@ -141,7 +155,7 @@ fn check_bar(w: &mut Writer) {
         y - 1.0,
         LABEL + 1.0,
         true,
-        &format!("{CHECK_BAR_MM:.0} mm check bar: measure it first"),
+        &format!("{words} check bar: measure it first"),
     );
     w.y = y + 18.0;
 }

@@ -19,6 +19,7 @@ use crate::connector::{
     shunt_place, shunt_place_words,
 };
 use crate::document::{BridgePlan, Part, PlanArm, Project};
+use crate::units::{Quantity, Units};
 
 /// Text size of labels, points.
 const SIZE: f32 = 7.5;
@@ -66,7 +67,8 @@ struct Facts {
     /// Per corner: whether a separate sense conductor runs from it.
     sense: [bool; 4],
     lead_ohm: f64,
-    lead_m: f64,
+    /// The cable's length in the sheet's units ("5.0 m", "16.4 ft").
+    lead_length: String,
     wiring: LeadWiring,
     wanted: LoadComponent,
     /// Arm index, resistance (`None` when it could not be worked out) and where it sits.
@@ -76,7 +78,7 @@ struct Facts {
     arm_text: [Vec<String>; 4],
 }
 
-fn facts(project: &Project, part: &Part, plan: &BridgePlan) -> Facts {
+fn facts(project: &Project, part: &Part, plan: &BridgePlan, units: Units) -> Facts {
     let at_gauge = plan.arms.each_ref().map(crate::connector::at_gauge);
     let pinout = Pinout::for_bridge(plan, &project.lead_colours);
     let sense = CORNER_CONDUCTORS.map(|c| pinout.pin(&format!("sense {c}")).is_some());
@@ -101,7 +103,7 @@ fn facts(project: &Project, part: &Part, plan: &BridgePlan) -> Facts {
         };
         (arm, ohm, side)
     });
-    let arm_text = std::array::from_fn(|k| arm_words(&plan.arms[k], signs[k], plan.wanted));
+    let arm_text = std::array::from_fn(|k| arm_words(&plan.arms[k], signs[k], plan.wanted, units));
     Facts {
         at_gauge,
         signs,
@@ -109,7 +111,7 @@ fn facts(project: &Project, part: &Part, plan: &BridgePlan) -> Facts {
         pinout,
         sense,
         lead_ohm: plan.lead.length_m * plan.lead.ohm_per_m,
-        lead_m: plan.lead.length_m,
+        lead_length: units.format(Quantity::CableLength, plan.lead.length_m),
         wiring: plan.wiring,
         wanted: plan.wanted,
         shunt,
@@ -119,7 +121,7 @@ fn facts(project: &Project, part: &Part, plan: &BridgePlan) -> Facts {
 }
 
 /// What an arm is, in short lines (before wrapping).
-fn arm_words(arm: &PlanArm, sign: ArmSign, wanted: LoadComponent) -> Vec<String> {
+fn arm_words(arm: &PlanArm, sign: ArmSign, wanted: LoadComponent, units: Units) -> Vec<String> {
     let mut out = vec![];
     match arm {
         PlanArm::Grid { gauge, grid } => {
@@ -136,19 +138,22 @@ fn arm_words(arm: &PlanArm, sign: ArmSign, wanted: LoadComponent) -> Vec<String>
         }
         PlanArm::Completion(c) => {
             out.push(format!("{} resistor", si(c.ohm, "Ω")));
+            // A resistance's change per degree converts as an expansion coefficient does.
+            let per_degree = Quantity::ExpansionCoefficient;
             out.push(format!(
-                "±{} %, {} ppm/°C",
-                trim_number(c.tolerance * 100.0),
-                trim_number(c.tcr_per_c * 1e6)
+                "±{} %, {} {}",
+                trim_number(c.tolerance * 100.0, 3),
+                trim_number(units.scale_to_display(per_degree, c.tcr_per_c), 2),
+                units.label(per_degree)
             ));
         }
     }
     out
 }
 
-/// A number with as many decimals as it needs, up to three ("0.05", "5", "2.5").
-fn trim_number(v: f64) -> String {
-    let s = format!("{v:.3}");
+/// A number with as many decimals as it needs, up to `places` ("0.05", "5", "2.5").
+fn trim_number(v: f64, places: usize) -> String {
+    let s = format!("{v:.places$}");
     s.trim_end_matches('0').trim_end_matches('.').to_owned()
 }
 
@@ -463,16 +468,16 @@ fn conductor_y(row_y: &[f32; 4], shield_y: f32, name: &str) -> f32 {
 
 fn cable_caption(f: &Facts) -> String {
     format!(
-        "cable: {} conductors + shield, {} m",
+        "cable: {} conductors + shield, {}",
         f.pinout.conductor_pins().count(),
-        trim_number(f.lead_m)
+        f.lead_length
     )
 }
 
 /// Draws the wiring schematic of bridge `plan` of `part` at the writer's position, with its
 /// notes below it.
 pub(crate) fn draw_plan(w: &mut Writer, project: &Project, part: &Part, plan: &BridgePlan) {
-    let f = facts(project, part, plan);
+    let f = facts(project, part, plan, w.units);
     // The widest labels that keep the drawing within the column.
     let label_w = (10..22)
         .rev()
@@ -753,9 +758,9 @@ fn notes(w: &mut Writer, f: &Facts) {
     lines.push(pin_list(&f.pinout));
     let conductors = f.pinout.conductor_pins().count();
     lines.push(format!(
-        "Leads: {}, {conductors} conductors of {} m, {:.2} Ω each, plus the shield.",
+        "Leads: {}, {conductors} conductors of {}, {:.2} Ω each, plus the shield.",
         f.wiring.trade_name(f.at_gauge),
-        trim_number(f.lead_m),
+        f.lead_length,
         f.lead_ohm
     ));
     if let Some(shield) = f.pinout.shield() {

@@ -5,6 +5,7 @@ use super::layout::{
     Area, MARGIN, Op, ascent, descent, is_clear, line_pitch, text_area, text_width, wrap,
 };
 use crate::document::PaperSize;
+use crate::units::Units;
 
 /// Size of body text, points.
 pub(crate) const BODY: f32 = 8.5;
@@ -23,6 +24,8 @@ pub(crate) struct Writer {
     pub pages: Vec<Vec<Op>>,
     /// Top of the free space on the current page.
     pub y: f32,
+    /// The unit system every number on the pages is shown in (SI unless set).
+    pub units: Units,
     header: Header,
     header_height: f32,
 }
@@ -38,6 +41,7 @@ impl Writer {
             height,
             pages: vec![Vec::new()],
             y: MARGIN,
+            units: Units::Si,
             header,
             header_height: 0.0,
         };

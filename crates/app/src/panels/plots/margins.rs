@@ -191,7 +191,7 @@ fn accuracy_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation, ca
                 status_colour(a.margin.status),
                 accuracy_sentence(a, doc.units, Quantity::of(be.wanted)),
             )
-            .on_hover_text(a.describe(be.wanted.unit()));
+            .on_hover_text(a.describe(be.wanted, doc.units));
         }
         None if be.accuracy.is_empty() => {
             ui.weak("No required accuracy stated for this bridge (Inspector › Accuracy).");

@@ -3,10 +3,12 @@
 //! legend under the drawing.
 
 use super::plan::FaceSetup;
-use super::{Drawing, LABEL, LINE_GAP, ROW, TEXT_GAP, label_h, mm1};
+use super::{Drawing, LABEL, LINE_GAP, ROW, TEXT_GAP, label_h};
 use crate::drawing::face_layout::{Neighbour, ScreenRect, candidates_around};
 use crate::sheet::layout::{Area, Op, is_clear, line_pitch, text_area, text_width, wrap};
+use crate::sheet::len;
 use crate::sheet::writer::Writer;
+use crate::units::Units;
 
 /// True when a label of `size` with its top-left corner at `at` keeps [`TEXT_GAP`] from every
 /// text on the page beside it (a line apart above or below is enough: rows read apart).
@@ -100,7 +102,7 @@ impl Drawing<'_> {
         let h = label_h();
         let d0 = self.datum_page();
         for i in 0..self.x_dims.len() {
-            let (text, g) = (self.x_dims[i].text(), self.x_dims[i].gauge);
+            let (text, g) = (self.x_dims[i].text(w.units), self.x_dims[i].gauge);
             let tw = text_width(&text, LABEL, false);
             let (y, xg) = (self.x_tier_y(i), self.centre(g)[0]);
             let top = y - 1.5 - h;
@@ -117,7 +119,7 @@ impl Drawing<'_> {
             self.place_or(w, &text, &c, label);
         }
         for j in 0..self.s_dims.len() {
-            let (text, g) = (self.s_dims[j].text(), self.s_dims[j].gauge);
+            let (text, g) = (self.s_dims[j].text(w.units), self.s_dims[j].gauge);
             let (x, yg) = (self.s_tier_x(j) + 3.0, self.centre(g)[1]);
             let mid = (d0[1] + yg) / 2.0;
             let (lo, hi) = (d0[1].min(yg), d0[1].max(yg));
@@ -177,7 +179,8 @@ impl Drawing<'_> {
 
     /// What lies beyond each edge, in the rows above and below the face.
     pub(super) fn label_edges(&mut self, w: &mut Writer) {
-        let len = |x: f64| mm1(x);
+        let units = w.units;
+        let len = |x: f64| len(units, x);
         let e = self.setup.edges;
         let f = self.frame.area();
         let b = self.setup.bounds;
@@ -303,7 +306,7 @@ impl Drawing<'_> {
     /// The lines under the drawing: the datum, gauges on the datum's lines and any label
     /// that found no room.
     pub(super) fn legend(&self, w: &mut Writer, on_x: &[usize], on_s: &[usize]) {
-        for text in legend_paras(self.setup, on_x, on_s) {
+        for text in legend_paras(self.setup, on_x, on_s, w.units) {
             w.para(LEGEND, false, &text);
         }
         if !self.missing.is_empty() {
@@ -324,7 +327,8 @@ const LEGEND: f32 = 7.5;
 
 /// The paragraphs under a drawing: where the datum is and what its coordinates are measured
 /// from, and the gauges on the datum's lines (`on_x`, `on_s`: indices into the setup's gauges).
-fn legend_paras(setup: &FaceSetup, on_x: &[usize], on_s: &[usize]) -> Vec<String> {
+fn legend_paras(setup: &FaceSetup, on_x: &[usize], on_s: &[usize], units: Units) -> Vec<String> {
+    let mm1 = |v: f64| len(units, v);
     let (dx, ds) = setup.datum_stated;
     let round = match setup.period_m {
         Some(p) => format!(
@@ -335,13 +339,14 @@ fn legend_paras(setup: &FaceSetup, on_x: &[usize], on_s: &[usize]) -> Vec<String
         None => String::new(),
     };
     let mut out = vec![format!(
-        "Datum (circle with a cross) at x = {}, s = {} ({}); every dimension is in mm from it, \
+        "Datum (circle with a cross) at x = {}, s = {} ({}); every dimension is in {} from it, \
          + towards the +x and +s arrows.{round}",
         mm1(dx),
         mm1(ds),
-        setup.datum_words()
+        setup.datum_words(),
+        crate::sheet::length_unit_name(units)
     )];
-    out.extend(hole_note(setup));
+    out.extend(hole_note(setup, units));
     let ids = |list: &[usize]| {
         list.iter()
             .map(|&i| setup.gauges[i].id.as_str())
@@ -373,7 +378,8 @@ fn legend_paras(setup: &FaceSetup, on_x: &[usize], on_s: &[usize]) -> Vec<String
 /// On a plate whose datum lies in its hole: that the datum is the hole's centre, found from
 /// the hole's edge, and how far each gauge's centre lies from that edge along the line from
 /// the hole's centre (its distance from the centre less the hole's radius).
-pub(super) fn hole_note(setup: &FaceSetup) -> Option<String> {
+pub(super) fn hole_note(setup: &FaceSetup, units: Units) -> Option<String> {
+    let mm1 = |v: f64| len(units, v);
     let a = setup
         .extent
         .hole_radius_m
@@ -416,7 +422,7 @@ pub(super) fn hole_note(setup: &FaceSetup) -> Option<String> {
 /// found no room, points.
 pub(super) fn legend_height(w: &Writer, setup: &FaceSetup, on_x: &[usize], on_s: &[usize]) -> f32 {
     let pitch = line_pitch(LEGEND, false);
-    legend_paras(setup, on_x, on_s)
+    legend_paras(setup, on_x, on_s, w.units)
         .iter()
         .map(|t| wrap(t, LEGEND, false, w.column()).len() as f32 * pitch + 0.25 * LEGEND)
         .sum::<f32>()
@@ -431,21 +437,31 @@ const KEY: &str = "Key to the face drawings: each gauge has every grid outlined 
     name them). The arrow is the gauge's reference direction, its angle counted \
     counter-clockwise from +x as drawn (for a rosette the grids lie at their pattern's angles \
     from it). The dashed grey rectangle round a gauge is the area to prepare (the grid plus \
-    10 mm all round, as in the gauge table), cut off at the face's edges. The names round each \
+    {margin} all round, as in the gauge table), cut off at the face's edges. The names round each \
     face say which edge borders what, so a drawing cannot be read mirrored. A zig-zag line is \
     a break: the face goes on there, and distances across it are true.";
 
 /// Size of the key's text, points.
 const KEY_SIZE: f32 = 7.5;
 
+/// The key in the sheet's units: the margin round a prepared area is 10 mm (SI) or about
+/// 0.4 in (10 mm = 0.394 in).
+fn key_text(units: Units) -> String {
+    let margin = match units {
+        Units::Si => "10 mm",
+        Units::UsCustomary => "about 0.4 in",
+    };
+    KEY.replace("{margin}", margin)
+}
+
 /// The key to every face drawing of a part, printed under the first of them.
 pub(super) fn key(w: &mut Writer) {
-    w.para(KEY_SIZE, false, KEY);
+    w.para(KEY_SIZE, false, &key_text(w.units));
 }
 
 /// Height the key takes, points.
 pub(super) fn key_height(w: &Writer) -> f32 {
-    let lines = wrap(KEY, KEY_SIZE, false, w.column()).len() as f32;
+    let lines = wrap(&key_text(w.units), KEY_SIZE, false, w.column()).len() as f32;
     lines * line_pitch(KEY_SIZE, false) + 0.25 * KEY_SIZE
 }
 

@@ -342,10 +342,10 @@ fn grid(w: &mut Writer, c: [f32; 2], u: [f32; 2], len: f32, wid: f32) -> Vec<[f3
     out
 }
 
-/// A scale bar of `length_mm` at `pt_per_mm` from (`x`, `y`): five parts, black and white in
-/// turn, with "0" and "{length} mm" under its ends. Returns its box.
-pub(crate) fn scale_bar(w: &mut Writer, x: f32, y: f32, length_mm: f64, pt_per_mm: f64) -> Area {
-    let len = (length_mm * pt_per_mm) as f32;
+/// A scale bar `length_pt` long from (`x`, `y`): five parts, black and white in turn, with "0"
+/// and `label` (its length, "50 mm" or "2 in") under its ends. Returns its box.
+pub(crate) fn scale_bar(w: &mut Writer, x: f32, y: f32, label: &str, length_pt: f64) -> Area {
+    let len = length_pt as f32;
     let h = 3.0;
     for k in 0..5 {
         let a = x + len * k as f32 / 5.0;
@@ -357,16 +357,9 @@ pub(crate) fn scale_bar(w: &mut Writer, x: f32, y: f32, length_mm: f64, pt_per_m
     }
     let size = super::LABEL;
     let zero = w.text_top(x - 2.0, y + h + 2.0, size, false, "0");
-    let label = format!("{} mm", fmt_mm(length_mm));
-    let end = crate::sheet::layout::text_width(&label, size, false);
-    let last = w.text_top(x + len - end / 2.0, y + h + 2.0, size, false, &label);
+    let end = crate::sheet::layout::text_width(label, size, false);
+    let last = w.text_top(x + len - end / 2.0, y + h + 2.0, size, false, label);
     Area::new(x, y, last.x1.max(x + len), zero.y1.max(last.y1))
-}
-
-/// A length in mm without trailing zeros: "50", "2.5".
-pub(crate) fn fmt_mm(v: f64) -> String {
-    let s = format!("{v:.2}");
-    s.trim_end_matches('0').trim_end_matches('.').to_owned()
 }
 
 /// The axis arrows from (`x`, `y`) (their common tail): "+x" to the right, "+s" up, each

@@ -2,7 +2,6 @@
 //! lines, and the scale bar with the axis arrows.
 
 use super::{Drawing, EDGE_ROWS, ROW, TIER, label_h, marks};
-use crate::drawing::face_layout::scale_bar_length;
 use crate::sheet::layout::Area;
 use crate::sheet::writer::Writer;
 
@@ -140,12 +139,12 @@ impl Drawing<'_> {
         }
     }
 
-    /// The scale bar in mm and the +x, +s arrows, under the dimensions.
+    /// The scale bar in the display length unit and the +x, +s arrows, under the dimensions.
     pub(super) fn draw_scale_and_axes(&self, w: &mut Writer) {
         let y = self.x_tier_y(self.x_dims.len()) - label_h();
-        let pt_per_mm = self.scale.pt_per_m() / 1e3;
-        let length = scale_bar_length(pt_per_mm, 120.0);
-        let bar = marks::scale_bar(w, self.frame.left, y, length, pt_per_mm);
+        let pt_per_m = self.scale.pt_per_m();
+        let (length_m, label) = crate::sheet::scale_bar_length(w.units, pt_per_m, 120.0);
+        let bar = marks::scale_bar(w, self.frame.left, y, &label, length_m * pt_per_m);
         marks::axis_arrows(w, bar.x1 + 40.0, y + 24.0, 18.0);
     }
 }

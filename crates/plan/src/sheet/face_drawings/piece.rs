@@ -7,8 +7,9 @@ use super::labels::{around, place_apart};
 use super::marks::Frame;
 use super::outline::CLEAR;
 use super::plan::{Axis, FaceSetup, Scale};
-use super::{Drawing, EDGE_ROWS, LABEL, ROW, label_h, mm1};
+use super::{Drawing, EDGE_ROWS, LABEL, ROW, label_h};
 use crate::sheet::layout::{Area, text_width};
+use crate::sheet::len;
 use crate::sheet::writer::Writer;
 
 /// Room a piece needs above and below the face drawn in it, points.
@@ -124,8 +125,8 @@ impl Drawing<'_> {
                     false,
                     format!(
                         "x {}, s {}",
-                        mm1(g.position.x_m - dx),
-                        mm1(g.position.s_m - ds)
+                        len(w.units, g.position.x_m - dx),
+                        len(w.units, g.position.s_m - ds)
                     ),
                 ),
             ];

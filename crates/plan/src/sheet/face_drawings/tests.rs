@@ -152,7 +152,7 @@ fn a_dimension_line_is_as_long_as_its_value_at_the_stated_scale() {
         (longest - want).abs() < 0.01,
         "{longest} pt, want {want} pt"
     );
-    assert!(texts(&w).iter().any(|t| t == "50.0"));
+    assert!(texts(&w).iter().any(|t| t == "50.00"));
 }
 
 #[test]
@@ -166,7 +166,7 @@ fn each_face_says_how_it_is_seen_and_what_lies_beyond_its_edges() {
         "Top face: seen from above, looking down on the top face.",
         "beyond the upper edge: back face",
         "beyond the lower edge: front face",
-        "left edge: clamped end at x = 0.0 mm",
+        "left edge: clamped end at x = 0 mm",
         // The back face is drawn with x to the right, so the bottom face lies above it (past a
         // break: the 60 mm side is not drawn whole).
         "upper edge: bottom face",
@@ -542,7 +542,7 @@ fn a_plates_hole_is_drawn_open_and_the_datum_is_found_from_its_edge() {
     // centre along +s, so the distance is its s less the hole's radius.
     let g = &placed[0];
     let want = format!(
-        "{}: {:.1} mm from the hole edge",
+        "{}: {:.2} mm from the hole edge",
         g.id,
         (g.position.s_m.abs() - r_m) * 1e3
     );

@@ -189,7 +189,8 @@ pub(super) fn supports(w: &mut Writer, member: &Member, views: &[Placed], labels
         return;
     }
     let edges = face_edges(member, face, 0.0);
-    let length = |x: f64| format!("{:.0} mm", x * 1e3);
+    let units = w.units;
+    let length = |x: f64| crate::sheet::len(units, x);
     for (end, outward) in [(edges.x_min, -1.0f32), (edges.x_max, 1.0)] {
         let Neighbour::End { x_m, kind } = end else {
             continue;

@@ -2,7 +2,6 @@
 //! load meets the part, turning arrows for couples, each kept clear of the gauges' marks,
 //! ticks and the room for their labels (gauges matter more than arrows).
 
-use gw_bridge::units::si;
 use gw_mechanics::Member;
 
 use super::annotate::{Label, Record, to_box};
@@ -11,6 +10,7 @@ use super::symbols::{arrow, turning_arrow, turning_points, unit};
 use crate::drawing::load_glyphs::{GlyphShape, LoadGlyph};
 use crate::sheet::layout::Area;
 use crate::sheet::writer::Writer;
+use crate::units::Units;
 
 /// Length of a load arrow on the page, points.
 const ARROW: f32 = 22.0;
@@ -26,12 +26,12 @@ fn clamped(p: V3, (lo, hi): (V3, V3)) -> V3 {
     std::array::from_fn(|i| p[i].clamp(lo[i], hi[i]))
 }
 
-/// The text of a load: its name and value in its unit.
-fn load_text(g: &LoadGlyph) -> String {
+/// The text of a load: its name and value in its display unit.
+fn load_text(g: &LoadGlyph, units: Units) -> String {
     format!(
         "{} {}",
         g.component.name(),
-        si(g.value.abs(), g.component.unit())
+        crate::sheet::load(units, g.component, g.value.abs())
     )
 }
 
@@ -82,7 +82,7 @@ pub(super) fn draw(
                 }
             };
             if let (Some((at, toward, clear)), false) = (anchor, labelled) {
-                labels.push(Label::near(load_text(g), at, toward, clear));
+                labels.push(Label::near(load_text(g, w.units), at, toward, clear));
                 labelled = true;
             }
         }

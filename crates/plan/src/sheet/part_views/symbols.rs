@@ -210,26 +210,11 @@ pub(super) fn axes(w: &mut Writer, origin: [f32; 2], dirs: [([f32; 2], f64); 3])
     tips
 }
 
-/// The length of scale bar that fits in `max_pt` at `k` points per metre, metres: 1, 2 or 5
-/// times a power of ten.
-pub(super) fn bar_length_m(k: f64, max_pt: f64) -> f64 {
-    let mut best = 1e-3;
-    for e in -3..=3 {
-        for m in [1.0, 2.0, 5.0] {
-            let l = m * 10f64.powi(e);
-            if l * k <= max_pt {
-                best = l;
-            }
-        }
-    }
-    best
-}
-
 /// A scale bar at `k` points per metre from (`x`, `top`): five blocks, black and white, with
-/// "0" and its length in millimetres under the ends, and `caption` after it. Returns the
-/// right edge of what it drew.
+/// "0" and its length in the sheet's length unit under the ends, and `caption` after it.
+/// Returns the right edge of what it drew.
 pub(super) fn scale_bar(w: &mut Writer, x: f32, top: f32, k: f64, caption: &str) -> f32 {
-    let length_m = bar_length_m(k, 110.0);
+    let (length_m, end) = crate::sheet::scale_bar_length(w.units, k, 110.0);
     let length = (length_m * k) as f32;
     let block = length / 5.0;
     for i in 0..5 {
@@ -243,7 +228,6 @@ pub(super) fn scale_bar(w: &mut Writer, x: f32, top: f32, k: f64, caption: &str)
     let under = top + 5.0;
     let zero = text_width("0", LABEL, false);
     w.text_top(x - zero / 2.0, under, LABEL, false, "0");
-    let end = format!("{:.0} mm", length_m * 1e3);
     let ew = text_width(&end, LABEL, false);
     let end_box = w.text_top(x + length - ew / 2.0, under, LABEL, false, &end);
     let cx = end_box.x1.max(x + length) + 8.0;
@@ -254,15 +238,23 @@ pub(super) fn scale_bar(w: &mut Writer, x: f32, top: f32, k: f64, caption: &str)
 
 #[cfg(test)]
 mod tests {
-    use super::*;
-
     #[test]
     fn the_scale_bar_is_a_round_length_that_fits() {
+        use crate::sheet::scale_bar_length;
+        use crate::units::Units;
         // 1:5 is 2834.6 / 5 = 566.9 pt per metre: 100 mm is 56.7 pt, 200 mm 113 pt.
         let k = 72.0 / 0.0254 / 5.0;
-        assert!((bar_length_m(k, 110.0) - 0.1).abs() < 1e-12);
-        assert!((bar_length_m(k, 120.0) - 0.2).abs() < 1e-12);
+        let (l, text) = scale_bar_length(Units::Si, k, 110.0);
+        assert!((l - 0.1).abs() < 1e-12);
+        assert_eq!(text, "100 mm");
+        assert!((scale_bar_length(Units::Si, k, 120.0).0 - 0.2).abs() < 1e-12);
         // 1:1: 20 mm is 56.7 pt, 50 mm 141.7 pt.
-        assert!((bar_length_m(72.0 / 0.0254, 110.0) - 0.02).abs() < 1e-12);
+        assert!((scale_bar_length(Units::Si, 72.0 / 0.0254, 110.0).0 - 0.02).abs() < 1e-12);
+        // In inches (72 pt each at 1:1, by the definition of the point): 1 in fits 110 pt,
+        // 2 in (144 pt) does not; at 1:5 an inch is 14.4 pt, so 5 in (72 pt) fits.
+        let (l, text) = scale_bar_length(Units::UsCustomary, 72.0 / 0.0254, 110.0);
+        assert_eq!(text, "1 in");
+        assert!((l - 0.0254).abs() < 1e-12);
+        assert_eq!(scale_bar_length(Units::UsCustomary, k, 110.0).1, "5 in");
     }
 }
