@@ -268,3 +268,42 @@ fn map_legend_of_stress_reads_ksi() {
     assert_eq!(range.matches(" ksi").count(), 2, "{range}");
     assert!(!range.contains("MPa"), "{range}");
 }
+
+#[test]
+fn temperature_coefficients_bridge_factor_and_calibration_read_cleanly_in_us_units() {
+    let mut project = gw_plan::demo::demo_project();
+    // A fitted sensitivity of 10 kN per mV/V on the bending bridge (it measures a force).
+    project.parts[0].bridges[0].calibration = Some(gw_plan::installation::InPlaceCalibration {
+        load_per_mv_per_v: 10e3,
+        standard_uncertainty: 20.0,
+        zero_mv_per_v: 0.0,
+        source: "first test".into(),
+    });
+    let mut h = app_on(project);
+    menu(&mut h, "Units", "US customary (in, lbf, psi, °F)");
+    select(&mut h, "Bridge Arm bending");
+    // Copper leads, 0.0039 /°C (the demo's figure) = 3900 ppm/°C; per °F a degree is 1/1.8 as
+    // large (NIST SP 811, B.9): 2166.7 ppm/°F, shown to four significant digits.
+    let (drift, unit) = number_and_unit(&number_value(&h, "Lead drift"));
+    assert_eq!(unit, "ppm/°F");
+    assert!((drift - 3900.0 / 1.8).abs() <= 0.5, "{drift} ppm/°F");
+    assert_eq!(places(&number_value(&h, "Lead drift")), 0);
+    // Four grids on top and bottom read 4 × the strain of one: "4.0", not "4.0000".
+    let texts = inspector_texts(&h);
+    assert!(texts.iter().any(|t| t == "4.0"), "{texts:?}");
+    assert!(!texts.iter().any(|t| t.contains("4.0000")), "{texts:?}");
+    // 10 kN / 4.448 221 615 260 5 N/lbf (NIST SP 811, Appendix B) = 2248.09 lbf.
+    let used = texts
+        .iter()
+        .find(|t| t.starts_with("fitted: "))
+        .unwrap_or_else(|| panic!("no fitted sensitivity in {texts:?}"));
+    let lbf = 10e3 / 4.448_221_615_260_5;
+    let shown: f64 = used
+        .trim_start_matches("fitted: ")
+        .split(' ')
+        .next()
+        .and_then(|v| v.parse().ok())
+        .unwrap_or_else(|| panic!("{used}"));
+    assert!((shown - lbf).abs() <= 0.5, "{used}");
+    assert!(used.contains(" lbf per mV/V (first test)"), "{used}");
+}

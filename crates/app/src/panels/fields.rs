@@ -11,6 +11,9 @@ use crate::units::{Quantity, Units, number_text};
 pub enum Unit {
     /// A quantity whose unit follows the chosen unit system, at the quantity's resolution.
     Of(Quantity),
+    /// A quantity whose unit follows the chosen unit system, with digits of its own (a
+    /// temperature coefficient reads "3900 ppm/°C", not "3900.00 ppm/°C").
+    OfDigits(Quantity, Digits),
     /// A fixed scale and suffix: shown = stored × scale, with its digits.
     Scaled(f64, &'static str, Digits),
     /// A fixed unit of each system, SI first then US customary, for a quantity the shared
@@ -56,7 +59,7 @@ impl Unit {
     /// Stored value to shown value.
     pub fn show(self, units: Units, v: f64) -> f64 {
         match self {
-            Unit::Of(q) => units.to_display(q, v),
+            Unit::Of(q) | Unit::OfDigits(q, _) => units.to_display(q, v),
             Unit::Scaled(k, _, _) => v * k,
             Unit::PerSystem(each, _) => v * each[system(units)].0,
         }
@@ -65,7 +68,7 @@ impl Unit {
     /// Shown value to stored value.
     pub fn store(self, units: Units, v: f64) -> f64 {
         match self {
-            Unit::Of(q) => units.from_display(q, v),
+            Unit::Of(q) | Unit::OfDigits(q, _) => units.from_display(q, v),
             Unit::Scaled(k, _, _) => v / k,
             Unit::PerSystem(each, _) => v / each[system(units)].0,
         }
@@ -74,7 +77,7 @@ impl Unit {
     /// Suffix shown after the number.
     pub fn suffix(self, units: Units) -> &'static str {
         match self {
-            Unit::Of(q) => units.label(q),
+            Unit::Of(q) | Unit::OfDigits(q, _) => units.label(q),
             Unit::Scaled(_, s, _) => s,
             Unit::PerSystem(each, _) => each[system(units)].1,
         }
@@ -84,7 +87,9 @@ impl Unit {
     pub fn number_text(self, units: Units, shown: f64) -> String {
         match self {
             Unit::Of(q) => number_text(shown, units.decimals(q, shown)),
-            Unit::Scaled(_, _, digits) | Unit::PerSystem(_, digits) => digits.text(shown),
+            Unit::OfDigits(_, digits) | Unit::Scaled(_, _, digits) | Unit::PerSystem(_, digits) => {
+                digits.text(shown)
+            }
         }
     }
 }
@@ -115,8 +120,10 @@ pub const GAIN: Unit = Unit::Scaled(1.0, "", Digits::Places(0, 2));
 pub const OHM: Unit = Unit::Scaled(1.0, "Ω", Digits::Places(0, 2));
 /// Volts.
 pub const VOLT: Unit = Unit::Scaled(1.0, "V", Digits::Places(0, 3));
-/// A relative change per degree: ppm/°C or ppm/°F.
-pub const PPM_PER_DEGREE: Unit = Unit::Of(Quantity::ExpansionCoefficient);
+/// A relative change per degree: ppm/°C or ppm/°F, to four significant digits ("11.7 ppm/°C",
+/// "6.5 ppm/°F", "2167 ppm/°F" for copper leads).
+pub const PPM_PER_DEGREE: Unit =
+    Unit::OfDigits(Quantity::ExpansionCoefficient, Digits::Significant(4));
 /// Radians shown in degrees, to a tenth of a degree ("0", "45", "12.5").
 pub const DEGREES: Unit = Unit::Scaled(180.0 / std::f64::consts::PI, "°", Digits::Places(0, 1));
 /// Metres in a foot, exact by definition (NIST SP 811, 2008, Appendix B): a resistance per
@@ -170,6 +177,8 @@ pub enum Editor<T> {
     },
     /// A value shown but not edited here (derived, or edited elsewhere), with why.
     Info(String),
+    /// Like [`Editor::Info`], written in the display units when drawn.
+    InfoInUnits(Box<dyn Fn(Units) -> String>),
 }
 
 type Parse<T> = Box<dyn Fn(&mut T, &str) -> Result<(), String>>;
@@ -339,6 +348,21 @@ pub fn info<T>(path: &'static str, label: &str, help: &'static str, value: Strin
         label: label.to_owned(),
         help,
         editor: Editor::Info(value),
+    }
+}
+
+/// A read-only line written in the display units when drawn.
+pub fn info_in_units<T>(
+    path: &'static str,
+    label: &str,
+    help: &'static str,
+    value: impl Fn(Units) -> String + 'static,
+) -> Field<T> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::InfoInUnits(Box::new(value)),
     }
 }
 

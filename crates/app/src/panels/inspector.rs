@@ -180,6 +180,12 @@ fn field_value_ui<T: Clone>(
             ui.label(text).labelled_by(label).on_hover_text(f.help);
             None
         }
+        Editor::InfoInUnits(text) => {
+            ui.label(text(units))
+                .labelled_by(label)
+                .on_hover_text(f.help);
+            None
+        }
         Editor::Parsed { .. } => None,
     }
 }

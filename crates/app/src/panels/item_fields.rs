@@ -1758,15 +1758,20 @@ fn wiring_field(plan: &BridgePlan) -> Field<BridgePlan> {
 /// Load recovery and the in-place calibration.
 fn installed_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
     use gw_plan::document::LoadRecovery;
-    let calibration = match &plan.calibration {
-        Some(c) => format!(
-            "fitted: {:.6} per mV/V ({})",
-            c.load_per_mv_per_v,
-            if c.source.is_empty() {
-                "no source"
-            } else {
-                &c.source
-            }
+    let load = Quantity::of(plan.wanted);
+    let calibration = plan.calibration.as_ref().map(|c| {
+        let source = if c.source.is_empty() {
+            "no source".to_owned()
+        } else {
+            c.source.clone()
+        };
+        (c.load_per_mv_per_v, source)
+    });
+    // A load per mV/V is a ratio: it converts by the load's scale alone.
+    let calibration = move |units: Units| match &calibration {
+        Some((per_mv_per_v, source)) => format!(
+            "fitted: {} per mV/V ({source})",
+            units.format_difference(load, *per_mv_per_v)
         ),
         None => "predicted".to_owned(),
     };
@@ -1783,7 +1788,7 @@ fn installed_fields(plan: &BridgePlan) -> Vec<Field<BridgePlan>> {
             |p: &BridgePlan| p.recovery,
             |p, v| p.recovery = v,
         ),
-        info(
+        info_in_units(
             "calibration",
             "Sensitivity used",
             "Set or cleared from Results › Measured › Calibration",
@@ -2067,7 +2072,7 @@ fn factor_fields(project: &Project, part: &Part, plan: &BridgePlan) -> Vec<Field
             "bridge_factor_override.(computed)",
             "Bridge factor, computed",
             "From the arrangement and the part: the instrument then shows the first active grid's strain",
-            format!("{computed:.4}"),
+            BRIDGE_FACTOR.number_text(Units::Si, computed),
         ),
         flag(
             "bridge_factor_override.(present)",
