@@ -191,6 +191,10 @@ fn angles_and_gauge_factors_show_no_noise_digits() {
     // 0.003 and 0.007 as fractions: 0.3 % and 0.7 %, not 0.30000000000000004.
     assert_eq!(number_value(&h, "Resistance tolerance"), "0.3 %");
     assert_eq!(number_value(&h, "Transverse sensitivity"), "0.7 %");
+    // The thermal-output curve's small higher terms keep their digits: −3.5e-8 and 1.4e-10
+    // per °C² and °C³ are −0.035 µε and 0.00014 µε, not "0 µε".
+    assert_eq!(number_value(&h, "c2 (per °C²)"), "-0.035 µε");
+    assert_eq!(number_value(&h, "c3 (per °C³)"), "0.00014 µε");
     // 3 mm grid: 3 / 25.4 = 0.1181 in, at the thousandth an inch field shows.
     let text = number_value(&h, "Grid length");
     assert_eq!(places(&text), 3, "{text}");
@@ -283,7 +287,7 @@ fn temperature_coefficients_bridge_factor_and_calibration_read_cleanly_in_us_uni
     menu(&mut h, "Units", "US customary (in, lbf, psi, °F)");
     select(&mut h, "Bridge Arm bending");
     // Copper leads, 0.0039 /°C (the demo's figure) = 3900 ppm/°C; per °F a degree is 1/1.8 as
-    // large (NIST SP 811, B.9): 2166.7 ppm/°F, shown to four significant digits.
+    // large (NIST SP 811, B.9): 2166.7 ppm/°F, shown in whole ppm.
     let (drift, unit) = number_and_unit(&number_value(&h, "Lead drift"));
     assert_eq!(unit, "ppm/°F");
     assert!((drift - 3900.0 / 1.8).abs() <= 0.5, "{drift} ppm/°F");

@@ -108,6 +108,9 @@ pub const LENGTH: Unit = Unit::Of(Quantity::Length);
 pub const PERCENT: Unit = Unit::Scaled(100.0, "%", Digits::Places(0, 3));
 /// A strain shown in µε.
 pub const MICROSTRAIN: Unit = Unit::Scaled(1e6, "µε", Digits::Places(0, 1));
+/// A coefficient of a thermal-output curve, µε per power of °C, to four significant digits:
+/// the higher terms are small ("-32", "2.2", "-0.035", "0.00014").
+pub const THERMAL_COEFFICIENT: Unit = Unit::Scaled(1e6, "µε", Digits::Significant(4));
 /// A plain number (a multiple, a bridge factor).
 pub const PLAIN: Unit = Unit::Scaled(1.0, "", Digits::Places(0, 3));
 /// A bridge factor: one decimal, up to three where the value has them ("4.0", "2.6", "2.598").
@@ -120,10 +123,10 @@ pub const GAIN: Unit = Unit::Scaled(1.0, "", Digits::Places(0, 2));
 pub const OHM: Unit = Unit::Scaled(1.0, "Ω", Digits::Places(0, 2));
 /// Volts.
 pub const VOLT: Unit = Unit::Scaled(1.0, "V", Digits::Places(0, 3));
-/// A relative change per degree: ppm/°C or ppm/°F, to four significant digits ("11.7 ppm/°C",
-/// "6.5 ppm/°F", "2167 ppm/°F" for copper leads).
+/// A relative change per degree: ppm/°C or ppm/°F, to three significant digits and whole
+/// ppm at least ("11.7 ppm/°C", "6.83 ppm/°F", "2167 ppm/°F" for copper leads).
 pub const PPM_PER_DEGREE: Unit =
-    Unit::OfDigits(Quantity::ExpansionCoefficient, Digits::Significant(4));
+    Unit::OfDigits(Quantity::ExpansionCoefficient, Digits::Significant(3));
 /// Radians shown in degrees, to a tenth of a degree ("0", "45", "12.5").
 pub const DEGREES: Unit = Unit::Scaled(180.0 / std::f64::consts::PI, "°", Digits::Places(0, 1));
 /// Metres in a foot, exact by definition (NIST SP 811, 2008, Appendix B): a resistance per
