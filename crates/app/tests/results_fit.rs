@@ -10,7 +10,8 @@ use egui_kittest::kittest::{NodeT, Queryable};
 use gw_app::app::{FileDialogs, GaugewrightApp, Tab};
 use gw_app::panels::plots::PlotView;
 use gw_app::settings::AppPaths;
-use gw_app::state::DocumentState;
+use gw_app::state::{DocumentState, Selection};
+use gw_plan::edit::Item;
 use gw_app::units::Units;
 use gw_plan::evaluate::{EvalOptions, evaluate};
 use gw_reduce::example::{example_log, example_records};
@@ -139,5 +140,26 @@ fn every_results_tab_keeps_its_texts_in_the_view_in_both_unit_systems() {
         }
     }
     assert!(seen > 100, "the tabs showed only {seen} texts");
+    assert!(found.is_empty(), "{}", found.join("\n"));
+}
+
+#[test]
+fn with_a_bridge_in_the_inspector_every_results_tab_still_fits() {
+    // The inspector of a bridge is the widest; the view in the centre is narrowest then.
+    let mut h = results_app();
+    let mut found = Vec::new();
+    for units in [Units::Si, Units::UsCustomary] {
+        h.state_mut().show_units(units);
+        for part in 0..h.state().doc.project.parts.len() {
+            let item = Item::Bridge { part, bridge: 0 };
+            let before = h.state().doc.selection;
+            h.state_mut().doc.selection = Selection::of(item, before);
+            for tab in TABS {
+                h.state_mut().show_results(tab);
+                h.run();
+                found.extend(problems(&h, tab, units));
+            }
+        }
+    }
     assert!(found.is_empty(), "{}", found.join("\n"));
 }

@@ -116,7 +116,9 @@ impl PlotsPanel {
 
 /// The row of result views.
 fn view_tabs_ui(ui: &mut egui::Ui, view: &mut PlotView) {
-    ui.horizontal(|ui| {
+    // Wrapped: with a wide inspector beside it the row takes two lines rather than running
+    // under the inspector.
+    ui.horizontal_wrapped(|ui| {
         for (v, name, help) in [
             (
                 PlotView::Output,

@@ -3,14 +3,14 @@
 //! `gw_plan::result_series`; this file only draws them.
 
 use egui::Color32;
-use egui_plot::{Corner, Legend, Line, LineStyle, MarkerShape, Plot, Points, Polygon};
+use egui_plot::{Line, LineStyle, MarkerShape, Plot, Points, Polygon};
 use gw_plan::evaluate::BridgeEvaluation;
 use gw_plan::result_series::{self, CaseRamp, ErrorCurve};
 
 use crate::panels::capitalise;
 use crate::panels::plots::export::{PlotTable, export_menu};
 use crate::state::DocumentState;
-use crate::units::{Quantity, Units, microstrain};
+use crate::units::{Quantity, Units, microstrain, number_text};
 
 /// Case colours and markers, taken in turn, so two cases differ in both.
 const CASE_STYLES: [(Color32, MarkerShape); 6] = [
@@ -47,6 +47,16 @@ pub(super) fn output_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvalu
         .map_or(&[][..], |p| &p.load_cases[..]);
     let curves = result_series::error_curves(be, cases);
     error_summary_ui(ui, doc.units, be, curves.as_deref());
+    let names: Vec<&str> = be.cases.iter().map(|c| c.case.as_str()).collect();
+    let band = curves.is_some()
+        && result_series::full_scale(be).is_some_and(|fs| {
+            be.cases.iter().any(|c| {
+                c.ramp
+                    .iter()
+                    .any(|p| result_series::allowed_pct(be, p.wanted_value, fs).is_some())
+            })
+        });
+    legend_ui(ui, &names, band);
     ui.columns(2, |cols| {
         ramps_plot_ui(&mut cols[0], doc.units, be);
         match &curves {
@@ -56,6 +66,130 @@ pub(super) fn output_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvalu
             }
         }
     });
+}
+
+/// The key of both plots, above them so that it covers no data: each load case's colour and
+/// marker, what solid and dashed lines are, and the band.
+fn legend_ui(ui: &mut egui::Ui, cases: &[&str], band: bool) {
+    let grey = ui.visuals().weak_text_color();
+    ui.horizontal_wrapped(|ui| {
+        for (i, name) in cases.iter().enumerate() {
+            let (colour, marker) = case_style(i);
+            key_ui(ui, egui::RichText::new(*name), |ui| {
+                key_swatch_ui(ui, colour, Some(marker), false);
+            });
+            ui.add_space(8.0);
+        }
+        let words = |t: &str| egui::RichText::new(t).weak();
+        key_ui(ui, words("exact circuit, total predicted error"), |ui| {
+            key_swatch_ui(ui, grey, Some(MarkerShape::Circle), false);
+        });
+        key_ui(ui, words("straight line, departure from it"), |ui| {
+            key_swatch_ui(ui, grey, None, true);
+        });
+        if band {
+            key_ui(ui, words("required accuracy ±"), |ui| {
+                let (rect, _) =
+                    ui.allocate_exact_size(egui::vec2(SWATCH_WIDTH, 12.0), egui::Sense::hover());
+                ui.painter().rect_filled(rect, 0.0, BAND);
+                ui.painter().rect_stroke(
+                    rect,
+                    0.0,
+                    egui::Stroke::new(1.0, Color32::from_rgb(70, 150, 110)),
+                    egui::StrokeKind::Inside,
+                );
+            });
+        }
+    });
+}
+
+/// One entry of a key, its swatch and words kept together on one line: the row wraps between
+/// entries, not inside one.
+fn key_ui(ui: &mut egui::Ui, text: egui::RichText, swatch: impl FnOnce(&mut egui::Ui)) {
+    let words = egui::WidgetText::from(text).into_galley(
+        ui,
+        Some(egui::TextWrapMode::Extend),
+        f32::INFINITY,
+        egui::TextStyle::Body,
+    );
+    let needed = SWATCH_WIDTH + ui.spacing().item_spacing.x + words.size().x;
+    if ui.available_width() < needed {
+        ui.end_row();
+    }
+    swatch(ui);
+    ui.add(egui::Label::new(words));
+}
+
+/// The width of a key's swatch.
+const SWATCH_WIDTH: f32 = 26.0;
+
+/// A short line (dashed when `dashed`) with a marker on it, as the plots draw a series.
+fn key_swatch_ui(ui: &mut egui::Ui, colour: Color32, marker: Option<MarkerShape>, dashed: bool) {
+    let (rect, _) = ui.allocate_exact_size(egui::vec2(SWATCH_WIDTH, 14.0), egui::Sense::hover());
+    let painter = ui.painter();
+    let y = rect.center().y;
+    let stroke = egui::Stroke::new(1.5, colour);
+    if dashed {
+        let mut x = rect.left();
+        while x < rect.right() {
+            let end = (x + 4.0).min(rect.right());
+            painter.line_segment([egui::pos2(x, y), egui::pos2(end, y)], stroke);
+            x += 7.0;
+        }
+    } else {
+        painter.line_segment(
+            [egui::pos2(rect.left(), y), egui::pos2(rect.right(), y)],
+            stroke,
+        );
+    }
+    if let Some(marker) = marker {
+        marker_shape(painter, rect.center(), 4.0, marker, colour);
+    }
+}
+
+/// A marker as the plot draws it: circle, square, diamond, triangles up and down, cross.
+fn marker_shape(
+    painter: &egui::Painter,
+    c: egui::Pos2,
+    r: f32,
+    marker: MarkerShape,
+    colour: Color32,
+) {
+    use egui::pos2;
+    let polygon =
+        |points: Vec<egui::Pos2>| egui::Shape::convex_polygon(points, colour, egui::Stroke::NONE);
+    let shape = match marker {
+        MarkerShape::Square => polygon(vec![
+            pos2(c.x - r, c.y - r),
+            pos2(c.x + r, c.y - r),
+            pos2(c.x + r, c.y + r),
+            pos2(c.x - r, c.y + r),
+        ]),
+        MarkerShape::Diamond => polygon(vec![
+            pos2(c.x, c.y - r),
+            pos2(c.x + r, c.y),
+            pos2(c.x, c.y + r),
+            pos2(c.x - r, c.y),
+        ]),
+        MarkerShape::Up => polygon(vec![
+            pos2(c.x, c.y - r),
+            pos2(c.x + r, c.y + r),
+            pos2(c.x - r, c.y + r),
+        ]),
+        MarkerShape::Down => polygon(vec![
+            pos2(c.x - r, c.y - r),
+            pos2(c.x + r, c.y - r),
+            pos2(c.x, c.y + r),
+        ]),
+        MarkerShape::Cross => {
+            let stroke = egui::Stroke::new(2.0, colour);
+            painter.line_segment([pos2(c.x - r, c.y - r), pos2(c.x + r, c.y + r)], stroke);
+            painter.line_segment([pos2(c.x - r, c.y + r), pos2(c.x + r, c.y - r)], stroke);
+            return;
+        }
+        _ => egui::Shape::circle_filled(c, r, colour),
+    };
+    painter.add(shape);
 }
 
 /// The wanted load's axis title: "Axial force (kN)".
@@ -75,7 +209,6 @@ fn ramps_plot_ui(ui: &mut egui::Ui, units: Units, be: &BridgeEvaluation) {
     };
     let plot = readable_x_axis(Plot::new("output vs load"), load_axis(units, be));
     let response = plot
-        .legend(Legend::default().position(Corner::LeftTop))
         .height(300.0)
         .y_axis_label("Displayed strain (µε)")
         .show(ui, |plot| {
@@ -151,19 +284,10 @@ fn error_plot_ui(ui: &mut egui::Ui, units: Units, be: &BridgeEvaluation, curves:
     let q = Quantity::of(be.wanted);
     let fs = result_series::full_scale(be).unwrap_or(f64::NAN);
     let band = band_polygon(units, be, fs);
-    // Headroom above the highest curve or band keeps the legend (top left) off the data.
-    let top = curves
-        .iter()
-        .flat_map(|c| c.points.iter().map(|p| p.total_pct.max(p.departure_pct)))
-        .chain(band.iter().flatten().map(|p| p[1]))
-        .filter(|v| v.is_finite())
-        .fold(0.0, f64::max);
     let plot = readable_x_axis(Plot::new("error vs load"), load_axis(units, be));
     let response = plot
-        .legend(Legend::default().position(Corner::LeftTop))
         .height(300.0)
         .include_y(0.0)
-        .include_y(top * 1.6)
         .y_axis_label("Error (% of full scale)")
         .show(ui, |plot| {
             if let Some(band) = &band {
@@ -289,13 +413,13 @@ fn error_summary_ui(
 fn zero_and_conversion_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
     let z = &be.zero_band;
     ui.label(format!(
-        "Zero at no load: {:.4} mV/V, ± {:.4} mV/V from resistance tolerances (k = {}), {:.4} to \
-         {:.4} mV/V at worst",
-        z.centre_mv_per_v,
-        z.statistical_mv_per_v,
+        "Zero at no load: {} mV/V, ± {} mV/V from resistance tolerances (k = {}), {} to {} mV/V \
+         at worst",
+        number_text(z.centre_mv_per_v, 4),
+        number_text(z.statistical_mv_per_v, 4),
         z.coverage_k,
-        z.worst_low_mv_per_v,
-        z.worst_high_mv_per_v
+        number_text(z.worst_low_mv_per_v, 4),
+        number_text(z.worst_high_mv_per_v, 4)
     ))
     .on_hover_text(
         "Nominal zero of the exact circuit (leads included); the ± treats each arm's resistance \

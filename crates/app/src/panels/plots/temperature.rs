@@ -10,7 +10,7 @@ use gw_plan::result_series::{ThermalCurve, thermal_curves};
 use super::output::readable_x_axis;
 use crate::panels::plots::export::{PlotTable, export_menu};
 use crate::state::DocumentState;
-use crate::units::{Quantity, Units};
+use crate::units::{Quantity, Units, number_text};
 
 /// Colours of the causes, in the order of `thermal_curves`.
 const COLOURS: [Color32; 7] = [
@@ -109,7 +109,7 @@ fn thermal_table(units: Units, curves: &[ThermalCurve]) -> PlotTable {
             row.extend(curves.iter().map(|c| {
                 c.points
                     .get(k)
-                    .map_or(String::new(), |p| format!("{:.3}", p[1] * 1e6))
+                    .map_or(String::new(), |p| number_text(p[1] * 1e6, 3))
             }));
             row
         })

@@ -87,13 +87,17 @@ fn uncertainty_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation)
         budget_table(doc, be, &rows)
     });
     ui.weak(
-        "Share: each source's part of the combined variance u² (the shares of uncorrelated \
-         sources add to 100 %).",
+        "Share: each source's part of the combined variance u², in % (the shares of \
+         uncorrelated sources add to 100 %).",
     );
 }
 
+/// The narrowest bar column before names wrap.
+const BAR_MIN: f32 = 80.0;
+
 /// One row per source: its name, a bar of its contribution, the contribution in the measured
 /// unit and its share of the variance.
+
 fn contribution_bars_ui(
     ui: &mut egui::Ui,
     doc: &DocumentState,
@@ -104,29 +108,40 @@ fn contribution_bars_ui(
     let q = Quantity::of(be.wanted);
     let largest = rows.first().map_or(0.0, |r| r.contribution);
     let contribution_header = format!("Contribution ({})", units.label(q));
-    let share_header = "Share of variance (%)";
+    let share_header = "Share (%)";
+    // A contribution below the display resolution reads "< 0.001", never as a run of zeros.
     let values: Vec<String> = rows
         .iter()
-        .map(|r| units.format_difference(q, r.contribution))
+        .map(|r| {
+            format!(
+                "{} {}",
+                units.format_table_number(q, r.contribution),
+                units.label(q)
+            )
+        })
         .collect();
     let shares: Vec<String> = rows
         .iter()
         .map(|r| share_text(r.variance_percent))
         .collect();
-    let width = bar_width(
+    let value_width = widest(
         ui,
-        &[
-            widest(ui, rows.iter().map(|r| r.name.as_str()).chain(["Source"])),
-            widest(
-                ui,
-                values
-                    .iter()
-                    .map(String::as_str)
-                    .chain([contribution_header.as_str()]),
-            ),
-            widest(ui, shares.iter().map(String::as_str).chain([share_header])),
-        ],
+        values
+            .iter()
+            .map(String::as_str)
+            .chain([contribution_header.as_str()]),
     );
+    let share_width = widest(ui, shares.iter().map(String::as_str).chain([share_header]));
+    // Names wrap only where the view leaves the bar less than its narrowest.
+    let spare = ui.available_width()
+        - value_width
+        - share_width
+        - BAR_MIN
+        - 4.0 * ui.spacing().item_spacing.x
+        - 16.0;
+    let name_width = widest(ui, rows.iter().map(|r| r.name.as_str()).chain(["Source"]))
+        .min(spare.max(0.4 * ui.available_width()));
+    let width = bar_width(ui, &[name_width, value_width, share_width]);
     egui::Grid::new("budget bars")
         .striped(true)
         .num_columns(4)
@@ -137,7 +152,10 @@ fn contribution_bars_ui(
             ui.strong(share_header);
             ui.end_row();
             for ((r, value), share) in rows.iter().zip(values).zip(shares) {
-                ui.label(&r.name);
+                ui.scope(|ui| {
+                    ui.set_max_width(name_width);
+                    ui.add(egui::Label::new(&r.name).wrap());
+                });
                 let fraction = if largest > 0.0 {
                     r.contribution / largest
                 } else {
