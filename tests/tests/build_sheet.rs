@@ -8,7 +8,8 @@ use std::process::Command;
 use gw_plan::channel_list::channel_list_csv;
 use gw_plan::demo::demo_project;
 use gw_plan::evaluate::{EvalOptions, Evaluation, evaluate};
-use gw_plan::sheet::build_sheet_pdf;
+use gw_plan::sheet::{build_sheet_pdf, build_sheet_pdf_in};
+use gw_plan::units::Units;
 use gw_verify::require_tool;
 
 fn dir() -> PathBuf {
@@ -212,4 +213,35 @@ fn names_in_latin_greek_and_cyrillic_print_and_others_are_refused_with_the_chara
     let err = build_sheet_pdf(&project, &ev).unwrap_err();
     assert!(err.contains('支') && err.contains('架'), "{err}");
     assert!(err.contains("Latin, Greek and Cyrillic"), "{err}");
+}
+
+#[test]
+fn the_us_customary_sheet_prints_inches_and_pounds_force_in_the_pdf() {
+    if !require_tool("pdftotext", "-v", "poppler-utils") {
+        return;
+    }
+    let project = demo_project();
+    let ev = evaluate(&project, &EvalOptions::default());
+    let path = dir().join("us.pdf");
+    std::fs::write(
+        &path,
+        build_sheet_pdf_in(&project, &ev, Units::UsCustomary).unwrap(),
+    )
+    .unwrap();
+    let text = pdftotext(&path, false);
+    assert!(text.contains("Units: US customary"), "{text}");
+    // The arm is 450 mm long: 450 / 25.4 = 17.717 in (NIST SP 811, Appendix B: 1 in =
+    // 25.4 mm exactly).
+    assert!(text.contains(&format!("length {:.3} in", 450.0 / 25.4)));
+    // Every bridge reads the same mV/V and µε as in SI: the units change only loads and
+    // lengths.
+    for b in ev.parts.iter().flat_map(|p| &p.bridges) {
+        for c in &b.cases {
+            let mv = format!("{:.4} mV/V", c.reading.mv_per_v);
+            assert!(text.contains(&mv), "{}: no {mv}", b.name);
+        }
+    }
+    for si in [" MPa", " mm ", "°C", " kN"] {
+        assert!(!text.contains(si), "\"{si}\" on the US sheet");
+    }
 }

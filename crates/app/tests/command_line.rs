@@ -295,3 +295,131 @@ fn the_app_opens_a_file_given_on_the_command_line() {
         "only {changed} pixels differ from the app without a file"
     );
 }
+
+#[test]
+fn eval_and_check_speak_us_customary_units_when_asked() {
+    let dir = scratch("units-us");
+    let demo = write_demo(&dir);
+    for subcommand in ["eval", "check"] {
+        let o = gaugewright()
+            .arg(subcommand)
+            .arg(&demo)
+            .args(["--units", "us"])
+            .output()
+            .unwrap();
+        assert_eq!(o.status.code(), Some(0), "{}", describe(&o));
+        let out = text(&o.stdout);
+        // The peak stress of every case in ksi, where it is in inches.
+        for unit in [" ksi ", " in, s = "] {
+            assert!(out.contains(unit), "{subcommand}: no \"{unit}\":\n{out}");
+        }
+        for unit in ["MPa", " mm", " N·m", "kN", "°C"] {
+            assert!(!out.contains(unit), "{subcommand}: \"{unit}\" in:\n{out}");
+        }
+    }
+    let o = gaugewright()
+        .arg("eval")
+        .arg(&demo)
+        .args(["--units", "us"])
+        .output()
+        .unwrap();
+    let out = text(&o.stdout);
+    // Loads per mV/V and the uncertainty of each wanted load: a force in lbf, a torque in
+    // lbf·in, a pressure in psi.
+    for unit in [" lbf", " lbf·in", " psi"] {
+        assert!(out.contains(unit), "no \"{unit}\":\n{out}");
+    }
+    // The same summary in SI by default.
+    let si = gaugewright().arg("eval").arg(&demo).output().unwrap();
+    let si = text(&si.stdout);
+    assert!(
+        si.contains(" MPa ") && si.contains(" mm") && !si.contains("lbf"),
+        "{si}"
+    );
+}
+
+#[test]
+fn a_unit_system_that_does_not_exist_is_refused_naming_the_choices() {
+    let dir = scratch("units-bad");
+    let demo = write_demo(&dir);
+    let pdf = dir.join("x.pdf");
+    for subcommand in ["check", "eval", "sheet"] {
+        let mut c = gaugewright();
+        c.arg(subcommand).arg(&demo);
+        if subcommand == "sheet" {
+            c.arg("-o").arg(&pdf);
+        }
+        let o = c.args(["--units", "imperial"]).output().unwrap();
+        assert_eq!(o.status.code(), Some(2), "{}", describe(&o));
+        let err = text(&o.stderr);
+        assert!(
+            err.contains("imperial") && err.contains("si") && err.contains("us"),
+            "{subcommand}: {err}"
+        );
+        assert!(!pdf.exists());
+    }
+    // Before the subcommand, --units is the desktop app's: the way to write it is named.
+    let o = gaugewright()
+        .args(["--units", "us", "eval"])
+        .arg(&demo)
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(2), "{}", describe(&o));
+    assert!(
+        text(&o.stderr).contains("goes after the subcommand"),
+        "{}",
+        describe(&o)
+    );
+}
+
+#[test]
+fn sheet_writes_a_us_customary_sheet_and_channel_list() {
+    let dir = scratch("units-sheet");
+    let demo = write_demo(&dir);
+    let (pdf, csv) = (dir.join("us.pdf"), dir.join("us.csv"));
+    let o = gaugewright()
+        .arg("sheet")
+        .arg(&demo)
+        .arg("-o")
+        .arg(&pdf)
+        .arg("--csv")
+        .arg(&csv)
+        .args(["--units", "us"])
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(0), "{}", describe(&o));
+    let bytes = std::fs::read(&pdf).unwrap();
+    assert!(bytes.starts_with(b"%PDF"), "not a PDF");
+    let list = std::fs::read_to_string(&csv).unwrap();
+    assert!(list.contains(",lbf,") && !list.contains(",N,"), "{list}");
+}
+
+#[test]
+fn eval_in_us_units_gives_temperatures_in_fahrenheit_with_the_offset() {
+    // A load case that runs past the range the gauges' thermal-output curve was measured over:
+    // the warning names both ranges. −40 °C is −40 °F, 100 °C is 212 °F and 150 °C is 302 °F
+    // (°F = 1.8 °C + 32, NIST SP 811 Appendix B).
+    let dir = scratch("units-fahrenheit");
+    let mut p = gw_plan::demo::demo_project();
+    for s in &mut p.gauge_stock {
+        s.spec.thermal_output.valid_range_c = Some((-40.0, 100.0));
+    }
+    p.parts[0].load_cases[0].temperature_range_c = (-40.0, 150.0);
+    let path = dir.join("hot.ron");
+    gw_plan::io::save_project(&p, &path).unwrap();
+    let o = gaugewright()
+        .arg("eval")
+        .arg(&path)
+        .args(["--units", "us"])
+        .output()
+        .unwrap();
+    let out = text(&o.stdout);
+    let warning = out
+        .lines()
+        .find(|l| l.contains("thermal-output curve"))
+        .unwrap_or_else(|| panic!("no warning:\n{out}"));
+    for t in ["-40 °F", "212 °F", "302 °F"] {
+        assert!(warning.contains(t), "{t} missing: {warning}");
+    }
+    assert!(!warning.contains("°C"), "{warning}");
+}

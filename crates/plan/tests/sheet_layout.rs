@@ -1,25 +1,31 @@
 //! Every page of the build sheet is laid out cleanly: no two texts overlap, no drawn line runs
 //! through a text, no filled shape hides one, nothing crosses a margin. Checked on the sheet's
 //! own record of what it draws, for the demo, for the gallery of every model kind (whole and
-//! one part at a time), on both paper sizes, with long names and with failing margins.
+//! one part at a time), on both paper sizes, with long names and with failing margins, in SI
+//! and in US customary units.
 //! (The same pages are checked again from the PDF itself with poppler in
 //! `tests/tests/sheet_pages.rs`.)
 
 use gw_plan::demo::demo_project;
 use gw_plan::document::PaperSize;
 use gw_plan::gallery::model_gallery;
-use gw_plan::sheet::{build_sheet_layout_problems, build_sheet_text};
+use gw_plan::sheet::{build_sheet_layout_problems_in, build_sheet_text};
+use gw_plan::units::Units;
 use gw_plan::{EvalOptions, Project, evaluate};
 
+/// Clean in both unit systems: US customary numbers run longer ("17.717 in" against
+/// "450.00 mm", "744615 lbf" against "3312214 N"), and must fit their columns too.
 fn assert_clean(what: &str, project: &Project) {
     let ev = evaluate(project, &EvalOptions::default());
-    let problems = build_sheet_layout_problems(project, &ev);
-    assert!(
-        problems.is_empty(),
-        "{what}: {} layout problems:\n{}",
-        problems.len(),
-        problems.join("\n")
-    );
+    for units in [Units::Si, Units::UsCustomary] {
+        let problems = build_sheet_layout_problems_in(project, &ev, units);
+        assert!(
+            problems.is_empty(),
+            "{what} ({units:?}): {} layout problems:\n{}",
+            problems.len(),
+            problems.join("\n")
+        );
+    }
 }
 
 #[test]
