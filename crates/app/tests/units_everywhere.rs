@@ -311,3 +311,61 @@ fn temperature_coefficients_bridge_factor_and_calibration_read_cleanly_in_us_uni
     assert!((shown - lbf).abs() <= 0.5, "{used}");
     assert!(used.contains(" lbf per mV/V (first test)"), "{used}");
 }
+
+#[test]
+fn every_item_of_the_demo_reads_in_us_units_without_noise_digits() {
+    let mut h = demo_in_us();
+    let project = h.state().doc.project.clone();
+    let stock_names: Vec<String> = project.gauge_stock.iter().map(|s| s.name.clone()).collect();
+    let mut rows = stock_names.clone();
+    for part in &project.parts {
+        rows.push(format!("{} — {}", part.name, part.member.kind_name()));
+        rows.extend(part.load_cases.iter().map(|c| c.name.clone()));
+        rows.extend(part.bridges.iter().map(|b| format!("Bridge {}", b.name)));
+        rows.extend(part.gauges.iter().filter_map(|g| {
+            let pattern = project.stock_entry(&g.stock)?.spec.pattern.name();
+            Some(format!("Gauge {} ({pattern})", g.id))
+        }));
+    }
+    let mut visited = 0;
+    for row in &rows {
+        // A row whose name repeats (a load case of the same name on two parts) is skipped.
+        if tree_rows(&h, row) != 1 {
+            continue;
+        }
+        select(&mut h, row);
+        visited += 1;
+        // Gauge types are named by the engineer ("single grid, 3 mm, 350 Ω"): names, not
+        // measurements, also where a long name wraps onto a second line.
+        let texts: Vec<String> = inspector_texts(&h)
+            .into_iter()
+            .filter(|t| {
+                !stock_names
+                    .iter()
+                    .any(|n| t.contains(n.as_str()) || n.contains(t.as_str()))
+            })
+            .collect();
+        let left = si_leftovers(&texts);
+        assert!(left.is_empty(), "{row}: SI units left: {left:?}");
+        // No field shows more than five decimals, nor a negative zero.
+        for t in &texts {
+            let number = t.split(' ').next().unwrap_or_default();
+            if let Ok(v) = number.parse::<f64>() {
+                assert!(places(number) <= 5, "{row}: \"{t}\" has noise digits");
+                assert!(!(v == 0.0 && number.starts_with('-')), "{row}: \"{t}\"");
+            }
+        }
+    }
+    assert!(
+        visited * 4 >= rows.len() * 3,
+        "only {visited} of {} items could be selected",
+        rows.len()
+    );
+}
+
+/// How many plan-tree rows read `row`.
+fn tree_rows(h: &App, row: &str) -> usize {
+    h.get_by_role_and_label(Role::GenericContainer, "Plan tree")
+        .query_all_by_role_and_label(Role::Button, row)
+        .count()
+}
