@@ -362,10 +362,11 @@ impl GaugewrightApp {
             return;
         }
         let ev = gw_plan::evaluate(&self.doc.project, &gw_plan::EvalOptions::default());
-        let result = gw_plan::sheet::build_sheet_pdf(&self.doc.project, &ev)
+        let units = self.doc.units;
+        let result = gw_plan::sheet::build_sheet_pdf_in(&self.doc.project, &ev, units)
             .and_then(|bytes| write_file(pdf, &bytes, Backup::Replace).map_err(|e| e.to_string()))
             .and_then(|()| {
-                let text = gw_plan::channel_list::channel_list_csv(&ev);
+                let text = gw_plan::channel_list::channel_list_csv_in(&ev, units);
                 write_file(&csv, text.as_bytes(), Backup::Replace).map_err(|e| e.to_string())
             });
         self.doc.notice = Some(match result {

@@ -10,7 +10,7 @@
 //! - A table cell reads "0" for exact zero, "< 0.001" below what the table shows, "—" where
 //!   there is no figure.
 
-use gw_bridge::margins::{MarginKind, MarginStatus};
+use gw_bridge::margins::{Margin, MarginKind, MarginStatus};
 use gw_bridge::multi_axis::MultiAxis;
 use gw_bridge::uncertainty::GumBudget;
 use gw_mechanics::LoadComponent;
@@ -31,9 +31,49 @@ pub struct MarginRow {
     pub percent: f64,
     /// Pass, warn or fail.
     pub status: MarginStatus,
+    /// What is compared, with the value and the limit in SI.
+    pub margin: Margin,
 }
 
 impl MarginRow {
+    fn of(m: &Margin) -> MarginRow {
+        MarginRow {
+            name: m.kind.name().to_owned(),
+            percent: m.utilisation * 100.0,
+            status: m.status,
+            margin: m.clone(),
+        }
+    }
+
+    /// The value against its limit in the display units: "644.1 of 3000.0 µε",
+    /// "118.4 of 350.0 MPa"; the predicted error in the wanted load's unit.
+    pub fn figures_text(&self, units: Units, wanted: LoadComponent) -> String {
+        let m = &self.margin;
+        let q = match m.kind {
+            MarginKind::GridStrainLimit | MarginKind::GridFatigue | MarginKind::Resolution => {
+                Some(Quantity::Strain)
+            }
+            MarginKind::StressAtGauge | MarginKind::PeakStressInPart => Some(Quantity::Stress),
+            MarginKind::SelfHeating => Some(Quantity::PowerDensity),
+            MarginKind::Accuracy => Some(Quantity::of(wanted)),
+            MarginKind::InputRange => None,
+        };
+        // Magnitudes and a limit: scale only, no offset.
+        let number = |v: f64| match q {
+            Some(q) => {
+                let shown = units.scale_to_display(q, v);
+                number_text(shown, units.decimals(q, shown))
+            }
+            None => number_text(v, 3),
+        };
+        let unit = q.map_or("V", |q| units.label(q));
+        if m.limit > 0.0 && m.limit.is_finite() {
+            format!("{} of {} {unit}", number(m.value.abs()), number(m.limit))
+        } else {
+            format!("{} {unit}, no limit", number(m.value.abs()))
+        }
+    }
+
     /// "87.3 %", or "—" without a usable limit.
     pub fn percent_text(&self) -> String {
         if self.percent.is_finite() {
@@ -49,24 +89,12 @@ impl MarginRow {
 /// `None` when the bridge has no load case.
 pub fn margin_rows(be: &BridgeEvaluation, case: usize) -> Option<(String, Vec<MarginRow>)> {
     let bc = be.cases.get(case).or(be.cases.first())?;
-    let mut rows: Vec<MarginRow> = bc
-        .margins
-        .iter()
-        .map(|m| MarginRow {
-            name: m.kind.name().to_owned(),
-            percent: m.utilisation * 100.0,
-            status: m.status,
-        })
-        .collect();
+    let mut rows: Vec<MarginRow> = bc.margins.iter().map(MarginRow::of).collect();
     // The accuracy is one of the case's margins when the evaluation judged it there; else it
     // joins them from the bridge's accuracy checks.
     let judged = bc.margins.iter().any(|m| m.kind == MarginKind::Accuracy);
     if let Some(a) = accuracy_at(be, &bc.case).filter(|_| !judged) {
-        rows.push(MarginRow {
-            name: MarginKind::Accuracy.name().to_owned(),
-            percent: a.margin.utilisation * 100.0,
-            status: a.margin.status,
-        });
+        rows.push(MarginRow::of(&a.margin));
     }
     // No usable limit (infinite) sorts first: it cannot be shown to pass.
     rows.sort_by(|a, b| closeness(b).total_cmp(&closeness(a)));
@@ -109,12 +137,7 @@ pub fn accuracy_sentence(a: &AccuracyCheck, units: Units, q: Quantity) -> String
         a.case,
         units.format_difference(q, a.predicted()),
         units.format_difference(q, a.allowed),
-        MarginRow {
-            name: String::new(),
-            percent: a.margin.utilisation * 100.0,
-            status: a.margin.status,
-        }
-        .percent_text(),
+        MarginRow::of(&a.margin).percent_text(),
         a.margin.status.word()
     )
 }
@@ -619,6 +642,34 @@ mod tests {
             assert!(rows.windows(2).all(|w| w[0].percent >= w[1].percent));
             assert!(closest_sentence(&rows).starts_with("Closest to its limit: "));
         }
+    }
+
+    #[test]
+    fn a_margin_shows_its_value_against_its_limit_in_the_display_units() {
+        let row = |kind, value, limit| MarginRow::of(&Margin::new(kind, value, limit, 0.8));
+        let force = LoadComponent::VerticalForce;
+        let strain = row(MarginKind::GridStrainLimit, -644.1e-6, 3000e-6);
+        assert_eq!(strain.figures_text(Units::Si, force), "644.1 of 3000.0 µε");
+        // 134 MPa = 19.435 ksi and 350 MPa = 50.763 ksi (1 psi = 6894.757 Pa, NIST SP 811
+        // Appendix B).
+        let stress = row(MarginKind::StressAtGauge, 134e6, 350e6);
+        assert_eq!(
+            stress.figures_text(Units::UsCustomary, force),
+            "19.44 of 50.76 ksi"
+        );
+        // 120 N = 26.98 lbf (1 lbf = 4.448 221 615 260 5 N).
+        let accuracy = row(MarginKind::Accuracy, 59.11, 120.0);
+        assert_eq!(
+            accuracy.figures_text(Units::UsCustomary, force),
+            "13.29 of 26.98 lbf"
+        );
+        let range = row(MarginKind::InputRange, 1.5832, 10.0);
+        assert_eq!(range.figures_text(Units::Si, force), "1.583 of 10.000 V");
+        let unlimited = row(MarginKind::SelfHeating, 2.0e3, 0.0);
+        assert_eq!(
+            unlimited.figures_text(Units::Si, force),
+            "2.00 kW/m², no limit"
+        );
     }
 
     #[test]

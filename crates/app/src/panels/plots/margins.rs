@@ -30,6 +30,33 @@ pub(super) fn widest<'a>(ui: &egui::Ui, texts: impl IntoIterator<Item = &'a str>
         .fold(0.0, f32::max)
 }
 
+/// The narrowest bar column before names wrap.
+const BAR_MIN: f32 = 80.0;
+
+/// Width of the name column: the widest name, or less where the view is narrow, so that the
+/// bar keeps [`BAR_MIN`] beside the other columns (`others`, their widths); never under two
+/// fifths of the view.
+pub(super) fn name_column_width<'a>(
+    ui: &egui::Ui,
+    names: impl IntoIterator<Item = &'a str>,
+    others: &[f32],
+) -> f32 {
+    let spare = ui.available_width()
+        - others.iter().sum::<f32>()
+        - BAR_MIN
+        - ui.spacing().item_spacing.x * (others.len() as f32 + 2.0)
+        - 16.0;
+    widest(ui, names).min(spare.max(0.4 * ui.available_width()))
+}
+
+/// A name in a column `width` wide, wrapped onto a second line when longer.
+pub(super) fn wrapped_name_ui(ui: &mut egui::Ui, width: f32, name: &str) {
+    ui.scope(|ui| {
+        ui.set_max_width(width);
+        ui.add(egui::Label::new(name).wrap());
+    });
+}
+
 /// Width of the bar column: what is left of the panel after the other columns (`others`, their
 /// widths) and the spacing between `others.len() + 1` columns.
 pub(super) fn bar_width(ui: &egui::Ui, others: &[f32]) -> f32 {
@@ -98,14 +125,20 @@ pub(super) fn margins_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEval
     };
     ui.label(format!("Load case: {case}"));
     ui.strong(closest_sentence(&rows));
-    let response = margin_bars_ui(ui, &rows);
-    export_menu(&response, "Margins", || margins_table(&case, &rows));
+    let figures: Vec<String> = rows
+        .iter()
+        .map(|r| r.figures_text(doc.units, be.wanted))
+        .collect();
+    let response = margin_bars_ui(ui, &rows, &figures);
+    export_menu(&response, "Margins", || {
+        margins_table(&case, &rows, &figures)
+    });
     accuracy_ui(ui, doc, be, &case);
 }
 
 /// One row per limit: its name, a bar of its utilisation against the 100 % line, the number
-/// and the verdict.
-fn margin_bars_ui(ui: &mut egui::Ui, rows: &[MarginRow]) -> Response {
+/// and the verdict, and the value against the limit in the display units.
+fn margin_bars_ui(ui: &mut egui::Ui, rows: &[MarginRow], figures: &[String]) -> Response {
     let scale = rows
         .iter()
         .map(|r| r.percent)
@@ -113,26 +146,39 @@ fn margin_bars_ui(ui: &mut egui::Ui, rows: &[MarginRow]) -> Response {
         .fold(120.0_f64, f64::max)
         .min(BAR_CAP_PERCENT);
     let values: Vec<String> = rows.iter().map(value_text).collect();
-    let width = bar_width(
+    let name_width = name_column_width(
         ui,
+        rows.iter().map(|r| r.name.as_str()).chain(["Limit"]),
         &[
-            widest(ui, rows.iter().map(|r| r.name.as_str()).chain(["Limit"])),
             widest(
                 ui,
                 values.iter().map(String::as_str).chain(["Utilisation (%)"]),
             ),
+            widest(ui, figures.iter().map(String::as_str).chain([FIGURES])),
+        ],
+    );
+    let width = bar_width(
+        ui,
+        &[
+            name_width,
+            widest(
+                ui,
+                values.iter().map(String::as_str).chain(["Utilisation (%)"]),
+            ),
+            widest(ui, figures.iter().map(String::as_str).chain([FIGURES])),
         ],
     );
     egui::Grid::new("margin bars")
         .striped(true)
-        .num_columns(3)
+        .num_columns(4)
         .show(ui, |ui| {
             ui.strong("Limit");
             axis_header_ui(ui, width, 100.0 / scale);
             ui.strong("Utilisation (%)");
+            ui.strong(FIGURES);
             ui.end_row();
-            for (r, value) in rows.iter().zip(values) {
-                ui.label(&r.name);
+            for ((r, value), figure) in rows.iter().zip(values).zip(figures) {
+                wrapped_name_ui(ui, name_width, &r.name);
                 let fraction = if r.percent.is_finite() {
                     r.percent / scale
                 } else {
@@ -146,6 +192,7 @@ fn margin_bars_ui(ui: &mut egui::Ui, rows: &[MarginRow]) -> Response {
                     Some(100.0 / scale),
                 );
                 ui.colored_label(status_colour(r.status), value);
+                ui.label(figure);
                 ui.end_row();
             }
         })
@@ -157,17 +204,22 @@ fn value_text(r: &MarginRow) -> String {
     format!("{} ({})", r.percent_text(), r.status.word())
 }
 
-fn margins_table(case: &str, rows: &[MarginRow]) -> PlotTable {
+/// The heading of the value-against-limit column.
+const FIGURES: &str = "Value of limit";
+
+fn margins_table(case: &str, rows: &[MarginRow], figures: &[String]) -> PlotTable {
     PlotTable {
         columns: vec![
             "Load case".into(),
             "Limit".into(),
             "Utilisation (%)".into(),
             "Status".into(),
+            FIGURES.into(),
         ],
         rows: rows
             .iter()
-            .map(|r| {
+            .zip(figures)
+            .map(|(r, figure)| {
                 vec![
                     case.to_owned(),
                     r.name.clone(),
@@ -177,6 +229,7 @@ fn margins_table(case: &str, rows: &[MarginRow]) -> PlotTable {
                         "—".into()
                     },
                     r.status.word().to_owned(),
+                    figure.clone(),
                 ]
             })
             .collect(),

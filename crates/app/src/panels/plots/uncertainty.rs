@@ -8,7 +8,7 @@ use gw_plan::result_tables::{ContributionRow, contribution_rows, dominant_senten
 
 use super::MonteCarloRun;
 use super::export::{PlotTable, export_menu};
-use super::margins::{bar_cell_ui, bar_width, widest};
+use super::margins::{bar_cell_ui, bar_width, name_column_width, widest, wrapped_name_ui};
 use crate::panels::palette;
 use crate::state::DocumentState;
 use crate::units::Quantity;
@@ -92,9 +92,6 @@ fn uncertainty_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation)
     );
 }
 
-/// The narrowest bar column before names wrap.
-const BAR_MIN: f32 = 80.0;
-
 /// One row per source: its name, a bar of its contribution, the contribution in the measured
 /// unit and its share of the variance.
 
@@ -132,15 +129,11 @@ fn contribution_bars_ui(
             .chain([contribution_header.as_str()]),
     );
     let share_width = widest(ui, shares.iter().map(String::as_str).chain([share_header]));
-    // Names wrap only where the view leaves the bar less than its narrowest.
-    let spare = ui.available_width()
-        - value_width
-        - share_width
-        - BAR_MIN
-        - 4.0 * ui.spacing().item_spacing.x
-        - 16.0;
-    let name_width = widest(ui, rows.iter().map(|r| r.name.as_str()).chain(["Source"]))
-        .min(spare.max(0.4 * ui.available_width()));
+    let name_width = name_column_width(
+        ui,
+        rows.iter().map(|r| r.name.as_str()).chain(["Source"]),
+        &[value_width, share_width],
+    );
     let width = bar_width(ui, &[name_width, value_width, share_width]);
     egui::Grid::new("budget bars")
         .striped(true)
@@ -152,10 +145,7 @@ fn contribution_bars_ui(
             ui.strong(share_header);
             ui.end_row();
             for ((r, value), share) in rows.iter().zip(values).zip(shares) {
-                ui.scope(|ui| {
-                    ui.set_max_width(name_width);
-                    ui.add(egui::Label::new(&r.name).wrap());
-                });
+                wrapped_name_ui(ui, name_width, &r.name);
                 let fraction = if largest > 0.0 {
                     r.contribution / largest
                 } else {
