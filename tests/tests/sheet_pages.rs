@@ -18,7 +18,8 @@ use gw_plan::Project;
 use gw_plan::demo::demo_project;
 use gw_plan::evaluate::{EvalOptions, evaluate};
 use gw_plan::gallery::model_gallery;
-use gw_plan::sheet::{build_sheet_graphics_only_pdf, build_sheet_pdf};
+use gw_plan::sheet::{build_sheet_graphics_only_pdf_in, build_sheet_pdf_in};
+use gw_plan::units::Units;
 use gw_verify::require_tool;
 use page_checks::{
     Grey, Ink, Page, StrayInk, ink_under, margin_problems, overlap_problems, parse_bbox_xhtml,
@@ -63,12 +64,23 @@ struct Checked {
     stray: Vec<StrayInk>,
 }
 
-/// The projects whose sheets are checked, each with a name for messages.
-fn projects() -> Vec<(String, Project)> {
+/// The projects whose sheets are checked, each with a name for messages and its units (the
+/// longer US customary numbers must fit as well).
+fn projects() -> Vec<(String, Project, Units)> {
     let gallery = model_gallery();
     let mut out = vec![
-        ("demo sheet".to_string(), demo_project()),
-        ("gallery sheet".to_string(), gallery.clone()),
+        ("demo sheet".to_string(), demo_project(), Units::Si),
+        ("gallery sheet".to_string(), gallery.clone(), Units::Si),
+        (
+            "demo sheet in US customary units".to_string(),
+            demo_project(),
+            Units::UsCustomary,
+        ),
+        (
+            "gallery sheet in US customary units".to_string(),
+            gallery.clone(),
+            Units::UsCustomary,
+        ),
     ];
     for part in &gallery.parts {
         let mut alone = gallery.clone();
@@ -76,6 +88,7 @@ fn projects() -> Vec<(String, Project)> {
         out.push((
             format!("sheet of gallery part {:?} alone", part.name),
             alone,
+            Units::Si,
         ));
     }
     out
@@ -98,7 +111,7 @@ fn checked_sheets() -> &'static [Checked] {
             let handles: Vec<_> = projects
                 .iter()
                 .enumerate()
-                .map(|(i, (name, p))| s.spawn(move || check_sheet(i, name, p)))
+                .map(|(i, (name, p, units))| s.spawn(move || check_sheet(i, name, p, *units)))
                 .collect();
             handles
                 .into_iter()
@@ -115,7 +128,7 @@ fn work_dir(index: usize) -> PathBuf {
     d
 }
 
-fn check_sheet(index: usize, name: &str, project: &Project) -> Checked {
+fn check_sheet(index: usize, name: &str, project: &Project, units: Units) -> Checked {
     let ev = evaluate(project, &EvalOptions::default());
     let dir = work_dir(index);
     let write = |file: &str, bytes: Result<Vec<u8>, String>| {
@@ -124,8 +137,11 @@ fn check_sheet(index: usize, name: &str, project: &Project) -> Checked {
         std::fs::write(&path, bytes).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
         path
     };
-    let full = write("full.pdf", build_sheet_pdf(project, &ev));
-    let graphics = write("graphics.pdf", build_sheet_graphics_only_pdf(project, &ev));
+    let full = write("full.pdf", build_sheet_pdf_in(project, &ev, units));
+    let graphics = write(
+        "graphics.pdf",
+        build_sheet_graphics_only_pdf_in(project, &ev, units),
+    );
     let checked = word_boxes(&full)
         .and_then(|pages| measure_renders(name, pages, &full, &graphics))
         .unwrap_or_else(|e| panic!("{name}: {e}"));
