@@ -62,7 +62,7 @@ impl MarginRow {
         let number = |v: f64| match q {
             Some(q) => {
                 let shown = units.scale_to_display(q, v);
-                number_text(shown, units.decimals(q, shown))
+                number_text(shown, units.decimals(q, shown).max(two_figures(shown)))
             }
             None => number_text(v, 3),
         };
@@ -81,6 +81,16 @@ impl MarginRow {
         } else {
             "—".to_owned()
         }
+    }
+}
+
+/// Decimals that keep two significant figures of a value below 1 (a resolution of 0.042 µε
+/// must not read "0.0").
+fn two_figures(shown: f64) -> usize {
+    if shown == 0.0 || !shown.is_finite() || shown.abs() >= 1.0 {
+        0
+    } else {
+        (1 - shown.abs().log10().floor() as i32).clamp(0, 9) as usize
     }
 }
 
@@ -663,6 +673,9 @@ mod tests {
             accuracy.figures_text(Units::UsCustomary, force),
             "13.29 of 26.98 lbf"
         );
+        // A resolution finer than the strain display step keeps two significant figures.
+        let fine = row(MarginKind::Resolution, 0.0421e-6, 1e-6);
+        assert_eq!(fine.figures_text(Units::Si, force), "0.042 of 1.0 µε");
         let range = row(MarginKind::InputRange, 1.5832, 10.0);
         assert_eq!(range.figures_text(Units::Si, force), "1.583 of 10.000 V");
         let unlimited = row(MarginKind::SelfHeating, 2.0e3, 0.0);

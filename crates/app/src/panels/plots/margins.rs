@@ -100,19 +100,38 @@ fn axis_header_ui(ui: &mut egui::Ui, width: f32, limit_at: f64) {
     let painter = ui.painter_at(rect);
     let font = egui::TextStyle::Body.resolve(ui.style());
     let colour = ui.visuals().weak_text_color();
-    painter.text(
-        rect.left_center(),
-        egui::Align2::LEFT_CENTER,
-        "0 %",
-        font.clone(),
-        colour,
-    );
     let x = rect.left() + width * limit_at as f32;
     painter.vline(x, rect.y_range(), Stroke::new(2.0, palette::FAIL));
+    let text_width = |t: &str| {
+        painter
+            .layout_no_wrap(t.to_owned(), font.clone(), colour)
+            .size()
+            .x
+    };
+    // Left of the line there is room for "0 %" and "limit 100 %", or for the limit alone in
+    // a narrow column, or for "100 %"; the labels never overlap.
+    let room = x - 3.0 - rect.left();
+    let zero = text_width("0 %") + 8.0;
+    let (show_zero, limit) = if room >= zero + text_width("limit 100 %") {
+        (true, "limit 100 %")
+    } else if room >= text_width("limit 100 %") {
+        (false, "limit 100 %")
+    } else {
+        (false, "100 %")
+    };
+    if show_zero {
+        painter.text(
+            rect.left_center(),
+            egui::Align2::LEFT_CENTER,
+            "0 %",
+            font.clone(),
+            colour,
+        );
+    }
     painter.text(
         egui::pos2(x - 3.0, rect.center().y),
         egui::Align2::RIGHT_CENTER,
-        "limit 100 %",
+        limit,
         font,
         palette::FAIL,
     );
