@@ -113,7 +113,7 @@ fn key_ui(ui: &mut egui::Ui, text: egui::RichText, swatch: impl FnOnce(&mut egui
         egui::TextStyle::Body,
     );
     let needed = SWATCH_WIDTH + ui.spacing().item_spacing.x + words.size().x;
-    if ui.available_width() < needed {
+    if ui.available_size_before_wrap().x < needed {
         ui.end_row();
     }
     swatch(ui);
