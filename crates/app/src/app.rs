@@ -155,6 +155,9 @@ pub struct GaugewrightApp {
     plots: PlotsPanel,
     /// Where the view in the centre was drawn last frame (tests check that texts stay in it).
     pub view_rect: egui::Rect,
+    /// How far, in points, the centre view's content ran past the sides of its panel last
+    /// frame (0 when it fits; a table that scrolls sideways fits).
+    pub view_overflow: f32,
     findings: FindingsPanel,
     help: HelpPanel,
     settings: Settings,
@@ -222,6 +225,7 @@ impl GaugewrightApp {
             bridges: BridgesPanel::default(),
             plots: PlotsPanel::default(),
             view_rect: egui::Rect::NOTHING,
+            view_overflow: 0.0,
             findings: FindingsPanel,
             help: HelpPanel,
             settings: Settings::default(),
@@ -810,8 +814,18 @@ impl GaugewrightApp {
                 self.inspector.inspector_ui(ui, &self.doc, &mut out);
             });
         egui::CentralPanel::default().show(ui, |ui| {
-            self.view_rect = ui.max_rect();
+            let room = ui.max_rect();
+            self.view_rect = room;
             self.view_ui(ui, &mut out);
+            // The ui grows past its panel when its content does not fit; the panel stays.
+            let used = ui.min_rect();
+            self.view_overflow = [
+                used.right() - room.right(),
+                room.left() - used.left(),
+                used.bottom() - room.bottom(),
+            ]
+            .into_iter()
+            .fold(0.0, f32::max);
         });
         self.plot_export_frame(ui.ctx());
         self.modal_ui(ui);
@@ -854,7 +868,7 @@ impl GaugewrightApp {
         let now = ui.input(|i| i.time);
         self.autosave(now);
         if let Some(request) = &mut self.screenshot {
-            request.on_frame(ui.ctx());
+            request.on_frame(ui.ctx(), self.view_overflow);
         }
     }
 }

@@ -516,6 +516,15 @@ fn main() -> ExitCode {
         eprintln!("error: could not open the Gaugewright window: {e}");
         return ExitCode::from(1);
     }
+    if let Some(o) = &outcome {
+        let over = o.view_overflow();
+        if over > 2.0 {
+            eprintln!(
+                "layout: the view's content runs {over:.0} points past an edge of its panel; \
+                 the screenshot shows it cut off"
+            );
+        }
+    }
     match outcome.map(|o| o.take()) {
         Some(Some(Err(message))) => {
             eprintln!("error: {message}");

@@ -8,7 +8,7 @@ const SETTLE_FRAMES: u32 = 5;
 
 /// What became of the screenshot: `None` until it is taken, then saved or the reason it failed.
 #[derive(Clone, Default)]
-pub struct ScreenshotOutcome(Arc<Mutex<Option<Result<(), String>>>>);
+pub struct ScreenshotOutcome(Arc<Mutex<Option<Result<(), String>>>>, Arc<Mutex<f32>>);
 
 impl ScreenshotOutcome {
     /// Takes the outcome out.
@@ -16,9 +16,21 @@ impl ScreenshotOutcome {
         self.0.lock().ok().and_then(|mut o| o.take())
     }
 
+    /// How far, in points, the centre view's content ran past an edge of its panel in the
+    /// frame that was saved (0 when it fits).
+    pub fn view_overflow(&self) -> f32 {
+        self.1.lock().map_or(0.0, |o| *o)
+    }
+
     fn set(&self, value: Result<(), String>) {
         if let Ok(mut o) = self.0.lock() {
             *o = Some(value);
+        }
+    }
+
+    fn set_overflow(&self, points: f32) {
+        if let Ok(mut o) = self.1.lock() {
+            *o = points;
         }
     }
 }
@@ -47,13 +59,14 @@ impl ScreenshotRequest {
         self.outcome.clone()
     }
 
-    /// Call once per frame.
-    pub fn on_frame(&mut self, ctx: &egui::Context) {
+    /// Call once per frame, with how far the centre view's content ran past its panel.
+    pub fn on_frame(&mut self, ctx: &egui::Context, view_overflow: f32) {
         self.frames += 1;
         ctx.request_repaint();
         if self.requested || self.frames < SETTLE_FRAMES {
             return;
         }
+        self.outcome.set_overflow(view_overflow);
         self.requested = true;
         let path = self.path.clone();
         let outcome = self.outcome.clone();

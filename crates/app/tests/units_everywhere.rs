@@ -369,3 +369,19 @@ fn tree_rows(h: &App, row: &str) -> usize {
         .query_all_by_role_and_label(Role::Button, row)
         .count()
 }
+
+#[test]
+fn entering_a_field_and_leaving_it_unchanged_keeps_the_stored_value() {
+    let mut h = demo_in_us();
+    select(&mut h, "Bridge Arm bending");
+    let before = h.state().doc.project.clone();
+    // 0.13 Ω/m reads 0.0396 Ω/ft; taken back as typed it would store 0.1299 Ω/m.
+    for label in ["Lead resistance", "Lead length"] {
+        control(&h, Look::Inspector, Role::SpinButton, label).focus();
+        h.run();
+        h.key_press(egui::Key::Enter);
+        h.run();
+    }
+    assert_eq!(h.state().doc.project, before);
+    assert!(!h.state().doc.dirty);
+}

@@ -84,7 +84,11 @@ fn number_ui<T: Clone>(
         )
         .labelled_by(label)
         .on_hover_text(f.help);
-    (r.changed() && shown.is_finite()).then(|| edited(item, set, unit.store(units, shown)))
+    // Entering a field and leaving it as it reads is no edit: the stored value keeps its
+    // digits beyond those shown (0.13 Ω/m must not become 0.1299 Ω/m by a look in Ω/ft).
+    let as_shown = unit.number_text(units, unit.show(units, stored));
+    let same = unit.number_text(units, shown) == as_shown;
+    (r.changed() && shown.is_finite() && !same).then(|| edited(item, set, unit.store(units, shown)))
 }
 
 fn field_ui<T: Clone>(

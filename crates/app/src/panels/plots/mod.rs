@@ -104,13 +104,20 @@ impl PlotsPanel {
             be.name,
             be.wanted.name()
         ));
-        match view {
-            PlotView::Output => output_ui(ui, doc, be),
-            PlotView::Temperature => temperature_ui(ui, doc, be),
-            PlotView::Margins => margins_ui(ui, doc, be),
-            PlotView::Uncertainty => uncertainty_with_monte_carlo_ui(ui, doc, be, monte_carlo),
-            PlotView::Cancellation | PlotView::Measured => {}
+        if *view == PlotView::Uncertainty {
+            // It scrolls on its own, with Monte Carlo below the budget.
+            uncertainty_with_monte_carlo_ui(ui, doc, be, monte_carlo);
+            return;
         }
+        // Many load cases push the plots down: the tab scrolls rather than cut them off.
+        egui::ScrollArea::vertical()
+            .auto_shrink([false, false])
+            .show(ui, |ui| match view {
+                PlotView::Output => output_ui(ui, doc, be),
+                PlotView::Temperature => temperature_ui(ui, doc, be),
+                PlotView::Margins => margins_ui(ui, doc, be),
+                _ => {}
+            });
     }
 }
 
