@@ -50,6 +50,8 @@ pub enum Quantity {
     ExpansionCoefficient,
     /// Power per area (W/m²; shown kW/m² or W/in²).
     PowerDensity,
+    /// Resistance of a conductor per length (Ω/m; shown Ω/m or Ω/ft).
+    ResistancePerLength,
     /// Strain (m/m; shown µε in both systems).
     Strain,
     /// Plain number.
@@ -72,7 +74,7 @@ const PSI_PA: f64 = LBF_N / (IN_M * IN_M);
 
 impl Quantity {
     /// Every quantity (tests and tables).
-    pub const ALL: [Quantity; 14] = [
+    pub const ALL: [Quantity; 15] = [
         Quantity::Length,
         Quantity::CableLength,
         Quantity::Force,
@@ -85,6 +87,7 @@ impl Quantity {
         Quantity::Temperature,
         Quantity::ExpansionCoefficient,
         Quantity::PowerDensity,
+        Quantity::ResistancePerLength,
         Quantity::Strain,
         Quantity::Plain,
     ];
@@ -99,9 +102,7 @@ impl Quantity {
             LoadComponent::BendingMomentY
             | LoadComponent::BendingMomentZ
             | LoadComponent::Torque => Quantity::Moment,
-            LoadComponent::InternalPressure | LoadComponent::ExternalPressure => {
-                Quantity::Pressure
-            }
+            LoadComponent::InternalPressure | LoadComponent::ExternalPressure => Quantity::Pressure,
             LoadComponent::RemoteStressX
             | LoadComponent::RemoteStressY
             | LoadComponent::RemoteShearXY => Quantity::Stress,
@@ -139,7 +140,9 @@ impl Units {
             (_, Q::Force | Q::ForcePerLength | Q::Moment | Q::Pressure | Q::Stress) => {
                 Resolution::Significant(4)
             }
-            (_, Q::Modulus | Q::PowerDensity) => Resolution::Significant(3),
+            (_, Q::Modulus | Q::PowerDensity | Q::ResistancePerLength) => {
+                Resolution::Significant(3)
+            }
             (_, Q::Plain) => Resolution::Significant(4),
         }
     }
@@ -248,6 +251,7 @@ fn si_spec(q: Quantity) -> (f64, f64, &'static str) {
         Quantity::TemperatureChange | Quantity::Temperature => (1.0, 0.0, "°C"),
         Quantity::ExpansionCoefficient => (1e6, 0.0, "ppm/°C"),
         Quantity::PowerDensity => (1e-3, 0.0, "kW/m²"),
+        Quantity::ResistancePerLength => (1.0, 0.0, "Ω/m"),
         Quantity::Strain => (1e6, 0.0, "µε"),
         Quantity::Plain => (1.0, 0.0, ""),
     }
@@ -268,6 +272,7 @@ fn us_spec(q: Quantity) -> (f64, f64, &'static str) {
         // Per °C to per °F: a coefficient per degree shrinks as the degree does.
         Quantity::ExpansionCoefficient => (1e6 / 1.8, 0.0, "ppm/°F"),
         Quantity::PowerDensity => (IN_M * IN_M, 0.0, "W/in²"),
+        Quantity::ResistancePerLength => (FT_M, 0.0, "Ω/ft"),
         Quantity::Strain => (1e6, 0.0, "µε"),
         Quantity::Plain => (1.0, 0.0, ""),
     }

@@ -18,6 +18,8 @@ use std::fmt::Write;
 use gw_plan::document::{BridgePlan, Part, PlanArm, Project};
 use gw_plan::evaluate::{BridgeEvaluation, Evaluation};
 use gw_plan::installation::{BridgeRecord, GridRecord};
+use gw_plan::marked::{mark, render};
+use gw_plan::units::{Quantity, Units};
 use serde::Serialize;
 
 /// Insulation at or above which a grid or a wired bridge passes, Ω (1 GΩ at ≤ 50 V, common
@@ -74,6 +76,28 @@ pub struct ItemCheck {
     pub verdict: Verdict,
     /// Why it is off and what to do, in words (empty on a pass).
     pub cause: String,
+    /// `expected` and `cause` with their lengths marked for either unit system
+    /// ([`gw_plan::marked`]), where they hold any.
+    #[serde(skip)]
+    pub marked: Option<(String, String)>,
+}
+
+impl ItemCheck {
+    /// The expected value in a unit system.
+    pub fn expected_in(&self, units: Units) -> String {
+        match &self.marked {
+            Some((expected, _)) => render(expected, units),
+            None => self.expected.clone(),
+        }
+    }
+
+    /// The cause in a unit system.
+    pub fn cause_in(&self, units: Units) -> String {
+        match &self.marked {
+            Some((_, cause)) => render(cause, units),
+            None => self.cause.clone(),
+        }
+    }
 }
 
 /// Every check of one channel (a bridge with the grids in its arms).
@@ -265,6 +289,7 @@ fn unrecorded(quantity: &str, expected: String) -> ItemCheck {
         measured: "—".to_owned(),
         verdict: Verdict::NotRecorded,
         cause: String::new(),
+        marked: None,
     }
 }
 
@@ -322,6 +347,7 @@ pub fn grid_resistance(
         measured: format!("{measured:.1} Ω"),
         verdict,
         cause,
+        marked: None,
     }
 }
 
@@ -354,6 +380,7 @@ fn insulation(quantity: &str, measured: Option<f64>) -> ItemCheck {
         measured: format_ohm(ohm),
         verdict,
         cause,
+        marked: None,
     }
 }
 
@@ -372,12 +399,16 @@ fn format_ohm(ohm: f64) -> String {
 /// One lead conductor against the planned length × resistance per metre.
 fn lead_check(plan: &BridgePlan, record: Option<&BridgeRecord>) -> ItemCheck {
     let planned = plan.lead.length_m * plan.lead.ohm_per_m;
-    let expected = format!(
-        "{planned:.2} Ω ({:.1} m at {:.3} Ω/m)",
-        plan.lead.length_m, plan.lead.ohm_per_m
+    let expected_marked = format!(
+        "{planned:.2} Ω ({} at {})",
+        mark(Quantity::CableLength, plan.lead.length_m),
+        mark(Quantity::ResistancePerLength, plan.lead.ohm_per_m)
     );
+    let expected = render(&expected_marked, Units::Si);
     let Some(measured) = record.and_then(|r| r.lead_ohm) else {
-        return unrecorded("lead resistance (one conductor)", expected);
+        let mut item = unrecorded("lead resistance (one conductor)", expected);
+        item.marked = Some((expected_marked, String::new()));
+        return item;
     };
     let off = if planned > 0.0 {
         (measured - planned) / planned
@@ -395,9 +426,10 @@ fn lead_check(plan: &BridgePlan, record: Option<&BridgeRecord>) -> ItemCheck {
         (
             Verdict::Check,
             format!(
-                "Leads longer than planned (about {length:.1} m) or of thinner wire: the bridge \
-                 reads lower by the extra lead resistance, and more so on a two-wire bridge. \
-                 Correct the span with the shunt step, or update the lead in the plan."
+                "Leads longer than planned (about {}) or of thinner wire: the bridge reads \
+                 lower by the extra lead resistance, and more so on a two-wire bridge. Correct \
+                 the span with the shunt step, or update the lead in the plan.",
+                mark(Quantity::CableLength, length)
             ),
         )
     } else {
@@ -413,7 +445,8 @@ fn lead_check(plan: &BridgePlan, record: Option<&BridgeRecord>) -> ItemCheck {
         expected,
         measured: format!("{measured:.2} Ω"),
         verdict,
-        cause,
+        cause: render(&cause, Units::Si),
+        marked: Some((expected_marked, cause)),
     }
 }
 
@@ -456,6 +489,7 @@ fn zero_check(
         measured: format!("{zero:.3} mV/V"),
         verdict,
         cause,
+        marked: None,
     }
 }
 
@@ -544,6 +578,7 @@ fn drift_check(be: &BridgeEvaluation, record: Option<&BridgeRecord>) -> ItemChec
         measured: format!("{:.1} µε", drift * 1e6),
         verdict,
         cause,
+        marked: None,
     }
 }
 
@@ -565,6 +600,7 @@ fn shunt_check(
             measured: "—".to_owned(),
             verdict: Verdict::NotRecorded,
             cause: String::new(),
+            marked: None,
         };
     };
     let expected_strain = shunt.expected_reading_strain;
@@ -623,6 +659,7 @@ fn shunt_check(
         measured: format!("{:.1} µε", step * 1e6),
         verdict,
         cause,
+        marked: None,
     }
 }
 

@@ -6,6 +6,7 @@
 use gw_plan::demo::demo_project;
 use gw_plan::document::{PlanArm, Project};
 use gw_plan::evaluate::{EvalOptions, Evaluation, UncertaintyDepth, evaluate};
+use gw_plan::units::Units;
 use gw_reduce::checkout::{Checkout, ItemCheck, Verdict, check_out};
 
 fn quick(project: &Project) -> Evaluation {
@@ -217,6 +218,24 @@ fn longer_leads_than_planned_are_named_with_their_length() {
     assert!(i.cause.contains("Leads longer than planned"), "{}", i.cause);
     let metres = format!("about {:.1} m", 1.5 * plan_lead.length_m);
     assert!(i.cause.contains(&metres), "{} lacks {metres}", i.cause);
+    // In US customary units the same cause gives the length in feet (1 ft = 0.3048 m exactly,
+    // NIST SP 811, Appendix B), and the expected value the lead per foot.
+    let feet = format!("about {:.1} ft", 1.5 * plan_lead.length_m / 0.3048);
+    let us = i.cause_in(Units::UsCustomary);
+    assert!(us.contains(&feet), "{us} lacks {feet}");
+    let per_foot = plan_lead.ohm_per_m * 0.3048;
+    let expected = i.expected_in(Units::UsCustomary);
+    let shown: f64 = expected
+        .split(" at ")
+        .nth(1)
+        .and_then(|t| t.strip_suffix(" Ω/ft)"))
+        .and_then(|t| t.parse().ok())
+        .unwrap_or_else(|| panic!("no Ω/ft in {expected}"));
+    assert!(
+        (shown - per_foot).abs() < 0.0005 * per_foot.max(1.0),
+        "{expected}"
+    );
+    assert_eq!(i.expected_in(Units::Si), i.expected);
 }
 
 #[test]

@@ -73,7 +73,7 @@ pub fn checkout_ui(
                         ui.colored_label(verdict_colour(v), format!("Verdict: {}", v.word()));
                     }
                     records_ui(ui, doc, b, rejected, draft, out);
-                    checks_ui(ui, check);
+                    checks_ui(ui, check, doc.units);
                 });
         }
     }
@@ -141,7 +141,7 @@ fn overview_ui(ui: &mut egui::Ui, doc: &DocumentState) {
 }
 
 /// Each check of the channel: measured, expected, verdict, and the cause when it is off.
-fn checks_ui(ui: &mut egui::Ui, check: Option<&ChannelCheck>) {
+fn checks_ui(ui: &mut egui::Ui, check: Option<&ChannelCheck>, units: crate::units::Units) {
     let Some(check) = check else {
         ui.label("This bridge could not be evaluated, so there is nothing to check against.");
         return;
@@ -155,9 +155,11 @@ fn checks_ui(ui: &mut egui::Ui, check: Option<&ChannelCheck>) {
                     ui.colored_label(verdict_colour(item.verdict), item.verdict.word());
                 });
                 ui.label(format!("measured {}", item.measured));
-                ui.add(egui::Label::new(format!("expected {}", item.expected)).wrap());
-                if !item.cause.is_empty() {
-                    ui.add(egui::Label::new(egui::RichText::new(&item.cause).italics()).wrap());
+                let expected = item.expected_in(units);
+                ui.add(egui::Label::new(format!("expected {expected}")).wrap());
+                let cause = item.cause_in(units);
+                if !cause.is_empty() {
+                    ui.add(egui::Label::new(egui::RichText::new(cause).italics()).wrap());
                 }
                 ui.add_space(4.0);
             }
