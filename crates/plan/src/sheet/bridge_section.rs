@@ -120,7 +120,8 @@ fn settings_rows(be: &BridgeEvaluation, plan: &BridgePlan, units: Units) -> Vec<
         ],
         vec![
             "Bridge factor".to_owned(),
-            format!("{:.4}", be.bridge_factor),
+            // Four significant figures: 4.000, 2.584 (a Poisson arrangement).
+            crate::units::Units::Si.format_number(crate::units::Quantity::Plain, be.bridge_factor),
         ],
         vec![
             "Gain, input range".to_owned(),
