@@ -5,6 +5,7 @@
 use std::path::{Path, PathBuf};
 
 use gw_plan::demo::demo_project;
+use gw_plan::document::FORMAT_VERSION;
 use gw_plan::{load_project, project_to_string};
 
 /// What a row must give.
@@ -68,7 +69,7 @@ fn text_rows() -> Vec<(&'static str, Vec<u8>, Expect)> {
         ),
         (
             "no format version",
-            edited("format_version: 2,", ""),
+            edited(&format!("format_version: {FORMAT_VERSION},"), ""),
             Refused(&["format_version"]),
         ),
         (

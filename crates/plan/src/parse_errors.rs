@@ -34,7 +34,10 @@ pub fn user_words(code: &ron::Error) -> String {
                 .to_string()
                 .replace(
                     "struct `VersionProbe`",
-                    "a project, `(format_version: 2, …)`,",
+                    &format!(
+                        "a project, `(format_version: {}, …)`,",
+                        crate::document::FORMAT_VERSION
+                    ),
                 )
                 .replace("`VersionProbe`", "the project");
             shorten_quoted(&text, 40)
