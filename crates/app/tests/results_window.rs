@@ -66,7 +66,11 @@ fn every_results_tab_fits_the_real_window_in_both_unit_systems() {
             let stderr = String::from_utf8_lossy(&output.stderr);
             assert!(!stderr.contains("layout:"), "{tab}, {units}: {stderr}");
             let image = image::open(&png).expect("a PNG was written").to_rgb8();
-            assert_eq!((image.width(), image.height()), (1280, 800), "{tab}, {units}");
+            assert_eq!(
+                (image.width(), image.height()),
+                (1280, 800),
+                "{tab}, {units}"
+            );
             let distinct: std::collections::HashSet<[u8; 3]> =
                 image.pixels().map(|p| p.0).collect();
             assert!(distinct.len() > 50, "{tab}, {units}: a blank picture");

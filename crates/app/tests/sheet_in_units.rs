@@ -16,7 +16,10 @@ fn first_channel(csv: &std::path::Path) -> (String, f64) {
         let i = headers.iter().position(|h| h == name).unwrap();
         row[i].to_owned()
     };
-    (at("wanted_unit"), at("wanted_per_mv_per_v").parse().unwrap())
+    (
+        at("wanted_unit"),
+        at("wanted_per_mv_per_v").parse().unwrap(),
+    )
 }
 
 #[test]

@@ -101,7 +101,11 @@ struct BridgePlanV1 {
 /// into part temperatures (version 3), and marks the project as the current version.
 pub(crate) fn ranges_to_part_temperatures(project: &mut Project) {
     let t_ref = project.reference_temperature_c;
-    for case in project.parts.iter_mut().flat_map(|p| p.load_cases.iter_mut()) {
+    for case in project
+        .parts
+        .iter_mut()
+        .flat_map(|p| p.load_cases.iter_mut())
+    {
         let (lo, hi) = case.temperature_range_c;
         case.temperature_range_c = (lo + t_ref, hi + t_ref);
     }

@@ -94,7 +94,6 @@ fn uncertainty_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation)
 
 /// One row per source: its name, a bar of its contribution, the contribution in the measured
 /// unit and its share of the variance.
-
 fn contribution_bars_ui(
     ui: &mut egui::Ui,
     doc: &DocumentState,
