@@ -699,16 +699,7 @@ fn evaluate_bridge(
     let vex = model.nominal_excitation_v();
     let gf_bf = b.instrument.gauge_factor * b.instrument.bridge_factor;
     let sensitivities = sensitivities_of(model, member, gf_bf)?;
-    let s_w = sensitivities
-        .iter()
-        .find(|s| s.component == b.wanted)
-        .map(|s| s.displayed_per_unit)
-        .unwrap_or(0.0);
-    let m_w = expected
-        .iter()
-        .find(|(c, _)| *c == b.wanted)
-        .map(|(_, m)| *m)
-        .unwrap_or(0.0);
+    let (s_w, m_w) = wanted_figures(&sensitivities, expected, b.wanted);
     no_response_finding(
         model,
         &channel,
@@ -718,20 +709,11 @@ fn evaluate_bridge(
         findings,
     );
     let rejection = rejections(&sensitivities, expected, b.wanted, s_w, m_w);
-    // The cases' ranges are part temperatures; the bridge model works in changes from the
-    // reference.
-    let t_ref = project.reference_temperature_c;
-    let (lo, hi) = crate::document::temperature_span(&part.load_cases)
-        .map_or((-20.0, 40.0), |(a, b)| (a - t_ref, b - t_ref));
     let full_case = part
         .load_cases
         .iter()
         .max_by(|a, b2| a.value(b.wanted).abs().total_cmp(&b2.value(b.wanted).abs()));
-    let full = full_case
-        .map(|c| c.load_vector())
-        .unwrap_or(LoadVector::ZERO);
-    let changes = gw_bridge::temperature::sweep_changes(lo, hi, options.temperature_steps);
-    let temperature = gw_bridge::temperature::thermal_sweep_at(model, &changes, &full)?;
+    let temperature = temperature_sweep(project, part, model, options, full_case)?;
     let shunt = shunt_calibration(model)?;
     let uncertainty = uncertainty_at(
         part, model, &channel, options, full_case, &place, target, findings,
@@ -771,6 +753,43 @@ fn evaluate_bridge(
         pin_resistances,
         calibration: plan.calibration.clone(),
     })
+}
+
+/// The wanted load's displayed strain per unit and its expected magnitude (0 where absent).
+fn wanted_figures(
+    sensitivities: &[Sensitivity],
+    expected: &[(LoadComponent, f64)],
+    wanted: LoadComponent,
+) -> (f64, f64) {
+    let s_w = sensitivities
+        .iter()
+        .find(|s| s.component == wanted)
+        .map_or(0.0, |s| s.displayed_per_unit);
+    let m_w = expected
+        .iter()
+        .find(|(c, _)| *c == wanted)
+        .map_or(0.0, |(_, m)| *m);
+    (s_w, m_w)
+}
+
+/// Apparent strain over the part temperatures of every load case, the reference among them,
+/// at the loads of `full_case` (none: unloaded). The cases' ranges are part temperatures; the
+/// bridge model works in changes from the reference.
+fn temperature_sweep(
+    project: &Project,
+    part: &Part,
+    model: &BridgeModel,
+    options: &EvalOptions,
+    full_case: Option<&crate::document::LoadCase>,
+) -> Result<Vec<ThermalPoint>, gw_bridge::BridgeError> {
+    let t_ref = project.reference_temperature_c;
+    let (lo, hi) = crate::document::temperature_span(&part.load_cases)
+        .map_or((-20.0, 40.0), |(a, b)| (a - t_ref, b - t_ref));
+    let full = full_case
+        .map(|c| c.load_vector())
+        .unwrap_or(LoadVector::ZERO);
+    let changes = gw_bridge::temperature::sweep_changes(lo, hi, options.temperature_steps);
+    gw_bridge::temperature::thermal_sweep_at(model, &changes, &full)
 }
 
 /// The zero band of a bridge judged against its full scale (the largest |reading| over its load
@@ -935,72 +954,19 @@ fn bridge_cases(
     target: Target,
     findings: &mut Vec<Finding>,
 ) -> Result<Vec<BridgeCase>, gw_bridge::BridgeError> {
-    let b = model.bridge();
-    let member = &part.member;
-    let material = member.material();
-    let warn = project.warn_utilisation;
-    let GridLimits {
-        grids,
-        strain_limit,
-        fatigue_limit,
-        power_util,
-    } = grid_limits(model, channel);
-
+    let limits = grid_limits(model, channel);
     let mut cases = Vec::new();
     for case in &part.load_cases {
         let loads = case.load_vector();
         let reading = model.reading(&loads)?;
         let adc_v = adc_volts(model, &reading);
-        let mut margins = Vec::new();
-        margins.push(Margin::new(
-            MarginKind::GridStrainLimit,
-            reading.max_grid_strain,
-            strain_limit,
-            warn,
-        ));
-        if case.cycled {
-            margins.push(Margin::new(
-                MarginKind::GridFatigue,
-                reading.max_grid_strain,
-                fatigue_limit,
-                warn,
-            ));
-        }
-        let stress_at_gauge = grids
-            .iter()
-            .filter_map(|&k| model.footprint(k))
-            .filter_map(|f| member.state(&f.center, &loads).ok())
-            .map(|s| s.von_mises_pa(material))
-            .fold(0.0, f64::max);
-        margins.push(Margin::new(
-            MarginKind::StressAtGauge,
-            stress_at_gauge,
-            material.yield_strength_pa,
-            warn,
-        ));
-        margins.push(Margin::new(
-            MarginKind::InputRange,
-            adc_v,
-            b.signal.input_range_v,
-            warn,
-        ));
-        // The smallest change the channel resolves: one count or the noise floor, whichever
-        // is larger.
-        let resolvable = channel.resolution_strain.max(channel.noise_strain_rms);
-        margins.push(Margin::new(
-            MarginKind::Resolution,
-            resolvable,
-            part.required_resolution_strain,
-            warn,
-        ));
-        if power_util.1.is_finite() {
-            margins.push(Margin::new(
-                MarginKind::SelfHeating,
-                power_util.0,
-                power_util.1,
-                warn,
-            ));
-        }
+        let margins = case_margins(
+            (project, part, model, channel),
+            &limits,
+            case.cycled,
+            &loads,
+            (&reading, adc_v),
+        );
         for m in &margins {
             push_margin(findings, m, place(&case.name), target);
         }
@@ -1023,6 +989,79 @@ fn bridge_cases(
     }
 
     Ok(cases)
+}
+
+/// The margins of one load case: grid strain (and fatigue when cycled), stress at the gauges,
+/// input range, resolution and self-heating.
+fn case_margins(
+    (project, part, model, channel): (&Project, &Part, &BridgeModel, &ChannelFigures),
+    limits: &GridLimits,
+    cycled: bool,
+    loads: &LoadVector,
+    (reading, adc_v): (&Reading, f64),
+) -> Vec<Margin> {
+    let b = model.bridge();
+    let member = &part.member;
+    let material = member.material();
+    let warn = project.warn_utilisation;
+    let GridLimits {
+        grids,
+        strain_limit,
+        fatigue_limit,
+        power_util,
+    } = limits;
+    let (strain_limit, fatigue_limit) = (*strain_limit, *fatigue_limit);
+    let mut margins = Vec::new();
+    margins.push(Margin::new(
+        MarginKind::GridStrainLimit,
+        reading.max_grid_strain,
+        strain_limit,
+        warn,
+    ));
+    if cycled {
+        margins.push(Margin::new(
+            MarginKind::GridFatigue,
+            reading.max_grid_strain,
+            fatigue_limit,
+            warn,
+        ));
+    }
+    let stress_at_gauge = grids
+        .iter()
+        .filter_map(|&k| model.footprint(k))
+        .filter_map(|f| member.state(&f.center, loads).ok())
+        .map(|s| s.von_mises_pa(material))
+        .fold(0.0, f64::max);
+    margins.push(Margin::new(
+        MarginKind::StressAtGauge,
+        stress_at_gauge,
+        material.yield_strength_pa,
+        warn,
+    ));
+    margins.push(Margin::new(
+        MarginKind::InputRange,
+        adc_v,
+        b.signal.input_range_v,
+        warn,
+    ));
+    // The smallest change the channel resolves: one count or the noise floor, whichever
+    // is larger.
+    let resolvable = channel.resolution_strain.max(channel.noise_strain_rms);
+    margins.push(Margin::new(
+        MarginKind::Resolution,
+        resolvable,
+        part.required_resolution_strain,
+        warn,
+    ));
+    if power_util.1.is_finite() {
+        margins.push(Margin::new(
+            MarginKind::SelfHeating,
+            power_util.0,
+            power_util.1,
+            warn,
+        ));
+    }
+    margins
 }
 
 /// Displayed strain and output per unit of every component the part carries.
