@@ -103,6 +103,7 @@ fn contribution_bars_ui(
     let units = doc.units;
     let q = Quantity::of(be.wanted);
     let largest = rows.first().map_or(0.0, |r| r.contribution);
+    let combined = be.uncertainty.as_ref().map_or(0.0, |u| u.gum.combined);
     let contribution_header = format!("Contribution ({})", units.label(q));
     let share_header = "Share (%)";
     // A contribution below the display resolution reads "< 0.001", never as a run of zeros.
@@ -151,7 +152,8 @@ fn contribution_bars_ui(
                     0.0
                 };
                 bar_cell_ui(ui, width, fraction, palette::WARN, None);
-                ui.label(value);
+                ui.label(value)
+                    .on_hover_text(of_combined(r.contribution, combined));
                 ui.label(share);
                 ui.end_row();
             }
@@ -159,14 +161,29 @@ fn contribution_bars_ui(
         .response
 }
 
+/// A contribution as a share of the combined standard uncertainty: "43.1 % of u".
+fn of_combined(contribution: f64, combined: f64) -> String {
+    if combined > 0.0 {
+        format!(
+            "{} % of the combined standard uncertainty u (the shares of u do not add up; \
+             those of u² do)",
+            crate::units::number_text(100.0 * contribution / combined, 1)
+        )
+    } else {
+        "The combined standard uncertainty is zero.".to_owned()
+    }
+}
+
 fn budget_table(doc: &DocumentState, be: &BridgeEvaluation, rows: &[ContributionRow]) -> PlotTable {
     let units = doc.units;
     let q = Quantity::of(be.wanted);
+    let combined = be.uncertainty.as_ref().map_or(0.0, |u| u.gum.combined);
     PlotTable {
         columns: vec![
             "Source".into(),
             format!("Contribution ({})", units.label(q)),
             "Share of variance (%)".into(),
+            "Contribution over combined u (%)".into(),
         ],
         rows: rows
             .iter()
@@ -175,6 +192,11 @@ fn budget_table(doc: &DocumentState, be: &BridgeEvaluation, rows: &[Contribution
                     r.name.clone(),
                     format!("{}", units.scale_to_display(q, r.contribution)),
                     r.variance_percent.map_or("—".into(), |p| format!("{p}")),
+                    if combined > 0.0 {
+                        format!("{}", 100.0 * r.contribution / combined)
+                    } else {
+                        "—".into()
+                    },
                 ]
             })
             .collect(),
