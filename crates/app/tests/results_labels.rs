@@ -274,3 +274,35 @@ fn the_check_for_badly_read_numbers_catches_them() {
     assert!(!reads_badly("-0.5"));
     assert!(!reads_badly("< 0.001"));
 }
+
+#[test]
+fn output_vs_load_gives_the_error_margins_checks() {
+    // The error plot's known error leaves the uncertainty out; the line under it gives the
+    // figure the Margins tab judges (the known error plus the expanded uncertainty) for the
+    // case closest to its limit, so the two tabs never disagree.
+    for units in [Units::Si, Units::UsCustomary] {
+        let mut h = demo_in(units);
+        open_results(&mut h, "Output vs load");
+        let be = selected_bridge(&h);
+        let q = Quantity::of(be.wanted);
+        let closest = be
+            .accuracy
+            .iter()
+            .max_by(|a, b| a.margin.utilisation.total_cmp(&b.margin.utilisation))
+            .expect("the demo's bridge states a required accuracy");
+        let all = labels(&h);
+        let line = all
+            .iter()
+            .map(|(t, _)| t)
+            .find(|t| t.starts_with("With the expanded uncertainty"))
+            .expect("the line with the uncertainty");
+        let predicted = units.format_difference(q, closest.predicted());
+        let allowed = units.format_difference(q, closest.allowed);
+        assert!(
+            line.contains(&format!("±{predicted}"))
+                && line.contains(&format!("±{allowed}"))
+                && line.contains(&closest.case),
+            "{units:?}: {line}"
+        );
+    }
+}

@@ -27,7 +27,7 @@ fn case_style(i: usize) -> (Color32, MarkerShape) {
 }
 
 /// The band colour of the required accuracy.
-const BAND: Color32 = Color32::from_rgba_premultiplied(40, 70, 40, 50);
+const BAND: Color32 = Color32::from_rgba_premultiplied(45, 90, 55, 90);
 
 pub(super) fn output_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
     for c in &be.cases {
@@ -87,6 +87,18 @@ fn legend_ui(ui: &mut egui::Ui, cases: &[&str], band: bool) {
         key_ui(ui, words("straight line, departure from it"), |ui| {
             key_swatch_ui(ui, grey, None, true);
         });
+        if band {
+            key_ui(
+                ui,
+                words("with expanded uncertainty, as Margins checks it"),
+                |ui| {
+                    let (rect, _) = ui
+                        .allocate_exact_size(egui::vec2(SWATCH_WIDTH, 14.0), egui::Sense::hover());
+                    ui.painter()
+                        .circle_stroke(rect.center(), 6.0, egui::Stroke::new(1.5, grey));
+                },
+            );
+        }
         if band {
             key_ui(ui, words("required accuracy ±"), |ui| {
                 let (rect, _) =
@@ -318,6 +330,18 @@ fn error_plot_ui(ui: &mut egui::Ui, units: Units, be: &BridgeEvaluation, curves:
                         .color(colour)
                         .style(LineStyle::dashed_loose()),
                 );
+                // The figure Margins checks: the known error plus the expanded uncertainty, at
+                // the case's load.
+                if let Some(a) = be.accuracy.iter().find(|a| a.case == c.case) {
+                    let at_load = [units.to_display(q, a.applied), 100.0 * a.predicted() / fs];
+                    plot.points(
+                        Points::new(format!("{} with uncertainty", c.case), vec![at_load])
+                            .color(colour)
+                            .shape(marker)
+                            .filled(false)
+                            .radius(7.0),
+                    );
+                }
             }
         });
     export_menu(&response.response, "Error vs load", || {
@@ -327,7 +351,7 @@ fn error_plot_ui(ui: &mut egui::Ui, units: Units, be: &BridgeEvaluation, curves:
 
 fn error_table(units: Units, be: &BridgeEvaluation, curves: &[ErrorCurve], fs: f64) -> PlotTable {
     let q = Quantity::of(be.wanted);
-    let pct = |v: f64| format!("{v:.4}");
+    let pct = |v: f64| number_text(v, 4);
     let mut rows = Vec::new();
     for c in curves {
         for p in &c.points {
@@ -382,9 +406,10 @@ fn error_summary_ui(
         return;
     };
     ui.label(format!(
-        "Full scale {}. Largest predicted error {:.3} % of full scale ({}, at {}).",
+        "Full scale {}. Largest known error {} % of full scale ({}, at {}); the uncertainty \
+         comes on top.",
         units.format(q, fs),
-        p.total_pct,
+        number_text(p.total_pct, 3),
         c.case,
         units.format(q, p.wanted)
     ))
@@ -392,6 +417,7 @@ fn error_summary_ui(
         "Sum of the magnitudes of departure from the straight line, leakage of unwanted loads, \
          temperature at the extreme of the range, leads and gauge effects",
     );
+    with_uncertainty_ui(ui, units, be, fs);
     match result_series::allowed_pct(be, p.wanted, fs) {
         Some(a) => {
             let verdict = if p.total_pct <= a {
@@ -400,7 +426,9 @@ fn error_summary_ui(
                 "outside"
             };
             ui.label(format!(
-                "Required accuracy there: ±{a:.3} % of full scale — {verdict}."
+                "Required accuracy at that load: ±{} % of full scale — the known error is \
+                 {verdict}.",
+                number_text(a, 3)
             ));
         }
         None => {
@@ -408,6 +436,28 @@ fn error_summary_ui(
         }
     }
 }
+/// The predicted error as Margins checks it (known error plus expanded uncertainty), at the
+/// case closest to its limit, in the wanted load's unit and % of full scale.
+fn with_uncertainty_ui(ui: &mut egui::Ui, units: Units, be: &BridgeEvaluation, fs: f64) {
+    let q = Quantity::of(be.wanted);
+    let Some(a) = be
+        .accuracy
+        .iter()
+        .max_by(|a, b| a.margin.utilisation.total_cmp(&b.margin.utilisation))
+    else {
+        return;
+    };
+    ui.label(format!(
+        "With the expanded uncertainty, as Margins checks it: ±{} ({} % of full scale) against \
+         the required ±{} at {} — {}.",
+        units.format_difference(q, a.predicted()),
+        number_text(100.0 * a.predicted() / fs, 3),
+        units.format_difference(q, a.allowed),
+        a.case,
+        a.margin.status.word()
+    ));
+}
+
 /// The zero reading a technician should see at no load, with its statistical and worst-case
 /// spread, and the wanted load per mV/V in the display unit.
 fn zero_and_conversion_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {

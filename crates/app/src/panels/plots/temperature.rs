@@ -62,6 +62,14 @@ fn thermal_plot_ui(ui: &mut egui::Ui, units: Units, reference_c: f64, curves: &[
         "reference {}",
         units.format(Quantity::Temperature, reference_c)
     );
+    // The label sits at the top of the data, not of the plot's bounds: placed at the bounds it
+    // would widen them every frame.
+    let top = curves
+        .iter()
+        .filter(|c| !c.is_zero())
+        .flat_map(|c| c.points.iter().map(|p| p[1] * 1e6))
+        .filter(|v| v.is_finite())
+        .fold(0.0, f64::max);
     let plot = readable_x_axis(Plot::new("apparent strain"), temperature_axis(units));
     let response = plot
         .height(320.0)
@@ -80,7 +88,6 @@ fn thermal_plot_ui(ui: &mut egui::Ui, units: Units, reference_c: f64, curves: &[
             if reference_c.is_finite() {
                 let x = t(reference_c);
                 plot.vline(VLine::new("Reference temperature", x).color(Color32::GRAY));
-                let top = plot.plot_bounds().max()[1];
                 plot.text(
                     Text::new("reference", PlotPoint::new(x, top), reference_text)
                         .anchor(Align2::LEFT_TOP)
