@@ -104,7 +104,7 @@ fn responses(member: &Member, entry: &CatalogueEntry) -> Option<ArmResponses> {
             continue;
         }
         let footprint = placed.footprint(element);
-        for &c in member.components() {
+        for &c in member.components().iter() {
             if c == LoadComponent::TemperatureChange {
                 continue;
             }
@@ -201,7 +201,7 @@ fn describe(
     let mut cancels = Vec::new();
     let mut unseen = Vec::new();
     let mut shows = Vec::new();
-    for &c in member.components() {
+    for &c in member.components().iter() {
         if c == wanted || c == LoadComponent::TemperatureChange {
             continue;
         }

@@ -194,7 +194,7 @@ impl BridgeModel {
                 let angle = footprint.angle_rad;
                 let across = angle + std::f64::consts::FRAC_PI_2;
                 let mut per_component = [[0.0; 4]; LoadComponent::COUNT];
-                for &c in setup.member.components() {
+                for &c in setup.member.components().iter() {
                     let unit = LoadVector::unit(c);
                     let point = setup
                         .member

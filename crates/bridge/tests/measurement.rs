@@ -369,7 +369,7 @@ fn multi_axis_separates_torque_and_bending_on_a_shaft() {
         BridgeModel::new(&s, &torque).unwrap(),
         BridgeModel::new(&s, &bending).unwrap(),
     ];
-    let m = multi_axis::multi_axis(&models, member.components())
+    let m = multi_axis::multi_axis(&models, &member.components())
         .unwrap()
         .unwrap();
     assert!(m.condition_number < 1.01, "{}", m.condition_number);

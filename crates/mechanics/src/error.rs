@@ -89,6 +89,10 @@ pub enum MechanicsError {
         "transverse sensitivity {value} must lie strictly between -1 and 1; typical grids are within ±0.05"
     )]
     TransverseSensitivityOutOfRange { value: f64 },
+
+    /// An imported finite-element field that cannot be used as it stands.
+    #[error("the imported field cannot be used: {detail}")]
+    ImportedField { detail: String },
 }
 
 /// Result type of the mechanics crate.

@@ -157,6 +157,9 @@ pub fn grid_average_state(
     let along = rule(order.along);
     let across = rule(order.across);
     let ((ua, wa), (va, wb)) = (along.as_ref(), across.as_ref());
+    if let Member::ImportedField(m) = member {
+        return imported_average(m, grid, loads, (ua, wa), (va, wb));
+    }
     let mut sum = SurfaceState::default();
     for (u, wu) in ua.iter().zip(wa) {
         for (v, wv) in va.iter().zip(wb) {
@@ -168,6 +171,47 @@ pub fn grid_average_state(
                     detail: format!("{detail}; move the gauge or choose a shorter grid"),
                 })?;
             sum = sum + member.state_unchecked(&located, loads) * (wu * wv / 4.0);
+        }
+    }
+    Ok(sum)
+}
+
+/// The average over a grid on an imported surface: each quadrature point laid out on the
+/// tangent plane at the grid's centre (true lengths, whatever the face's flat coordinates do),
+/// found on the surface under it (on the next face where the grid runs over an edge), and read
+/// in the centre's axes laid onto the surface there.
+fn imported_average(
+    m: &crate::imported::ImportedSurface,
+    grid: &GridFootprint,
+    loads: &LoadVector,
+    (ua, wa): (&[f64], &[f64]),
+    (va, wb): (&[f64], &[f64]),
+) -> Result<SurfaceState> {
+    let field = m.loaded()?;
+    let home = field.locate(&grid.center)?;
+    let frame = field.frame_at(&home);
+    let (sin, cos) = grid.angle_rad.sin_cos();
+    let along: [f64; 3] = std::array::from_fn(|k| cos * frame.axis_x[k] + sin * frame.axis_y[k]);
+    let across: [f64; 3] = std::array::from_fn(|k| -sin * frame.axis_x[k] + cos * frame.axis_y[k]);
+    let reach = 0.5 * grid.length_m.max(grid.width_m);
+    let mut sum = SurfaceState::default();
+    for (u, wu) in ua.iter().zip(wa) {
+        for (v, wv) in va.iter().zip(wb) {
+            let (du, dv) = (u * grid.length_m / 2.0, v * grid.width_m / 2.0);
+            let p: [f64; 3] =
+                std::array::from_fn(|k| frame.position[k] + du * along[k] + dv * across[k]);
+            let at = field.locate_near(home.face, p, reach).ok_or_else(|| {
+                MechanicsError::PointOffPart {
+                    what: "part of the grid",
+                    detail: format!(
+                        "it runs off the surface of {} near its edge; move the gauge or choose \
+                         a shorter grid",
+                        grid.center.face.name()
+                    ),
+                }
+            })?;
+            let state = field.state_in_axes(&at, (frame.axis_x, frame.axis_y), loads, &m.material);
+            sum = sum + state * (wu * wv / 4.0);
         }
     }
     Ok(sum)

@@ -23,6 +23,7 @@ pub mod beam;
 pub mod error;
 pub mod given_state;
 pub mod grid_average;
+pub mod imported;
 pub mod load;
 pub mod material;
 pub mod member;

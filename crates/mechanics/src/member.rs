@@ -1,10 +1,13 @@
 //! Every kind of part in one enum, with one way to ask for the surface state.
 
+use std::borrow::Cow;
+
 use serde::{Deserialize, Serialize};
 
 use crate::beam::{BEAM_COMPONENTS, Beam};
 use crate::error::{MechanicsError, Result};
 use crate::given_state::{GIVEN_STATE_COMPONENTS, GivenState};
+use crate::imported::ImportedSurface;
 use crate::load::{LoadComponent, LoadVector};
 use crate::material::Material;
 use crate::plate_with_hole::{PLATE_COMPONENTS, PlateWithHole};
@@ -69,6 +72,8 @@ pub enum Member {
     PlateWithHole(PlateWithHole),
     /// A user-given uniform state.
     GivenState(GivenState),
+    /// A surface and its fields imported from finite-element results.
+    ImportedField(ImportedSurface),
 }
 
 impl Member {
@@ -82,12 +87,13 @@ impl Member {
             Member::ThickCylinder(_) => "thick-walled cylinder",
             Member::PlateWithHole(_) => "plate with a hole",
             Member::GivenState(_) => "given surface state",
+            Member::ImportedField(_) => "imported field",
         }
     }
 
     /// The load components this member responds to.
-    pub fn components(&self) -> &'static [LoadComponent] {
-        match self {
+    pub fn components(&self) -> Cow<'static, [LoadComponent]> {
+        Cow::Borrowed(match self {
             Member::Beam(_) => BEAM_COMPONENTS,
             Member::Shaft(_) => SHAFT_COMPONENTS,
             Member::ThinCylinder(_) => THIN_CYLINDER_COMPONENTS,
@@ -95,7 +101,8 @@ impl Member {
             Member::ThickCylinder(_) => THICK_CYLINDER_COMPONENTS,
             Member::PlateWithHole(_) => PLATE_COMPONENTS,
             Member::GivenState(_) => GIVEN_STATE_COMPONENTS,
-        }
+            Member::ImportedField(m) => return m.components(),
+        })
     }
 
     /// The part's material.
@@ -108,6 +115,7 @@ impl Member {
             Member::ThickCylinder(m) => &m.material,
             Member::PlateWithHole(m) => &m.material,
             Member::GivenState(m) => &m.material,
+            Member::ImportedField(m) => &m.material,
         }
     }
 
@@ -121,6 +129,7 @@ impl Member {
             Member::ThickCylinder(m) => &mut m.material,
             Member::PlateWithHole(m) => &mut m.material,
             Member::GivenState(m) => &mut m.material,
+            Member::ImportedField(m) => &mut m.material,
         }
     }
 
@@ -134,6 +143,7 @@ impl Member {
             Member::ThickCylinder(m) => m.validate(),
             Member::PlateWithHole(m) => m.validate(),
             Member::GivenState(m) => m.validate(),
+            Member::ImportedField(m) => m.validate(),
         }
     }
 
@@ -141,6 +151,7 @@ impl Member {
     pub fn warnings(&self) -> Vec<String> {
         match self {
             Member::PlateWithHole(m) => m.warnings(),
+            Member::ImportedField(m) => m.read_notes.clone(),
             _ => Vec::new(),
         }
     }
@@ -155,14 +166,19 @@ impl Member {
             Member::ThickCylinder(m) => m.faces(),
             Member::PlateWithHole(m) => m.faces(),
             Member::GivenState(m) => m.faces(),
+            Member::ImportedField(m) => m.surface().map(|f| f.faces()).unwrap_or_default(),
         }
     }
 
     /// The point brought onto the part (s wrapped round), or an error saying why it is off.
     pub fn locate(&self, point: &SurfacePoint) -> Result<SurfacePoint> {
+        if let Member::ImportedField(m) = self {
+            m.loaded()?.locate(point)?;
+            return Ok(*point);
+        }
         let faces = self.faces();
         let Some(extent) = faces.iter().find(|f| f.face == point.face) else {
-            let names: Vec<&str> = faces.iter().map(|f| f.face.name()).collect();
+            let names: Vec<_> = faces.iter().map(|f| f.face.name()).collect();
             return Err(MechanicsError::PointOffPart {
                 what: "the point",
                 detail: format!(
@@ -230,6 +246,10 @@ impl Member {
             Member::ThickCylinder(m) => m.state_at(p, loads),
             Member::PlateWithHole(m) => m.state_at(p, loads),
             Member::GivenState(m) => m.state_at(p, loads),
+            Member::ImportedField(m) => m.surface().and_then(|f| {
+                let at = f.locate(p).ok()?;
+                Some(f.state_at(&at, loads, &m.material))
+            }),
         };
         debug_assert!(
             state.is_some(),
@@ -310,6 +330,15 @@ impl Member {
         use crate::surface_map::{Sampling, StrainBasis, SurfaceQuantity, sample_face};
         let n = n.max(2);
         let material = self.material();
+        if let Member::ImportedField(m) = self {
+            let (vm, p) = m.loaded()?.peak_von_mises(loads, material).ok_or(
+                MechanicsError::PointOffPart {
+                    what: "every node",
+                    detail: "the imported surface has no node with a finite stress".to_owned(),
+                },
+            )?;
+            return Ok((vm, PeakLocation::Surface(p)));
+        }
         let mut best: Option<(f64, PeakLocation)> = None;
         let mut consider = |vm: f64, p: PeakLocation| {
             if best.is_none_or(|(b, _)| vm > b) {

@@ -76,7 +76,7 @@ fn section_point(section: &Section, face: Face, s_m: f64) -> Option<SectionPoint
             z: -s_m,
             dir: (0.0, -1.0),
         }),
-        Face::Round | Face::Plate => None,
+        Face::Round | Face::Plate | Face::Patch(_) => None,
     }
 }
 

@@ -6,6 +6,8 @@
 //! chosen so that x, y and the outward normal are right-handed. Gauge angles are therefore
 //! counter-clockwise as seen from outside the part.
 
+use std::borrow::Cow;
+
 use serde::{Deserialize, Serialize};
 
 /// A face of a part.
@@ -26,19 +28,23 @@ pub enum Face {
     Round,
     /// The face of a flat plate; `x_m`, `s_m` are plan coordinates from the hole centre.
     Plate,
+    /// A face of an imported surface (numbered from 0, largest first); `x_m`, `s_m` are the
+    /// face's own flat coordinates (see [`crate::imported::patches`]).
+    Patch(u16),
 }
 
 impl Face {
     /// Plain name for display.
-    pub fn name(self) -> &'static str {
-        match self {
+    pub fn name(self) -> Cow<'static, str> {
+        Cow::Borrowed(match self {
             Face::Top => "top face",
             Face::Bottom => "bottom face",
             Face::Front => "front face",
             Face::Back => "back face",
             Face::Round => "outer surface",
             Face::Plate => "plate face",
-        }
+            Face::Patch(k) => return Cow::Owned(format!("face {}", k as u32 + 1)),
+        })
     }
 }
 

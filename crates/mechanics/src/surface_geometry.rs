@@ -60,7 +60,7 @@ fn prismatic_frame(face: Face, x: f64, s: f64, section: &Section) -> Option<Surf
             let (r, _) = section.radii_m()?;
             round_frame(x, s, r)
         }
-        Face::Plate => return None,
+        Face::Plate | Face::Patch(_) => return None,
     })
 }
 
@@ -124,6 +124,7 @@ impl Member {
             }
             (Member::PlateWithHole(m), Face::Plate) => Some(flat_frame(x, s, m.thickness_m / 2.0)),
             (Member::GivenState(_), Face::Plate) => Some(flat_frame(x, s, 0.0)),
+            (Member::ImportedField(m), Face::Patch(_)) => m.surface()?.frame(point),
             _ => None,
         }
     }

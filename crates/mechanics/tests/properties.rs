@@ -34,7 +34,7 @@ fn beam_member(support: BeamSupport, load_position_m: f64) -> Member {
 /// `l` with the components `m` does not carry set to zero (the model refuses them).
 fn carried(m: &Member, l: &LoadVector) -> LoadVector {
     let mut out = LoadVector::ZERO;
-    for &c in m.components() {
+    for &c in m.components().iter() {
         out[c] = l[c];
     }
     out

@@ -110,6 +110,9 @@ pub(super) fn layouts(
                 );
             }
         }
+        // An imported part has no symmetry the catalogue could rely on: the engineer places
+        // its gauges and the chooser wires them.
+        Member::ImportedField(_) => {}
     }
     out
 }

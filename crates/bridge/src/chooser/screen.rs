@@ -84,7 +84,7 @@ fn candidates(
         for element in 0..gauge.element_count() {
             let footprint = gauge.footprint(element);
             let mut per_unit = [0.0; LoadComponent::COUNT];
-            for &c in member.components() {
+            for &c in member.components().iter() {
                 if c != LoadComponent::TemperatureChange {
                     per_unit[c.index()] =
                         response(member, spec, &footprint, &LoadVector::unit(c), quadrature)?;

@@ -1,0 +1,721 @@
+//! The imported surface with its unit-load fields: where a point is, its frame, and the
+//! surface state there under any combination of the unit loads.
+
+use crate::error::{MechanicsError, Result};
+use crate::load::{LoadComponent, LoadVector};
+use crate::material::Material;
+use crate::surface::{Face, FaceExtent, SurfacePoint};
+use crate::surface_geometry::SurfaceFrame;
+use crate::surface_state::{SurfaceState, SurfaceStrain};
+
+use super::mesh::{RawMesh, bad_mesh};
+use super::patches::{Patch, ReferenceAxis, cross, dot, split, sub, unit};
+use super::units::TensorQuantity;
+
+/// One unit load's field as read: the tensor at every point of the mesh, SI (m/m or Pa),
+/// order xx, yy, zz, xy, yz, zx with tensor shear components.
+#[derive(Debug, Clone, PartialEq)]
+pub struct UnitField {
+    /// The load component this field is the response to, per unit of its SI value.
+    pub component: LoadComponent,
+    /// Strain or stress.
+    pub quantity: TensorQuantity,
+    /// One tensor per mesh point.
+    pub values: Vec<[f64; 6]>,
+}
+
+/// A point found on the surface: its face, the triangle under it and where in that triangle.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Located {
+    /// Face number (index into the faces).
+    pub face: usize,
+    /// Triangle number within the face.
+    pub triangle: usize,
+    /// Barycentric coordinates in that triangle.
+    pub weights: [f64; 3],
+}
+
+/// The outer surface of an imported mesh, split into faces, with the unit-load fields at its
+/// nodes.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SurfaceField {
+    nodes_m: Vec<[f64; 3]>,
+    triangles: Vec<[u32; 3]>,
+    facet: Vec<u32>,
+    patches: Vec<Patch>,
+    fields: Vec<(LoadComponent, TensorQuantity, Vec<[f64; 6]>)>,
+    node_home: Vec<(u32, [f64; 2])>,
+    from_solid: bool,
+    mesh_points: usize,
+    digest: u64,
+}
+
+/// The tensor (xx, yy, zz, xy, yz, zx) as a symmetric matrix.
+fn matrix(t: &[f64; 6]) -> [[f64; 3]; 3] {
+    [[t[0], t[3], t[5]], [t[3], t[1], t[4]], [t[5], t[4], t[2]]]
+}
+
+/// aᵀ T b.
+fn quadratic(t: &[f64; 6], a: [f64; 3], b: [f64; 3]) -> f64 {
+    let m = matrix(t);
+    (0..3)
+        .map(|i| (0..3).map(|j| a[i] * m[i][j] * b[j]).sum::<f64>())
+        .sum()
+}
+
+/// Strain tensor from a stress tensor (isotropic Hooke): ε = ((1 + ν) σ − ν tr σ I) / E
+/// (Timoshenko & Goodier, *Theory of Elasticity*, 3rd ed., §6).
+pub fn strain_from_stress(s: &[f64; 6], m: &Material) -> [f64; 6] {
+    let (e, nu) = (m.youngs_modulus_pa, m.poisson_ratio);
+    let tr = s[0] + s[1] + s[2];
+    std::array::from_fn(|k| {
+        let diag = if k < 3 { nu * tr } else { 0.0 };
+        ((1.0 + nu) * s[k] - diag) / e
+    })
+}
+
+/// Stress tensor from a strain tensor (tensor shear): σ = λ tr ε I + 2 μ ε (same source).
+pub fn stress_from_strain(t: &[f64; 6], m: &Material) -> [f64; 6] {
+    let (e, nu) = (m.youngs_modulus_pa, m.poisson_ratio);
+    let lambda = e * nu / ((1.0 + nu) * (1.0 - 2.0 * nu));
+    let mu = e / (2.0 * (1.0 + nu));
+    let tr = t[0] + t[1] + t[2];
+    std::array::from_fn(|k| if k < 3 { lambda * tr } else { 0.0 } + 2.0 * mu * t[k])
+}
+
+/// Von Mises equivalent of a full stress tensor:
+/// √(½[(σxx−σyy)² + (σyy−σzz)² + (σzz−σxx)²] + 3(τxy² + τyz² + τzx²))
+/// (Budynas & Nisbett, *Shigley's*, 10th ed., §5-5).
+pub fn von_mises_tensor(s: &[f64; 6]) -> f64 {
+    (0.5 * ((s[0] - s[1]).powi(2) + (s[1] - s[2]).powi(2) + (s[2] - s[0]).powi(2))
+        + 3.0 * (s[3].powi(2) + s[4].powi(2) + s[5].powi(2)))
+    .sqrt()
+}
+
+/// Folds one 64-bit word into a running hash (FNV-1a's step on words, then a rotation so that
+/// every bit reaches the low bits).
+fn mix(hash: &mut u64, word: u64) {
+    *hash = (*hash ^ word)
+        .wrapping_mul(0x0000_0100_0000_01b3)
+        .rotate_left(29);
+}
+
+impl SurfaceField {
+    /// The surface of `mesh` with the unit fields at its points; faces take their x axes from
+    /// `reference`. Errors name the load and the point at fault.
+    pub fn new(mesh: &RawMesh, fields: Vec<UnitField>, reference: ReferenceAxis) -> Result<Self> {
+        let surface = mesh.free_surface()?;
+        check_fields(mesh, &fields)?;
+        let mut compact = vec![u32::MAX; mesh.points_m.len()];
+        let mut nodes_m = Vec::new();
+        let triangles: Vec<[u32; 3]> = surface
+            .triangles
+            .iter()
+            .map(|t| {
+                t.map(|v| {
+                    if compact[v as usize] == u32::MAX {
+                        compact[v as usize] = nodes_m.len() as u32;
+                        nodes_m.push(mesh.points_m[v as usize]);
+                    }
+                    compact[v as usize]
+                })
+            })
+            .collect();
+        let pick = |values: &[[f64; 6]]| {
+            let mut out = vec![[0.0; 6]; nodes_m.len()];
+            for (i, &c) in compact.iter().enumerate() {
+                if c != u32::MAX {
+                    out[c as usize] = values[i];
+                }
+            }
+            out
+        };
+        let fields: Vec<_> = fields
+            .iter()
+            .map(|f| (f.component, f.quantity, pick(&f.values)))
+            .collect();
+        let (normals, areas): (Vec<_>, Vec<_>) = triangles
+            .iter()
+            .map(|t| {
+                let [a, b, c] = t.map(|v| nodes_m[v as usize]);
+                let n = cross(sub(b, a), sub(c, a));
+                let len = dot(n, n).sqrt();
+                (unit(n), 0.5 * len)
+            })
+            .unzip();
+        let (patches, _) = split(&nodes_m, &triangles, &normals, &areas, reference);
+        if patches.is_empty() {
+            return Err(bad_mesh(
+                "every surface triangle has zero area; check the coordinates",
+            ));
+        }
+        let node_home = home_of_nodes(nodes_m.len(), &triangles, &patches);
+        let digest = digest_of(&nodes_m, &triangles, &fields, reference);
+        Ok(Self {
+            nodes_m,
+            triangles,
+            facet: surface.facet,
+            patches,
+            fields,
+            node_home,
+            from_solid: surface.from_solid,
+            mesh_points: mesh.points_m.len(),
+            digest,
+        })
+    }
+
+    /// A number that changes with any node, triangle or value (not a security hash).
+    pub fn digest(&self) -> u64 {
+        self.digest
+    }
+
+    /// Number of surface nodes.
+    pub fn node_count(&self) -> usize {
+        self.nodes_m.len()
+    }
+
+    /// Number of points of the mesh the field was read from.
+    pub fn mesh_point_count(&self) -> usize {
+        self.mesh_points
+    }
+
+    /// Number of surface triangles.
+    pub fn triangle_count(&self) -> usize {
+        self.triangles.len()
+    }
+
+    /// True when the surface came from solid cells (false: a shell mesh).
+    pub fn from_solid(&self) -> bool {
+        self.from_solid
+    }
+
+    /// The faces.
+    pub fn patches(&self) -> &[Patch] {
+        &self.patches
+    }
+
+    /// Surface node positions, metres.
+    pub fn nodes_m(&self) -> &[[f64; 3]] {
+        &self.nodes_m
+    }
+
+    /// Surface triangles over the surface nodes.
+    pub fn triangles(&self) -> &[[u32; 3]] {
+        &self.triangles
+    }
+
+    /// The load components with a field.
+    pub fn components(&self) -> Vec<LoadComponent> {
+        self.fields.iter().map(|f| f.0).collect()
+    }
+
+    /// The faces as extents (x and s ranges of each face's own coordinates).
+    pub fn faces(&self) -> Vec<FaceExtent> {
+        self.patches
+            .iter()
+            .enumerate()
+            .map(|(k, p)| FaceExtent {
+                face: Face::Patch(k as u16),
+                x_range_m: p.x_range_m,
+                s_range_m: p.s_range_m,
+                wraps: false,
+                hole_radius_m: None,
+            })
+            .collect()
+    }
+
+    /// Finds a point on its face; an error says why it is off.
+    pub fn locate(&self, point: &SurfacePoint) -> Result<Located> {
+        let off = |detail: String| MechanicsError::PointOffPart {
+            what: "the point",
+            detail,
+        };
+        let Face::Patch(k) = point.face else {
+            return Err(off(format!(
+                "an imported surface has no {}; use one of its faces 1 to {}",
+                point.face.name(),
+                self.patches.len()
+            )));
+        };
+        let Some(patch) = self.patches.get(k as usize) else {
+            return Err(off(format!(
+                "the imported surface has faces 1 to {}, not face {}",
+                self.patches.len(),
+                k as usize + 1
+            )));
+        };
+        if !point.x_m.is_finite() || !point.s_m.is_finite() {
+            return Err(off(format!(
+                "its coordinates ({}, {}) are not finite numbers",
+                point.x_m, point.s_m
+            )));
+        }
+        let size =
+            (patch.x_range_m.1 - patch.x_range_m.0).max(patch.s_range_m.1 - patch.s_range_m.0);
+        let tolerance = 1e-6 * size.max(1e-3);
+        let (triangle, weights) = patch.find([point.x_m, point.s_m], tolerance).ok_or_else(
+            || {
+                off(format!(
+                    "x = {:.2} mm, s = {:.2} mm is not on face {} (it lies beyond the face's edge \
+                 or in an opening); move it onto the face",
+                    point.x_m * 1e3,
+                    point.s_m * 1e3,
+                    k as usize + 1
+                ))
+            },
+        )?;
+        Ok(Located {
+            face: k as usize,
+            triangle,
+            weights,
+        })
+    }
+
+    /// The frame at a located point: position, interpolated outward normal, and local x along
+    /// the face's x axis turned into the tangent plane there.
+    pub fn frame_at(&self, at: &Located) -> SurfaceFrame {
+        let patch = &self.patches[at.face];
+        let tri = self.triangles[patch.triangles[at.triangle] as usize];
+        let w = at.weights;
+        let position = std::array::from_fn(|k| {
+            (0..3)
+                .map(|c| w[c] * self.nodes_m[tri[c] as usize][k])
+                .sum::<f64>()
+        });
+        let normals = patch.corner_normals[at.triangle];
+        let normal = unit(std::array::from_fn(|k| {
+            (0..3).map(|c| w[c] * normals[c][k]).sum()
+        }));
+        let along = dot(patch.axis_x, normal);
+        let axis_x = unit(std::array::from_fn(|k| patch.axis_x[k] - along * normal[k]));
+        SurfaceFrame {
+            position,
+            normal,
+            axis_x,
+            axis_y: cross(normal, axis_x),
+        }
+    }
+
+    /// Where a point of a face lies, even a little past its edge (for drawing); `None` off the
+    /// surface.
+    pub fn frame(&self, point: &SurfacePoint) -> Option<SurfaceFrame> {
+        let at = self.locate(point).ok()?;
+        Some(self.frame_at(&at))
+    }
+
+    /// The strain tensor (tensor shear) at a located point under `loads`.
+    pub fn strain_tensor(&self, at: &Located, loads: &LoadVector, material: &Material) -> [f64; 6] {
+        let patch = &self.patches[at.face];
+        let tri = self.triangles[patch.triangles[at.triangle] as usize];
+        let mut total = [0.0; 6];
+        for (c, quantity, values) in &self.fields {
+            let l = loads[*c];
+            if l == 0.0 {
+                continue;
+            }
+            let v: [f64; 6] = std::array::from_fn(|k| {
+                (0..3)
+                    .map(|i| at.weights[i] * values[tri[i] as usize][k])
+                    .sum()
+            });
+            let strain = match quantity {
+                TensorQuantity::Strain => v,
+                TensorQuantity::Stress => strain_from_stress(&v, material),
+            };
+            (0..6).for_each(|k| total[k] += l * strain[k]);
+        }
+        total
+    }
+
+    /// The surface state at a located point: the strain tensor turned into the local axes, the
+    /// stress normal to the surface from Hooke's law, and the free thermal strain of a
+    /// temperature change.
+    pub fn state_at(&self, at: &Located, loads: &LoadVector, material: &Material) -> SurfaceState {
+        let t = self.strain_tensor(at, loads, material);
+        let f = self.frame_at(at);
+        let strain = SurfaceStrain::new(
+            quadratic(&t, f.axis_x, f.axis_x),
+            quadratic(&t, f.axis_y, f.axis_y),
+            2.0 * quadratic(&t, f.axis_x, f.axis_y),
+        );
+        let stress = stress_from_strain(&t, material);
+        let state = SurfaceState {
+            strain,
+            thermal_strain: 0.0,
+            normal_stress_pa: quadratic(&stress, f.normal, f.normal),
+        };
+        state.with_free_thermal(material.cte_per_c * loads[LoadComponent::TemperatureChange])
+    }
+
+    /// The largest von Mises stress over the surface nodes (the full tensor, the stress normal
+    /// to the surface included) and the node's place on its face.
+    pub fn peak_von_mises(
+        &self,
+        loads: &LoadVector,
+        material: &Material,
+    ) -> Option<(f64, SurfacePoint)> {
+        let mut best: Option<(f64, usize)> = None;
+        for node in 0..self.nodes_m.len() {
+            let mut total = [0.0; 6];
+            for (c, quantity, values) in &self.fields {
+                let l = loads[*c];
+                if l == 0.0 {
+                    continue;
+                }
+                let strain = match quantity {
+                    TensorQuantity::Strain => values[node],
+                    TensorQuantity::Stress => strain_from_stress(&values[node], material),
+                };
+                (0..6).for_each(|k| total[k] += l * strain[k]);
+            }
+            let vm = von_mises_tensor(&stress_from_strain(&total, material));
+            if vm.is_finite() && best.is_none_or(|(b, _)| vm > b) {
+                best = Some((vm, node));
+            }
+        }
+        let (vm, node) = best?;
+        let (face, [x, s]) = self.node_home[node];
+        Some((vm, SurfacePoint::new(Face::Patch(face as u16), x, s)))
+    }
+
+    /// The surface point nearest to a position in space (within `tolerance_m` of the
+    /// surface), on the face whose plane it lies nearest to: how a position known in the
+    /// model's axes (a closed-form twin, a point picked in 3-D) becomes a gauge position.
+    pub fn point_at(&self, position_m: [f64; 3], tolerance_m: f64) -> Option<SurfacePoint> {
+        let mut best: Option<(f64, SurfacePoint)> = None;
+        for (k, p) in self.patches.iter().enumerate() {
+            let d = sub(position_m, p.origin_m);
+            let flat = [dot(d, p.axis_x), dot(d, p.axis_s)];
+            let Some((triangle, weights)) = p.find(flat, tolerance_m) else {
+                continue;
+            };
+            let at = Located {
+                face: k,
+                triangle,
+                weights,
+            };
+            let q = self.frame_at(&at).position;
+            let gap = dot(sub(q, position_m), sub(q, position_m)).sqrt();
+            if gap <= tolerance_m && best.as_ref().is_none_or(|b| gap < b.0) {
+                best = Some((
+                    gap,
+                    SurfacePoint::new(Face::Patch(k as u16), flat[0], flat[1]),
+                ));
+            }
+        }
+        best.map(|b| b.1)
+    }
+
+    /// The surface under a point of a grid's tangent plane: on the grid's own face (`home`)
+    /// where the point lies over it, else on whichever face lies nearest within `reach_m` (a
+    /// grid may run over a rounded edge onto the next face).
+    pub fn locate_near(&self, home: usize, position_m: [f64; 3], reach_m: f64) -> Option<Located> {
+        if let Some(p) = self.patches.get(home) {
+            let d = sub(position_m, p.origin_m);
+            if let Some((triangle, weights)) = p.find([dot(d, p.axis_x), dot(d, p.axis_s)], 0.0) {
+                return Some(Located {
+                    face: home,
+                    triangle,
+                    weights,
+                });
+            }
+        }
+        let point = self.point_at(position_m, reach_m)?;
+        self.locate(&point).ok()
+    }
+
+    /// The state at a located point in the axes `(axis_x, axis_y)` of another frame (a grid's
+    /// centre) laid onto the tangent plane there: how a grid that runs over a curved surface
+    /// sums what it reads in its own directions.
+    pub fn state_in_axes(
+        &self,
+        at: &Located,
+        (axis_x, axis_y): ([f64; 3], [f64; 3]),
+        loads: &LoadVector,
+        material: &Material,
+    ) -> SurfaceState {
+        let t = self.strain_tensor(at, loads, material);
+        let f = self.frame_at(at);
+        let onto = |a: [f64; 3]| {
+            let d = dot(a, f.normal);
+            unit([
+                a[0] - d * f.normal[0],
+                a[1] - d * f.normal[1],
+                a[2] - d * f.normal[2],
+            ])
+        };
+        let ex = onto(axis_x);
+        let ey = {
+            let y = onto(axis_y);
+            let d = dot(y, ex);
+            unit([y[0] - d * ex[0], y[1] - d * ex[1], y[2] - d * ex[2]])
+        };
+        let stress = stress_from_strain(&t, material);
+        SurfaceState {
+            strain: SurfaceStrain::new(
+                quadratic(&t, ex, ex),
+                quadratic(&t, ey, ey),
+                2.0 * quadratic(&t, ex, ey),
+            ),
+            thermal_strain: 0.0,
+            normal_stress_pa: quadratic(&stress, f.normal, f.normal),
+        }
+        .with_free_thermal(material.cte_per_c * loads[LoadComponent::TemperatureChange])
+    }
+
+    /// How many surface facets (element faces) the given points of one face fall on.
+    pub fn facets_under(&self, points: &[SurfacePoint]) -> usize {
+        let mut seen: Vec<u32> = points
+            .iter()
+            .filter_map(|p| self.locate(p).ok())
+            .map(|at| self.facet[self.patches[at.face].triangles[at.triangle] as usize])
+            .collect();
+        seen.sort_unstable();
+        seen.dedup();
+        seen.len()
+    }
+
+    /// Typical edge length of the surface triangles of a face, metres (the mesh size there).
+    pub fn mesh_size_m(&self, face: usize) -> Option<f64> {
+        let p = self.patches.get(face)?;
+        Some((2.0 * p.area_m2 / p.triangles.len().max(1) as f64).sqrt())
+    }
+}
+
+fn check_fields(mesh: &RawMesh, fields: &[UnitField]) -> Result<()> {
+    if fields.is_empty() {
+        return Err(bad_mesh(
+            "no unit load is given; import at least one result file",
+        ));
+    }
+    for (i, f) in fields.iter().enumerate() {
+        if f.component == LoadComponent::TemperatureChange {
+            return Err(bad_mesh(
+                "a temperature change cannot be an imported unit load (the free thermal \
+                 expansion is added from the material); name a mechanical load",
+            ));
+        }
+        if fields[..i].iter().any(|g| g.component == f.component) {
+            return Err(bad_mesh(&format!(
+                "two results are given for the {}; give one result per load",
+                f.component.name()
+            )));
+        }
+        if f.values.len() != mesh.points_m.len() {
+            return Err(bad_mesh(&format!(
+                "the result for the {} has {} values but the mesh has {} points; the field \
+                 and the mesh do not belong together",
+                f.component.name(),
+                f.values.len(),
+                mesh.points_m.len()
+            )));
+        }
+        if let Some(n) = f
+            .values
+            .iter()
+            .position(|v| v.iter().any(|x| !x.is_finite()))
+        {
+            return Err(bad_mesh(&format!(
+                "the result for the {} is not a number at point {}; repair the export",
+                f.component.name(),
+                n + 1
+            )));
+        }
+    }
+    Ok(())
+}
+
+/// Each node's face and flat coordinates (from the first face that uses it).
+fn home_of_nodes(n: usize, triangles: &[[u32; 3]], patches: &[Patch]) -> Vec<(u32, [f64; 2])> {
+    let mut home = vec![(u32::MAX, [0.0; 2]); n];
+    for (k, p) in patches.iter().enumerate() {
+        for (local, &t) in p.triangles.iter().enumerate() {
+            for (c, &v) in triangles[t as usize].iter().enumerate() {
+                if home[v as usize].0 == u32::MAX {
+                    home[v as usize] = (k as u32, p.corners[local][c]);
+                }
+            }
+        }
+    }
+    home.iter()
+        .map(|h| if h.0 == u32::MAX { (0, [0.0; 2]) } else { *h })
+        .collect()
+}
+
+fn digest_of(
+    nodes: &[[f64; 3]],
+    triangles: &[[u32; 3]],
+    fields: &[(LoadComponent, TensorQuantity, Vec<[f64; 6]>)],
+    reference: ReferenceAxis,
+) -> u64 {
+    let mut h = 0xcbf2_9ce4_8422_2325_u64;
+    for p in nodes {
+        p.iter().for_each(|v| mix(&mut h, v.to_bits()));
+    }
+    for t in triangles {
+        t.iter().for_each(|&v| mix(&mut h, u64::from(v)));
+    }
+    for (c, q, values) in fields {
+        mix(
+            &mut h,
+            ((c.index() as u64) << 16) | ((*q as u64) << 8) | reference as u64,
+        );
+        for v in values {
+            v.iter().for_each(|x| mix(&mut h, x.to_bits()));
+        }
+    }
+    h
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::imported::mesh::{Cell, CellKind};
+
+    /// A block of `n × n × n` hexahedra, `size` on each side, from the origin.
+    fn block(n: u32, size: [f64; 3]) -> RawMesh {
+        let id = |i: u32, j: u32, k: u32| (k * (n + 1) + j) * (n + 1) + i;
+        let mut points_m = Vec::new();
+        for k in 0..=n {
+            for j in 0..=n {
+                for i in 0..=n {
+                    let f = |c: u32, s: f64| c as f64 / n as f64 * s;
+                    points_m.push([f(i, size[0]), f(j, size[1]), f(k, size[2])]);
+                }
+            }
+        }
+        let mut cells = Vec::new();
+        for k in 0..n {
+            for j in 0..n {
+                for i in 0..n {
+                    let nodes = vec![
+                        id(i, j, k),
+                        id(i + 1, j, k),
+                        id(i + 1, j + 1, k),
+                        id(i, j + 1, k),
+                        id(i, j, k + 1),
+                        id(i + 1, j, k + 1),
+                        id(i + 1, j + 1, k + 1),
+                        id(i, j + 1, k + 1),
+                    ];
+                    cells.push(Cell {
+                        kind: CellKind::Hexa,
+                        nodes,
+                    });
+                }
+            }
+        }
+        RawMesh { points_m, cells }
+    }
+
+    fn steel() -> Material {
+        Material::new("m", 200e9, 0.3, 12e-6, 300e6).unwrap()
+    }
+
+    /// A uniform stress σxx = 1 Pa per unit load, given as stress.
+    fn uniaxial(mesh: &RawMesh) -> UnitField {
+        UnitField {
+            component: LoadComponent::AxialForce,
+            quantity: TensorQuantity::Stress,
+            values: vec![[1.0, 0.0, 0.0, 0.0, 0.0, 0.0]; mesh.points_m.len()],
+        }
+    }
+
+    #[test]
+    fn a_block_has_six_faces_with_outward_normals() {
+        let mesh = block(3, [0.3, 0.2, 0.1]);
+        let f = SurfaceField::new(&mesh, vec![uniaxial(&mesh)], ReferenceAxis::X).unwrap();
+        assert_eq!(f.patches().len(), 6);
+        // Largest first: the two 0.3 × 0.2 faces (normals ±z).
+        assert!(f.patches()[0].normal[2].abs() > 0.999);
+        assert!((f.patches()[0].area_m2 - 0.06).abs() < 1e-12);
+        for p in f.patches() {
+            // The normal points away from the block's centre (0.15, 0.1, 0.05).
+            let out = sub(p.origin_m, [0.15, 0.1, 0.05]);
+            assert!(dot(out, p.normal) > 0.0);
+            // x, s and the normal are right-handed.
+            assert!(dot(cross(p.axis_x, p.axis_s), p.normal) > 0.999);
+        }
+    }
+
+    #[test]
+    fn a_point_found_in_space_comes_back_to_the_same_place() {
+        let mesh = block(4, [0.4, 0.2, 0.1]);
+        let f = SurfaceField::new(&mesh, vec![uniaxial(&mesh)], ReferenceAxis::X).unwrap();
+        let top = [0.13, 0.07, 0.1];
+        let p = f.point_at(top, 1e-9).unwrap();
+        let frame = f.frame(&p).unwrap();
+        for (got, want) in frame.position.iter().zip(top) {
+            assert!((got - want).abs() < 1e-12);
+        }
+        assert_eq!(frame.normal, [0.0, 0.0, 1.0]);
+        // Off the surface (inside the block) there is no point.
+        assert!(f.point_at([0.2, 0.1, 0.05], 1e-6).is_none());
+        // A point beyond a face's edge is refused with the face named.
+        let off = SurfacePoint::new(p.face, 5.0, 0.0);
+        let e = f.locate(&off).unwrap_err().to_string();
+        assert!(e.contains("is not on face"), "{e}");
+    }
+
+    #[test]
+    fn a_grid_at_an_angle_reads_the_stretch_of_a_segment() {
+        // Independent route: the affine displacement u = ε·X of the uniform strain stretches a
+        // short segment along d by |ε·d + d| − 1 (definition of normal strain, Gere & Goodno,
+        // *Mechanics of Materials*, §1.2), against the code's tensor turned into the face.
+        let m = steel();
+        let mesh = block(2, [0.2, 0.2, 0.2]);
+        let f = SurfaceField::new(&mesh, vec![uniaxial(&mesh)], ReferenceAxis::X).unwrap();
+        let top = f.point_at([0.1, 0.1, 0.2], 1e-9).unwrap();
+        let at = f.locate(&top).unwrap();
+        let loads = LoadVector::unit(LoadComponent::AxialForce).scaled(100e6);
+        let state = f.state_at(&at, &loads, &m);
+        // ε = σ/E along X, −νσ/E across (Hooke), as a small displacement gradient.
+        let (ex, et) = (100e6 / 200e9, -0.3 * 100e6 / 200e9);
+        for deg in [0.0_f64, 30.0, 45.0, 90.0, 135.0] {
+            let (s, c) = deg.to_radians().sin_cos();
+            let stretched = [c * (1.0 + ex), s * (1.0 + et), 0.0];
+            let expected = dot(stretched, stretched).sqrt() - 1.0;
+            let got = state.strain.along(deg.to_radians());
+            // The segment's stretch carries second-order terms of order ε² (2.5e-7 here); the
+            // small-strain reading leaves them out.
+            assert!(
+                (got - expected).abs() < ex * ex,
+                "{deg}°: {got} vs {expected}"
+            );
+        }
+        // The free top surface carries no normal stress.
+        assert!(state.normal_stress_pa.abs() < 1e-6);
+    }
+
+    #[test]
+    fn results_that_do_not_fit_the_mesh_are_refused_with_the_place() {
+        let mesh = block(1, [0.1, 0.1, 0.1]);
+        let mut short = uniaxial(&mesh);
+        short.values.pop();
+        let e = SurfaceField::new(&mesh, vec![short], ReferenceAxis::X).unwrap_err();
+        assert!(
+            e.to_string().contains("7 values but the mesh has 8 points"),
+            "{e}"
+        );
+        let mut nan = uniaxial(&mesh);
+        nan.values[4][2] = f64::NAN;
+        let e = SurfaceField::new(&mesh, vec![nan], ReferenceAxis::X).unwrap_err();
+        assert!(e.to_string().contains("not a number at point 5"), "{e}");
+    }
+
+    #[test]
+    fn the_peak_von_mises_is_found_at_a_node() {
+        let m = steel();
+        let mesh = block(2, [0.2, 0.2, 0.2]);
+        let mut field = uniaxial(&mesh);
+        field.values[13] = [3.0, 0.0, 0.0, 0.0, 0.0, 0.0]; // the centre node: inside
+        field.values[0] = [2.0, 0.0, 0.0, 0.0, 0.0, 0.0]; // a corner: on the surface
+        let f = SurfaceField::new(&mesh, vec![field], ReferenceAxis::X).unwrap();
+        let loads = LoadVector::unit(LoadComponent::AxialForce).scaled(10e6);
+        let (vm, p) = f.peak_von_mises(&loads, &m).unwrap();
+        // Uniaxial stress: von Mises equals it (Shigley's §5-5); the inner node is not seen.
+        assert!((vm - 20e6).abs() < 1.0, "{vm}");
+        let pos = f.frame(&p).unwrap().position;
+        assert!(pos.iter().all(|v| v.abs() < 1e-12), "{pos:?}");
+    }
+}
