@@ -26,6 +26,8 @@ pub enum ModelKind {
     PlateWithHole,
     /// A uniform state entered by the engineer.
     GivenState,
+    /// Imported finite-element results (made by importing them, not from defaults).
+    ImportedField,
 }
 
 impl ModelKind {
@@ -50,6 +52,7 @@ impl ModelKind {
             Member::ThickCylinder(_) => ModelKind::ThickCylinder,
             Member::PlateWithHole(_) => ModelKind::PlateWithHole,
             Member::GivenState(_) => ModelKind::GivenState,
+            Member::ImportedField(_) => ModelKind::ImportedField,
         }
     }
 
@@ -110,6 +113,16 @@ impl ModelKind {
                 width_m: 0.05,
                 material,
             }),
+            ModelKind::ImportedField => {
+                Member::ImportedField(gw_mechanics::imported::ImportedSurface {
+                    material,
+                    reference_axis: Default::default(),
+                    loads: Vec::new(),
+                    mesh_file: None,
+                    field: Default::default(),
+                    read_notes: Vec::new(),
+                })
+            }
         }
     }
 }
@@ -138,9 +151,16 @@ pub fn first_load_case(member: &Member) -> LoadCase {
         LoadComponent::RemoteStressX,
         LoadComponent::GivenStateFactor,
     ];
+    let carried = member.components();
     let component = preferred
         .into_iter()
-        .find(|c| member.components().contains(c))
+        .find(|c| carried.contains(c))
+        .or_else(|| {
+            carried
+                .iter()
+                .copied()
+                .find(|&c| c != LoadComponent::TemperatureChange)
+        })
         .unwrap_or(LoadComponent::TemperatureChange);
     let value = match component {
         LoadComponent::AxialForce | LoadComponent::VerticalForce => 1000.0,

@@ -318,9 +318,11 @@ pub fn evaluate(project: &Project, options: &EvalOptions) -> Evaluation {
     let mut findings = Vec::new();
     let mut parts = Vec::new();
     for (pi, part) in project.parts.iter().enumerate() {
-        let checked = validate_part(part, &project.gauge_stock).and_then(|()| {
-            crate::validate::validate_temperatures(part, project.reference_temperature_c)
-        });
+        let checked = validate_part(part, &project.gauge_stock)
+            .and_then(|()| {
+                crate::validate::validate_temperatures(part, project.reference_temperature_c)
+            })
+            .and_then(|()| crate::imported_part::readiness(part));
         if let Err(e) = checked {
             findings.push(Finding {
                 severity: Severity::Error,
@@ -542,7 +544,7 @@ fn multi_axis_of(
     pi: usize,
     findings: &mut Vec<Finding>,
 ) -> Option<MultiAxis> {
-    let multi = match multi_axis(models, part.member.components()) {
+    let multi = match multi_axis(models, &part.member.components()) {
         Ok(m) => m,
         Err(e) => {
             findings.push(Finding {
@@ -1071,7 +1073,7 @@ fn sensitivities_of(
     gf_bf: f64,
 ) -> Result<Vec<Sensitivity>, gw_bridge::BridgeError> {
     let mut sensitivities = Vec::new();
-    for &c in member.components() {
+    for &c in member.components().iter() {
         let s = model.sensitivity(c)?;
         sensitivities.push(Sensitivity {
             component: c,

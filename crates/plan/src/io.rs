@@ -118,10 +118,13 @@ pub fn project_to_string(project: &Project) -> Result<String, PlanError> {
 pub const MAX_PROJECT_BYTES: u64 = 64 << 20;
 
 /// Reads a project file: a regular file of at most [`MAX_PROJECT_BYTES`], UTF-8 (a byte-order
-/// mark is allowed).
+/// mark is allowed). The results of imported parts are then read from their files (names
+/// relative to the project's folder); a part whose results cannot be read keeps the reason.
 pub fn load_project(path: &Path) -> Result<Project, PlanError> {
     let text = read_project_text(path)?;
-    project_from_str(&text)
+    let mut project = project_from_str(&text)?;
+    crate::imported_part::attach_fields(&mut project, path.parent());
+    Ok(project)
 }
 
 /// The text of a project file, bounded and checked before anything is parsed.

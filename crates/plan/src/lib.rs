@@ -25,6 +25,8 @@ pub mod edit;
 pub mod evaluate;
 pub mod finite;
 pub mod gallery;
+pub mod import;
+pub mod imported_part;
 pub mod installation;
 pub mod io;
 pub mod marked;

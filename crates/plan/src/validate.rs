@@ -338,9 +338,13 @@ fn validate_gauges(part: &Part, stock: &[StockGauge], here: &str) -> Result<(), 
             .spec
             .validate()
             .map_err(|e| invalid(format!("{at} › lot values"), e.to_string()))?;
-        part.member
-            .state(&gauge.position, &LoadVector::ZERO)
-            .map_err(|e| invalid(at.clone(), e.to_string()))?;
+        // Where the results of an imported part are not read, its gauges cannot be placed on
+        // them: the evaluation says so at the part, and the file stays editable.
+        if crate::imported_part::is_ready(&part.member) {
+            part.member
+                .state(&gauge.position, &LoadVector::ZERO)
+                .map_err(|e| invalid(at.clone(), e.to_string()))?;
+        }
         let degrees = gauge.angle_rad.to_degrees();
         if !(degrees.is_finite() && degrees.abs() <= 360.0) {
             return Err(invalid(

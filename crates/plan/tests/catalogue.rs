@@ -68,7 +68,7 @@ fn every_entry_on_every_part_reads_its_wanted_load_positively_and_cancels_what_i
     let mut checked = 0;
     for (pi, part) in project.parts.iter().enumerate() {
         let spec = catalogue_spec(&project, part);
-        for &wanted in part.member.components() {
+        for &wanted in part.member.components().iter() {
             if wanted == LoadComponent::TemperatureChange {
                 continue;
             }
@@ -92,7 +92,7 @@ fn every_entry_on_every_part_reads_its_wanted_load_positively_and_cancels_what_i
                     .split("; ")
                     .find_map(|p| p.strip_prefix("it also reads "))
                     .unwrap_or("");
-                for &c in part.member.components() {
+                for &c in part.member.components().iter() {
                     if c == wanted || c == LoadComponent::TemperatureChange {
                         continue;
                     }

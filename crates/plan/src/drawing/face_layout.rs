@@ -656,7 +656,7 @@ impl Neighbour {
     /// The edge's name as the face view shows it; `length` formats an x position.
     pub fn label(&self, length: &dyn Fn(f64) -> String) -> String {
         match self {
-            Neighbour::Face(f) => f.name().to_owned(),
+            Neighbour::Face(f) => f.name().into_owned(),
             Neighbour::FlangeTip { toward } => match toward {
                 Face::Front => "flange edge, front (−y)".to_owned(),
                 _ => "flange edge, back (+y)".to_owned(),
@@ -838,7 +838,8 @@ pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
                 at: s_line(s_range.0),
             },
         ),
-        (Member::GivenState(_), _) | (_, Face::Plate) => (
+        (Member::GivenState(_) | Member::ImportedField(_), _)
+        | (_, Face::Plate | Face::Patch(_)) => (
             Neighbour::RegionEdge {
                 at: s_line(s_range.1),
             },
@@ -902,7 +903,7 @@ fn ends(member: &Member, x_range: (f64, f64)) -> (Neighbour, Neighbour) {
                 at: x_line(x_range.1),
             },
         ),
-        Member::GivenState(_) => (
+        Member::GivenState(_) | Member::ImportedField(_) => (
             Neighbour::RegionEdge {
                 at: x_line(x_range.0),
             },

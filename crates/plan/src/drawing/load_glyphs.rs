@@ -46,6 +46,7 @@ fn arrow_length(member: &Member) -> f64 {
         Member::ThinSphere(s) => 0.25 * s.outer_diameter_m,
         Member::PlateWithHole(p) => 0.15 * p.width_m.max(p.height_m),
         Member::GivenState(g) => 0.15 * g.length_m.max(g.width_m),
+        Member::ImportedField(_) => 0.0,
     }
 }
 
@@ -83,6 +84,8 @@ pub fn load_glyphs(member: &Member, loads: &LoadVector) -> Vec<LoadGlyph> {
             Member::PlateWithHole(_) | Member::GivenState(_) => {
                 plate_glyphs(member, component, value, sign, len)
             }
+            // Where the loads of an imported result act is known to its model only.
+            Member::ImportedField(_) => Vec::new(),
         };
         out.extend(glyphs);
     }

@@ -8,6 +8,10 @@ use gw_mechanics::{
     SurfaceQuantity, VesselEnds, quantity_of,
 };
 
+use std::collections::HashMap;
+
+use gw_mechanics::imported::SurfaceField;
+
 use super::contour::grid_triangles;
 
 /// What a triangle belongs to.
@@ -65,6 +69,12 @@ impl PartMesh {
     /// The mesh of a member.
     pub fn of(member: &Member) -> Self {
         let mut b = PartMesh::default();
+        if let Member::ImportedField(m) = member {
+            if let Some(field) = m.surface() {
+                b.imported_surface(field);
+            }
+            return b;
+        }
         for extent in member.faces() {
             if extent.hole_radius_m.is_none() {
                 b.face_patch(member, extent.face, extent.x_range_m, extent.s_range_m);
@@ -97,8 +107,47 @@ impl PartMesh {
                 let (hx, hy) = (g.length_m / 2.0, g.width_m / 2.0);
                 b.slab_sides([-hx, -hy, -t], [hx, hy, 0.0], true);
             }
+            Member::ImportedField(_) => {}
         }
         b
+    }
+
+    /// An imported surface as it was meshed: every face with its own vertices (so that the
+    /// shading breaks at its edges) and its outline (the edges used by one of its triangles).
+    fn imported_surface(&mut self, field: &SurfaceField) {
+        let nodes = field.nodes_m();
+        for (k, patch) in field.patches().iter().enumerate() {
+            let face = Face::Patch(k as u16);
+            let mut outline: HashMap<(u32, u32), (u32, u32, u32)> = HashMap::new();
+            for (local, &t) in patch.triangles.iter().enumerate() {
+                let tri = field.triangles()[t as usize];
+                let first = self.positions.len() as u32;
+                for c in 0..3 {
+                    self.positions.push(nodes[tri[c] as usize]);
+                    self.normals.push(patch.corner_normals[local][c]);
+                    let [x, s] = patch.corners[local][c];
+                    self.points.push(Some(SurfacePoint::new(face, x, s)));
+                }
+                self.triangles.push([first, first + 1, first + 2]);
+                self.regions.push(Region::Face(face));
+                for c in 0..3 {
+                    let (a, b) = (tri[c], tri[(c + 1) % 3]);
+                    let entry = outline.entry((a.min(b), a.max(b))).or_insert((
+                        0,
+                        first + c as u32,
+                        first + (c as u32 + 1) % 3,
+                    ));
+                    entry.0 += 1;
+                }
+            }
+            let mut lines: Vec<_> = outline
+                .into_values()
+                .filter(|e| e.0 == 1)
+                .map(|(_, a, b)| (Region::Face(face), vec![a, b]))
+                .collect();
+            lines.sort_by_key(|l| l.1[0]);
+            self.edges.extend(lines);
+        }
     }
 
     /// Smallest and largest corner of the box around the mesh.

@@ -68,6 +68,7 @@ pub(crate) fn part_description(part: &Part, units: Units) -> String {
             mm(g.length_m),
             mm(g.width_m)
         ),
+        Member::ImportedField(f) => imported_words(f, units),
     };
     format!(
         "{dims}. Material {} (yield {}).",
@@ -184,7 +185,7 @@ fn gauge_rows(project: &Project, part: &Part, units: Units) -> Vec<Vec<String>> 
             mm(s.grid_length_m),
             format!("{:.1} Ω", s.resistance_ohm),
             format!("{:.3}", s.gauge_factor),
-            g.position.face.name().to_owned(),
+            g.position.face.name().into_owned(),
             mm(g.position.x_m - part.datum_m.0),
             mm(g.position.s_m - part.datum_m.1),
             grid_angles(g),
@@ -251,4 +252,42 @@ pub(crate) fn draw(w: &mut Writer, project: &Project, part: &Part, pe: &PartEval
         &[0.6, 1.3, 0.7, 0.9, 0.7, 1.1, 0.9, 0.9, 1.2, 1.3],
         &gauge_rows(project, part, units),
     );
+}
+
+/// An imported part in words: its size, mesh and the results it rests on.
+fn imported_words(f: &gw_mechanics::imported::ImportedSurface, units: Units) -> String {
+    let Some(field) = f.surface() else {
+        return "A part from imported finite-element results (not read)".to_owned();
+    };
+    let (lo, hi) = field.nodes_m().iter().fold(
+        ([f64::INFINITY; 3], [f64::NEG_INFINITY; 3]),
+        |(lo, hi), p| {
+            (
+                std::array::from_fn(|k| lo[k].min(p[k])),
+                std::array::from_fn(|k| hi[k].max(p[k])),
+            )
+        },
+    );
+    let results: Vec<String> = f
+        .loads
+        .iter()
+        .map(|l| {
+            let name = if l.name.is_empty() {
+                l.component.name()
+            } else {
+                l.name.as_str()
+            };
+            format!("{name} ({}, per {})", l.file, l.component.unit())
+        })
+        .collect();
+    format!(
+        "A part from imported finite-element results, {} × {} × {} overall, {} surface nodes on \
+         {} faces; results: {}",
+        len(units, hi[0] - lo[0]),
+        len(units, hi[1] - lo[1]),
+        len(units, hi[2] - lo[2]),
+        field.node_count(),
+        field.patches().len(),
+        results.join("; ")
+    )
 }

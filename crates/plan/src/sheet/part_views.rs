@@ -77,6 +77,7 @@ fn arrangement(member: &Member) -> Vec<(View, usize, usize)> {
             (View::top("Plan view (from above)"), 0, 0),
             (View::side("Edge view (from the front)"), 1, 0),
         ],
+        Member::ImportedField(_) => vec![(View::isometric("Isometric view"), 0, 0)],
     }
 }
 
@@ -163,6 +164,9 @@ fn held(member: &Member) -> &'static str {
             "the remote stress acts at the plate's edges, away from the hole; no clamp drawn"
         }
         Member::GivenState(_) => "a region of a larger part whose surface state is given",
+        Member::ImportedField(_) => {
+            "held and loaded as in the finite-element model the results come from"
+        }
     }
 }
 
@@ -178,6 +182,10 @@ fn axes_words(member: &Member) -> &'static str {
         }
         Member::GivenState(_) => {
             "x and y in the region's plane from its centre, z up out of the face"
+        }
+        Member::ImportedField(_) => {
+            "X, Y, Z as in the finite-element model; on each face x follows the reference axis \
+             projected onto the face, s at right angles to it"
         }
         Member::Beam(b) if b.section.radii_m().is_some() => {
             "x along the member from the x = 0 end, y towards the back, z up; s round the \

@@ -373,6 +373,9 @@ impl FaceSetup {
             Face::Round => "seen from outside, the surface unrolled flat: position x along \
                             the axis across, arc length s round the surface up"
                 .into(),
+            Face::Patch(_) => "seen from outside, square to the face's mean plane: x along the \
+                               reference axis across, s up"
+                .into(),
             Face::Plate => "seen square to the face, from the side the gauges are on".into(),
         }
     }

@@ -55,6 +55,23 @@ impl View {
         }
     }
 
+    /// Seen from the front, right and above at once (isometric: the three axes equally
+    /// foreshortened), for parts with no main axis.
+    pub fn isometric(title: &'static str) -> Self {
+        let (a, b, c) = (
+            std::f64::consts::FRAC_1_SQRT_2,
+            1.0 / 6f64.sqrt(),
+            1.0 / 3f64.sqrt(),
+        );
+        Self {
+            title,
+            right: [a, a, 0.0],
+            up: [-b, b, 2.0 * b],
+            toward: [c, -c, c],
+            along_axis: false,
+        }
+    }
+
     pub fn end(title: &'static str) -> Self {
         Self {
             title,
