@@ -7,6 +7,7 @@ use crate::panels::bridges::BridgesPanel;
 use crate::panels::face_view::FaceView;
 use crate::panels::findings::FindingsPanel;
 use crate::panels::help::HelpPanel;
+use crate::panels::import_field::{ImportFieldDialog, ImportOutcome};
 use crate::panels::inspector::InspectorPanel;
 use crate::panels::map::MapSettings;
 use crate::panels::new_project::{NewProjectDialog, NewProjectOutcome};
@@ -129,6 +130,8 @@ pub enum Modal {
     Recover(PathBuf),
     /// Describe the first part of a new project.
     NewProject,
+    /// Import finite-element results as a new part.
+    ImportField,
 }
 
 /// Autosave interval, seconds.
@@ -147,6 +150,8 @@ pub struct GaugewrightApp {
     tree: TreePanel,
     inspector: InspectorPanel,
     new_project: NewProjectDialog,
+    /// The "Import finite-element results" window's state.
+    pub import_field: ImportFieldDialog,
     /// What the colour maps show (shared by the part and face views).
     pub map: MapSettings,
     part_view: PartView,
@@ -219,6 +224,7 @@ impl GaugewrightApp {
             tree: TreePanel::default(),
             inspector: InspectorPanel::default(),
             new_project: NewProjectDialog::default(),
+            import_field: ImportFieldDialog::default(),
             map: MapSettings::default(),
             part_view: PartView::default(),
             face_view: FaceView::default(),
@@ -529,6 +535,16 @@ impl GaugewrightApp {
             self.pick_sheet();
         }
         ui.separator();
+        if ui
+            .button("Import finite-element results…")
+            .on_hover_text(
+                "Add a part made from strain or stress results of a finite-element model, one \
+                 file per unit load (.vtu, .vtk or CSV)",
+            )
+            .clicked()
+        {
+            self.modal = Some(Modal::ImportField);
+        }
         self.test_files_menu_ui(ui);
     }
 
@@ -618,6 +634,38 @@ impl GaugewrightApp {
                 self.modal = None;
             }
             Some(NewProjectOutcome::Cancel) => self.modal = None,
+            None => {}
+        }
+    }
+
+    /// The import window: an added part joins the project (one undo step) and is selected.
+    fn import_field_modal_ui(&mut self, ui: &mut egui::Ui) {
+        let folder = self
+            .doc
+            .path
+            .as_ref()
+            .and_then(|p| p.parent())
+            .map(|p| p.to_path_buf());
+        let native = self.dialogs == FileDialogs::Native;
+        match self.import_field.ui(ui.ctx(), folder, native) {
+            Some(ImportOutcome::Add(part)) => {
+                let mut project = self.doc.project.clone();
+                project.parts.push(*part);
+                let index = project.parts.len() - 1;
+                self.doc.apply_all(vec![Command::Edit {
+                    project: Box::new(project),
+                    focus: Some(gw_plan::edit::Item::Part(index)),
+                }]);
+                self.doc.notice = Some(Notice {
+                    is_error: false,
+                    text: "Imported part added: open a face from the part view (click it) to \
+                           place gauges, then wire them in the bridges view."
+                        .into(),
+                });
+                self.import_field = ImportFieldDialog::default();
+                self.modal = None;
+            }
+            Some(ImportOutcome::Cancel) => self.modal = None,
             None => {}
         }
     }
@@ -715,6 +763,10 @@ impl GaugewrightApp {
             self.new_project_modal_ui(ui);
             return;
         }
+        if modal == Modal::ImportField {
+            self.import_field_modal_ui(ui);
+            return;
+        }
         let mut close = false;
         let mut next = None;
         egui::Window::new("Gaugewright")
@@ -735,7 +787,7 @@ impl GaugewrightApp {
                         }
                     });
                 }
-                Modal::NewProject => {}
+                Modal::NewProject | Modal::ImportField => {}
                 Modal::Recover(path) => close = self.recover_ui(ui, &path),
             });
         if close {

@@ -616,6 +616,9 @@ impl DocumentState {
 
     /// Saves to `path` (atomic, with backup).
     pub fn save_to(&mut self, path: &Path) -> bool {
+        // Result files named relative to the old folder are named from the new one.
+        let from = self.path.as_deref().and_then(Path::parent);
+        gw_plan::imported_part::rebase(&mut self.project, from, path.parent());
         match gw_plan::save_project(&self.project, path) {
             Ok(()) => {
                 self.path = Some(path.to_owned());
@@ -650,11 +653,11 @@ impl DocumentState {
     }
 
     /// The load components the selected part carries.
-    pub fn components(&self) -> &'static [LoadComponent] {
+    pub fn components(&self) -> std::borrow::Cow<'static, [LoadComponent]> {
         self.project
             .parts
             .get(self.selection.part)
             .map(|p| p.member.components())
-            .unwrap_or(&[])
+            .unwrap_or_default()
     }
 }

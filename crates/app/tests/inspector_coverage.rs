@@ -70,6 +70,7 @@ fn everything() -> Project {
         };
     }
     p.parts.push(stress);
+    p.parts.push(imported_part());
     let gauge = &mut p.parts[0].gauges[0];
     let mut lot = GaugeLot::from_spec(&p.gauge_stock[0].spec);
     lot.lot_number = "L-1".into();
@@ -93,6 +94,62 @@ fn everything() -> Project {
     p.parts[1].material_key = None;
     p.parts[0].bridges[0].required_accuracy = Some(RequiredAccuracy::PercentOfReading(1.0));
     p
+}
+
+/// A part from imported results (a one-element block read in memory, every optional value of
+/// its result list present).
+fn imported_part() -> Part {
+    use gw_mechanics::imported::*;
+    let points_m: Vec<[f64; 3]> = (0..8)
+        .map(|c| {
+            [
+                f64::from(c & 1) * 0.1,
+                f64::from(c >> 1 & 1) * 0.05,
+                f64::from(c >> 2) * 0.02,
+            ]
+        })
+        .collect();
+    let mesh = RawMesh {
+        points_m,
+        cells: vec![Cell {
+            kind: CellKind::Hexa,
+            nodes: vec![0, 1, 3, 2, 4, 5, 7, 6],
+        }],
+    };
+    let field = SurfaceField::new(
+        &mesh,
+        vec![UnitField {
+            component: gw_mechanics::LoadComponent::VerticalForce,
+            quantity: TensorQuantity::Strain,
+            values: vec![[1e-6, 0.0, 0.0, 0.0, 0.0, 0.0]; 8],
+        }],
+        ReferenceAxis::X,
+    )
+    .unwrap();
+    let surface = ImportedSurface {
+        material: default_material(),
+        reference_axis: ReferenceAxis::X,
+        loads: vec![ImportedLoad {
+            component: gw_mechanics::LoadComponent::VerticalForce,
+            name: "pull".into(),
+            file: "block.vtu".into(),
+            array: Some("strain".into()),
+            units: Some(FieldUnits {
+                length: LengthUnit::Metre,
+                tensor: TensorUnit::StrainRatio,
+                shear: ShearConvention::Tensor,
+            }),
+            checksum: Some("sha256:00".into()),
+        }],
+        mesh_file: Some("block_cells.csv".into()),
+        field: FieldState::Loaded(std::sync::Arc::new(field)),
+        read_notes: Vec::new(),
+    };
+    new_part(
+        "imported",
+        gw_mechanics::Member::ImportedField(surface),
+        None,
+    )
 }
 
 /// Paths of every stored value: names joined by dots, "[]" for list elements.

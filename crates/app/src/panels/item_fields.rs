@@ -783,6 +783,7 @@ fn model_fields(m: &Member) -> Vec<Field<Part>> {
         Member::ThickCylinder(_) => thick_cylinder_fields(),
         Member::PlateWithHole(_) => plate_fields(),
         Member::GivenState(g) => given_fields(g),
+        Member::ImportedField(f) => super::imported_fields::imported_fields(f),
     }
 }
 
@@ -1325,7 +1326,7 @@ pub fn load_case_groups(member: &Member) -> Vec<Group<LoadCase>> {
         |c: &LoadCase| c.name.clone(),
         |c, v| c.name = v,
     )];
-    for &component in member.components() {
+    for &component in member.components().iter() {
         let q = if component == LoadComponent::TemperatureChange {
             Quantity::TemperatureChange
         } else {
@@ -1476,7 +1477,7 @@ pub fn gauge_groups(project: &Project, part: &Part, gauge: &PlanGauge) -> Vec<Gr
                 "position.face",
                 "Face",
                 "The face the gauge sits on",
-                faces.iter().map(|f| f.name().to_owned()).collect(),
+                faces.iter().map(|f| f.name().into_owned()).collect(),
                 move |g: &PlanGauge| faces2.iter().position(|f| *f == g.position.face),
                 {
                     let faces = faces.clone();

@@ -180,6 +180,9 @@ fn model_help(kind: ModelKind) -> &'static str {
         ModelKind::ThickCylinder => "A cylinder whose wall is thick beside its radius (Lamé).",
         ModelKind::PlateWithHole => "A plate with a round hole under remote stress (Kirsch).",
         ModelKind::GivenState => "A uniform surface state you enter, for a part solved elsewhere.",
+        ModelKind::ImportedField => {
+            "Strain or stress results of a finite-element model, one file per unit load."
+        }
     }
 }
 
@@ -546,6 +549,8 @@ fn dimensions(member: &mut Member) -> Vec<Dimension<'_>> {
                 &mut g.width_m,
             ),
         ],
+        // Its size is the mesh's: nothing to type.
+        Member::ImportedField(_) => Vec::new(),
     }
 }
 
@@ -757,6 +762,7 @@ fn draw_member(sk: &Sketch, member: &Member, units: Units, area: Rect) {
         }
         Member::PlateWithHole(p) => draw_plate(sk, p, units, area, views.caption),
         Member::GivenState(g) => draw_patch(sk, g, units, area, views.caption),
+        Member::ImportedField(_) => {}
     }
 }
 

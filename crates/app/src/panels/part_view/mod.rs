@@ -9,7 +9,8 @@ mod overlays;
 mod scene;
 
 use egui::{Color32, Pos2, Rect, Sense, Shape, Vec2, vec2};
-use gw_mechanics::{Face, Member};
+use gw_bridge::GaugePattern;
+use gw_mechanics::{Face, Member, SurfacePoint};
 use gw_plan::drawing::part_mesh::Region;
 
 pub use camera::{Camera, Preset};
@@ -34,6 +35,10 @@ pub struct PartView {
     /// The size of the view at the last fit, while the user has not zoomed or slid since: a
     /// change of the window's size then fits the part again.
     fitted_size: Option<Vec2>,
+    /// A gauge pattern to place where the next click lands (None: a click opens the face).
+    pub placing: Option<GaugePattern>,
+    /// A gauge being dragged over the surface and where it would land.
+    drag: std::cell::Cell<Option<(usize, SurfacePoint)>>,
 }
 
 /// A change of framing waiting for the view's size.
@@ -142,7 +147,36 @@ impl PartView {
                 self.pending = Some(Framing::Selection);
             }
         });
-        ui.horizontal_wrapped(|ui| map.controls_ui(ui, false));
+        ui.horizontal_wrapped(|ui| {
+            map.controls_ui(ui, false);
+            ui.separator();
+            self.placing_ui(ui);
+        });
+    }
+
+    /// "Click to place": the pattern the next click on a face places (or opening the face).
+    fn placing_ui(&mut self, ui: &mut egui::Ui) {
+        let label = ui.label("Click on the part");
+        let name = |p: Option<GaugePattern>| {
+            p.map_or("opens the face".to_owned(), |p| {
+                format!("places a {}", p.name())
+            })
+        };
+        egui::ComboBox::from_id_salt("part view placing")
+            .selected_text(name(self.placing))
+            .show_ui(ui, |ui| {
+                ui.selectable_value(&mut self.placing, None, name(None));
+                for p in GaugePattern::ALL {
+                    ui.selectable_value(&mut self.placing, Some(p), name(Some(p)));
+                }
+            })
+            .response
+            .labelled_by(label.id)
+            .on_hover_text(
+                "Place gauges straight on the 3-D part (the face's x axis is the gauge's 0°; \
+                 drag a placed gauge to move it over the surface, turn it in the inspector or \
+                 the face view)",
+            );
     }
 
     fn zoom_to_gauge(&mut self, doc: &DocumentState, rect: Rect) {
@@ -253,7 +287,18 @@ impl PartView {
         if resp.clicked()
             && let Some(f) = hovered_face
         {
-            actions.open_face = Some(f);
+            match (
+                self.placing,
+                hover.and_then(|(_, hit)| surface_point(scene, hit)),
+            ) {
+                (Some(pattern), Some(position)) => out.push(Command::AddGauge {
+                    part: sel.part,
+                    pattern,
+                    position,
+                    angle_rad: 0.0,
+                }),
+                _ => actions.open_face = Some(f),
+            }
         }
         actions
     }
@@ -357,14 +402,36 @@ impl PartView {
             let handle = ui.interact(
                 Rect::from_center_size(drawn.centre, Vec2::splat(2.0 * reach)),
                 ui.unique_id().with(("part view gauge", gi)),
-                Sense::click(),
+                Sense::click_and_drag(),
             );
+            if handle.dragged()
+                && let Some(p) = handle.interact_pointer_pos()
+            {
+                // Where it would land, shown until the button is let go (one undo step).
+                if let Some(position) = proj
+                    .pick(scene, p)
+                    .and_then(|hit| surface_point(scene, hit))
+                {
+                    self.drag.set(Some((gi, position)));
+                    painter.circle_stroke(p, 6.0, egui::Stroke::new(2.0, super::palette::SELECTED));
+                }
+            }
+            if handle.drag_stopped()
+                && let Some((g, position)) = self.drag.take()
+                && g == gi
+            {
+                out.push(Command::MoveGauge {
+                    part: sel.part,
+                    gauge: gi,
+                    position,
+                });
+            }
             let id = g.id.clone();
             handle.widget_info(|| {
                 egui::WidgetInfo::labeled(egui::Role::Button, true, format!("Gauge {id}"))
             });
             if handle
-                .on_hover_text(format!("{}: click to select", g.id))
+                .on_hover_text(format!("{}: click to select, drag to move", g.id))
                 .clicked()
             {
                 out.push(Command::Select(Selection {
@@ -419,7 +486,7 @@ fn hover_note(
         .zip(w)
         .map(|(&k, w)| scene.values[k as usize].map(|v| v * f64::from(w)))
         .sum();
-    let mut text = crate::panels::capitalise(face.name());
+    let mut text = crate::panels::capitalise(&face.name());
     if let Some(v) = value {
         text += &format!(": {}", scene.key.map.format(v, doc.units));
     }
@@ -441,4 +508,22 @@ fn hover_note(
     let r = Rect::from_min_size(at, size);
     painter.rect_filled(r, 3.0, Color32::from_black_alpha(190));
     painter.galley(r.min + vec2(4.0, 2.0), galley, Color32::WHITE);
+}
+
+/// The surface point under a hit on the mesh: the hit triangle's vertices' points weighted by
+/// where in it the pointer is (all three lie on one face).
+fn surface_point(scene: &Scene, (t, w): (usize, [f32; 3])) -> Option<SurfacePoint> {
+    let tri = scene.mesh.triangles[t];
+    let points: Vec<SurfacePoint> = tri
+        .iter()
+        .map(|&v| scene.mesh.points[v as usize])
+        .collect::<Option<_>>()?;
+    let face = points[0].face;
+    if points.iter().any(|p| p.face != face) {
+        return None;
+    }
+    let blend = |f: fn(&SurfacePoint) -> f64| -> f64 {
+        (0..3).map(|k| f64::from(w[k]) * f(&points[k])).sum()
+    };
+    Some(SurfacePoint::new(face, blend(|p| p.x_m), blend(|p| p.s_m)))
 }

@@ -1,0 +1,125 @@
+//! The inspector's fields of a part made from imported finite-element results: what was read,
+//! the name of each unit load, and where its file is.
+
+use gw_mechanics::Member;
+use gw_mechanics::imported::{FieldState, ImportedSurface};
+use gw_plan::Part;
+
+use super::fields::{Editor, Field};
+
+fn imported(m: &Member) -> Option<&ImportedSurface> {
+    match m {
+        Member::ImportedField(f) => Some(f),
+        _ => None,
+    }
+}
+
+fn imported_mut(m: &mut Member) -> Option<&mut ImportedSurface> {
+    match m {
+        Member::ImportedField(f) => Some(f),
+        _ => None,
+    }
+}
+
+/// What was read, in one line.
+pub fn surface_summary(f: &ImportedSurface) -> String {
+    match &f.field {
+        FieldState::Loaded(s) => format!(
+            "{} surface nodes, {} triangles, {} faces ({})",
+            s.node_count(),
+            s.triangle_count(),
+            s.patches().len(),
+            if s.from_solid() {
+                "outer surface of the solid cells"
+            } else {
+                "shell cells"
+            }
+        ),
+        FieldState::Failed(why) => format!("not read: {why}"),
+        FieldState::NotLoaded => "not read yet".to_owned(),
+    }
+}
+
+fn info(path: &'static str, label: &str, help: &'static str, text: String) -> Field<Part> {
+    Field {
+        path,
+        label: label.to_owned(),
+        help,
+        editor: Editor::Info(text),
+    }
+}
+
+/// The fields of an imported part.
+pub fn imported_fields(f: &ImportedSurface) -> Vec<Field<Part>> {
+    let mut out = vec![
+        info(
+            "member.ImportedField.field",
+            "Surface",
+            "What was read from the result files",
+            surface_summary(f),
+        ),
+        info(
+            "member.ImportedField.reference_axis",
+            "Face x axes follow",
+            "Each face's x axis is this global axis projected onto the face (set when importing; \
+             gauge positions are measured in these axes)",
+            f.reference_axis.name().to_owned(),
+        ),
+    ];
+    if let Some(mesh) = &f.mesh_file {
+        out.push(info(
+            "member.ImportedField.mesh_file",
+            "Cells from",
+            "The mesh whose cells the CSV results are read on",
+            mesh.clone(),
+        ));
+    }
+    for (k, load) in f.loads.iter().enumerate() {
+        out.push(Field {
+            path: "member.ImportedField.loads.name",
+            label: format!("Load {} name", k + 1),
+            help: "What you call this load (shown beside its component)",
+            editor: Editor::Text {
+                multiline: false,
+                get: Box::new(move |p: &Part| {
+                    imported(&p.member)
+                        .and_then(|f| f.loads.get(k))
+                        .map(|l| l.name.clone())
+                        .unwrap_or_default()
+                }),
+                set: Box::new(move |p, v| {
+                    if let Some(l) = imported_mut(&mut p.member).and_then(|f| f.loads.get_mut(k)) {
+                        l.name = v;
+                    }
+                }),
+            },
+        });
+        let units = load
+            .units
+            .map(|u| u.describe())
+            .unwrap_or_else(|| "as stated in the file".to_owned());
+        let array = load
+            .array
+            .as_ref()
+            .map(|a| format!(", array \"{a}\""))
+            .unwrap_or_default();
+        out.push(info(
+            "member.ImportedField.loads.file|member.ImportedField.loads.component|\
+             member.ImportedField.loads.array|member.ImportedField.loads.units|\
+             member.ImportedField.loads.checksum",
+            &format!("Load {} result", k + 1),
+            "The result file of this unit load, its units and its checksum when imported",
+            format!(
+                "per 1 {} of {}: {}{array}; {units}{}",
+                load.component.unit(),
+                load.component.name(),
+                load.file,
+                load.checksum
+                    .as_ref()
+                    .map(|c| format!("; checksum {}", &c[..c.len().min(19)]))
+                    .unwrap_or_default()
+            ),
+        ));
+    }
+    out
+}
