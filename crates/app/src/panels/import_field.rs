@@ -292,8 +292,9 @@ impl ImportFieldDialog {
         self.read.is_some()
     }
 
-    /// Forgets a finished reading (the form changed).
+    /// Forgets a finished reading and its message (the form changed).
     pub fn forget_reading(&mut self) {
         self.read = None;
+        self.message = None;
     }
 }

@@ -63,11 +63,13 @@ impl ImportFieldDialog {
         egui::Window::new("Import finite-element results")
             .collapsible(false)
             .resizable(true)
-            .default_width(720.0)
+            .default_size([760.0, 640.0])
             .anchor(egui::Align2::CENTER_CENTER, [0.0, 0.0])
             .show(ctx, |ui| {
+                // The form scrolls; the message and the buttons stay in sight below it.
+                let form_height = (ctx.content_rect().height() - 300.0).max(200.0);
                 egui::ScrollArea::vertical()
-                    .max_height(ctx.content_rect().height() - 120.0)
+                    .max_height(form_height)
                     .show(ui, |ui| {
                         ui.label(INTRO);
                         ui.add_space(6.0);
@@ -79,9 +81,9 @@ impl ImportFieldDialog {
                         if changed {
                             self.forget_reading();
                         }
-                        ui.separator();
-                        outcome = self.actions_ui(ui, folder, running);
                     });
+                ui.separator();
+                outcome = self.actions_ui(ui, folder, running);
             });
         outcome
     }

@@ -94,31 +94,39 @@ pub fn imported_fields(f: &ImportedSurface) -> Vec<Field<Part>> {
                 }),
             },
         });
-        let units = load
-            .units
-            .map(|u| u.describe())
-            .unwrap_or_else(|| "as stated in the file".to_owned());
         let array = load
             .array
             .as_ref()
-            .map(|a| format!(", array \"{a}\""))
+            .map(|a| format!(" (array \"{a}\")"))
             .unwrap_or_default();
         out.push(info(
             "member.ImportedField.loads.file|member.ImportedField.loads.component|\
-             member.ImportedField.loads.array|member.ImportedField.loads.units|\
-             member.ImportedField.loads.checksum",
-            &format!("Load {} result", k + 1),
-            "The result file of this unit load, its units and its checksum when imported",
+             member.ImportedField.loads.array",
+            &format!("Load {} file", k + 1),
+            "The result file of this unit load (per 1 N, 1 N·m or 1 Pa of its component)",
             format!(
-                "per 1 {} of {}: {}{array}; {units}{}",
-                load.component.unit(),
-                load.component.name(),
+                "{}{array}, per 1 {} of {}",
                 load.file,
-                load.checksum
-                    .as_ref()
-                    .map(|c| format!("; checksum {}", &c[..c.len().min(19)]))
-                    .unwrap_or_default()
+                load.component.unit(),
+                load.component.name()
             ),
+        ));
+        out.push(info(
+            "member.ImportedField.loads.units",
+            &format!("Load {} units", k + 1),
+            "The units the file is read in (stated when importing, or by the file itself)",
+            load.units
+                .map(|u| u.describe())
+                .unwrap_or_else(|| "as stated in the file".to_owned()),
+        ));
+        out.push(info(
+            "member.ImportedField.loads.checksum",
+            &format!("Load {} checksum", k + 1),
+            "The file's SHA-256 when it was imported: a file changed since is named in the findings",
+            load.checksum
+                .as_ref()
+                .map(|c| c.chars().take(23).collect::<String>() + "…")
+                .unwrap_or_else(|| "not recorded".to_owned()),
         ));
     }
     out

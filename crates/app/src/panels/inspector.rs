@@ -181,7 +181,9 @@ fn field_value_ui<T: Clone>(
             picked.map(|i| edited(item, set, i))
         }
         Editor::Info(text) => {
-            ui.label(text).labelled_by(label).on_hover_text(f.help);
+            ui.add(egui::Label::new(text).wrap())
+                .labelled_by(label)
+                .on_hover_text(f.help);
             None
         }
         Editor::InfoInUnits(text) => {

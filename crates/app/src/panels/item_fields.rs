@@ -1173,7 +1173,11 @@ fn material_fields() -> Vec<Field<Part>> {
 
 /// A part: name, model and its sizes, material, requirements, tolerances and datum.
 pub fn part_groups(part: &Part) -> Vec<Group<Part>> {
-    let kinds: Vec<String> = ModelKind::ALL.iter().map(|k| k.name().to_owned()).collect();
+    // An imported part's kind is offered as it is (it is made by importing, not chosen here).
+    let mut kinds: Vec<String> = ModelKind::ALL.iter().map(|k| k.name().to_owned()).collect();
+    if ModelKind::of(&part.member) == ModelKind::ImportedField {
+        kinds.push(part.member.kind_name().to_owned());
+    }
     let mut model = vec![
         text(
             "name",
@@ -1188,9 +1192,11 @@ pub fn part_groups(part: &Part) -> Vec<Group<Part>> {
             "How the part's surface strains are computed; changing it keeps the material and resets the sizes",
             kinds,
             |p: &Part| {
+                let kind = ModelKind::of(&p.member);
                 ModelKind::ALL
                     .iter()
-                    .position(|k| *k == ModelKind::of(&p.member))
+                    .position(|k| *k == kind)
+                    .or((kind == ModelKind::ImportedField).then_some(ModelKind::ALL.len()))
             },
             |p, i| {
                 if let Some(k) = ModelKind::ALL.get(i)

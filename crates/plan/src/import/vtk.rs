@@ -370,12 +370,15 @@ fn units_of(
         notes,
     );
     let (Some(tensor), Some(stated)) = (tensor, stated) else {
-        return Err(ImportError::new(
-            path,
+        let missing = if tensor.is_some() {
+            "the unit of its coordinates and the shear convention are not stated (a VTK file \
+             cannot carry them): state them when importing"
+        } else {
             "its units are not stated: a VTK file cannot carry them. State the coordinates' \
              unit, the values' unit and the shear convention when importing (the values' unit \
-             may also be written in the array's name, e.g. \"strain [um/m]\")",
-        ));
+             may also be written in the array's name, e.g. \"strain [um/m]\")"
+        };
+        return Err(ImportError::new(path, missing));
     };
     Ok(FieldUnits { tensor, ..stated })
 }

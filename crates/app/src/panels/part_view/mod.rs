@@ -147,11 +147,8 @@ impl PartView {
                 self.pending = Some(Framing::Selection);
             }
         });
-        ui.horizontal_wrapped(|ui| {
-            map.controls_ui(ui, false);
-            ui.separator();
-            self.placing_ui(ui);
-        });
+        ui.horizontal_wrapped(|ui| map.controls_ui(ui, false));
+        ui.horizontal_wrapped(|ui| self.placing_ui(ui));
     }
 
     /// "Click to place": the pattern the next click on a face places (or opening the face).
