@@ -18,7 +18,7 @@ use crate::document::{
     Project, RequiredAccuracy, StockGauge, default_gauge_spec, stock_base_name,
 };
 
-fn material(key: &str) -> gw_mechanics::Material {
+pub(crate) fn material(key: &str) -> gw_mechanics::Material {
     library_material(key)
         .map(|m| m.material())
         .unwrap_or_else(|| gw_mechanics::Material {
@@ -41,7 +41,7 @@ fn gauge(id: &str, pattern: GaugePattern, face: Face, x: f64, s: f64, angle_deg:
 }
 
 /// The demo's gauge stock: the default type in each pattern the demo uses.
-fn stock() -> Vec<StockGauge> {
+pub(crate) fn stock() -> Vec<StockGauge> {
     [
         GaugePattern::SingleGrid,
         GaugePattern::ShearPair,
@@ -59,14 +59,14 @@ fn stock() -> Vec<StockGauge> {
     .collect()
 }
 
-fn grid(gauge: &str, grid: usize) -> PlanArm {
+pub(crate) fn grid(gauge: &str, grid: usize) -> PlanArm {
     PlanArm::Grid {
         gauge: gauge.into(),
         grid,
     }
 }
 
-fn completion() -> PlanArm {
+pub(crate) fn completion() -> PlanArm {
     PlanArm::Completion(CompletionResistor {
         ohm: 350.0,
         tolerance: 0.0005,
@@ -88,7 +88,7 @@ fn signal(gain: f64) -> SignalChain {
 }
 
 #[allow(clippy::too_many_arguments)]
-fn bridge(
+pub(crate) fn bridge(
     name: &str,
     arrangement: &str,
     arms: [PlanArm; 4],
@@ -125,7 +125,7 @@ fn bridge(
     }
 }
 
-fn case(
+pub(crate) fn case(
     name: &str,
     loads: &[(LoadComponent, f64)],
     range: (f64, f64),
@@ -142,7 +142,7 @@ fn case(
     }
 }
 
-fn shunt(arm: usize, microstrain: f64) -> Option<ShuntPlan> {
+pub(crate) fn shunt(arm: usize, microstrain: f64) -> Option<ShuntPlan> {
     Some(ShuntPlan {
         arm,
         target_strain: microstrain * 1e-6,

@@ -13,6 +13,7 @@
 pub mod accuracy;
 pub mod arrangements;
 pub mod blank;
+pub mod bracket_example;
 pub mod cautions;
 pub mod channel_list;
 pub mod cli;
