@@ -403,6 +403,10 @@ impl FaceSetup {
                  in the direction the drawing's +s arrow shows"
             }
             Face::Plate => "x and s from the centre of the face",
+            Face::Patch(_) => {
+                "x and s from the face's centroid, x along the reference axis laid onto the face; \
+                 find the datum on the part from the isometric view and the face's edges"
+            }
             _ => "x along the member from its start, s across from the face's centre line",
         }
     }
