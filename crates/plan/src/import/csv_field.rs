@@ -282,9 +282,9 @@ fn element_csv(path: &Path, points: usize) -> Result<Vec<Cell>, ImportError> {
             return Err(ImportError::new(
                 path,
                 format!(
-                    "line {line}: a {kind:?} cell has {} corner nodes, not {}",
-                    kind.corners(),
-                    nodes.len()
+                    "line {line}: the row gives {} nodes but a {kind:?} cell has {} corners",
+                    nodes.len(),
+                    kind.corners()
                 ),
             ));
         }
