@@ -56,7 +56,6 @@ fn gauge_at(
 
 /// The bracket's part, its results read from `folder`; `None` when they cannot be read.
 fn bracket_part(folder: &Path) -> Option<crate::document::Part> {
-    use LoadComponent::*;
     let mut surface = ImportedSurface {
         material: material("carbon_steel"),
         reference_axis: ReferenceAxis::Z,
@@ -111,7 +110,15 @@ fn bracket_part(folder: &Path) -> Option<crate::document::Part> {
         Some("carbon_steel".into()),
     );
     part.gauges = gauges;
-    part.load_cases = vec![
+    part.load_cases = load_cases();
+    part.bridges = bridges();
+    Some(part)
+}
+
+/// The example's load cases: the rated and proof loads down on the arm's end, a side push.
+fn load_cases() -> Vec<crate::document::LoadCase> {
+    use LoadComponent::*;
+    vec![
         case(
             "Rated load",
             &[(VerticalForce, 2000.0)],
@@ -133,7 +140,12 @@ fn bracket_part(folder: &Path) -> Option<crate::document::Part> {
             false,
             true,
         ),
-    ];
+    ]
+}
+
+/// A half bridge across the upright (its outer and inner faces) and one rosette grid on the arm.
+fn bridges() -> Vec<crate::document::BridgePlan> {
+    use LoadComponent::*;
     let mut upright = bridge(
         "Upright bending",
         "Half bridge: the upright's outer and inner faces in adjacent arms",
@@ -157,8 +169,7 @@ fn bracket_part(folder: &Path) -> Option<crate::document::Part> {
         2,
         shunt(0, 500.0),
     );
-    part.bridges = vec![upright, rosette];
-    Some(part)
+    vec![upright, rosette]
 }
 
 /// The example plan, its results read from `folder` (where they ship: `assets/bracket_fe/`);

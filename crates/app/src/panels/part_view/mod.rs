@@ -284,17 +284,10 @@ impl PartView {
         if resp.clicked()
             && let Some(f) = hovered_face
         {
-            match (
-                self.placing,
-                hover.and_then(|(_, hit)| surface_point(scene, hit)),
-            ) {
-                (Some(pattern), Some(position)) => out.push(Command::AddGauge {
-                    part: sel.part,
-                    pattern,
-                    position,
-                    angle_rad: 0.0,
-                }),
-                _ => actions.open_face = Some(f),
+            let hit = hover.and_then(|(_, hit)| surface_point(scene, hit));
+            match place_gauge(self.placing, hit, sel.part) {
+                Some(command) => out.push(command),
+                None => actions.open_face = Some(f),
             }
         }
         actions
@@ -505,6 +498,20 @@ fn hover_note(
     let r = Rect::from_min_size(at, size);
     painter.rect_filled(r, 3.0, Color32::from_black_alpha(190));
     painter.galley(r.min + vec2(4.0, 2.0), galley, Color32::WHITE);
+}
+
+/// The gauge a click places when a pattern is chosen and the click lands on a face.
+fn place_gauge(
+    placing: Option<GaugePattern>,
+    hit: Option<SurfacePoint>,
+    part: usize,
+) -> Option<Command> {
+    Some(Command::AddGauge {
+        part,
+        pattern: placing?,
+        position: hit?,
+        angle_rad: 0.0,
+    })
 }
 
 /// The surface point under a hit on the mesh: the hit triangle's vertices' points weighted by
