@@ -82,7 +82,13 @@ pub fn read_surface(
         });
     }
     let mesh = mesh.ok_or("no result file is named; import at least one unit-load result")?;
-    let surface = SurfaceField::new(&mesh, fields, f.reference_axis).map_err(|e| e.to_string())?;
+    let source = f
+        .mesh_file
+        .as_deref()
+        .or(f.loads.first().map(|l| l.file.as_str()))
+        .unwrap_or_default();
+    let surface = SurfaceField::new(&mesh, fields, f.reference_axis)
+        .map_err(|e| format!("{source}: {e}"))?;
     Ok((surface, notes))
 }
 

@@ -164,18 +164,39 @@ fn column_unit<U: PartialEq + Copy>(
     Ok(unit)
 }
 
-fn reader(path: &Path, headers: bool) -> Result<csv::Reader<std::fs::File>, ImportError> {
+/// The file's bytes (its size was checked before).
+fn contents(path: &Path) -> Result<Vec<u8>, ImportError> {
+    std::fs::read(path).map_err(|e| ImportError::new(path, format!("cannot be read ({e})")))
+}
+
+fn reader(bytes: &[u8], headers: bool) -> csv::Reader<&[u8]> {
     csv::ReaderBuilder::new()
         .comment(Some(b'#'))
         .has_headers(headers)
         .flexible(true)
         .trim(csv::Trim::All)
-        .from_path(path)
-        .map_err(|e| ImportError::new(path, format!("cannot be read ({e})")))
+        .from_reader(bytes)
 }
 
-fn line_of(record: &csv::StringRecord) -> u64 {
-    record.position().map_or(0, |p| p.line())
+/// The line a record is on. The reader puts a record that follows comment or blank lines at
+/// the first of them, so those are stepped over here.
+fn line_of(record: &csv::StringRecord, bytes: &[u8]) -> u64 {
+    let Some(pos) = record.position() else {
+        return 0;
+    };
+    let (mut line, mut at) = (pos.line(), pos.byte() as usize);
+    while at < bytes.len() && matches!(bytes[at], b'#' | b'\n' | b'\r') {
+        let skip = if bytes[at] == b'#' {
+            bytes[at..].iter().position(|&b| b == b'\n').map_or(bytes.len() - at, |n| n + 1)
+        } else {
+            1
+        };
+        if bytes[at] != b'\r' {
+            line += 1;
+        }
+        at += skip;
+    }
+    line
 }
 
 /// The header's layout, then each row's coordinates (in the file's unit) and tensor values.
@@ -183,7 +204,8 @@ type Rows = (Layout, Vec<[f64; 3]>, Vec<[f64; 6]>);
 
 /// The rows of a node CSV.
 fn rows(path: &Path) -> Result<Rows, ImportError> {
-    let mut rdr = reader(path, true)?;
+    let bytes = contents(path)?;
+    let mut rdr = reader(&bytes, true);
     let headers = rdr
         .headers()
         .map_err(|e| ImportError::new(path, format!("its header cannot be read ({e})")))?
@@ -197,7 +219,7 @@ fn rows(path: &Path) -> Result<Rows, ImportError> {
             Ok(true) => {}
             Err(e) => return Err(ImportError::new(path, format!("cannot be read ({e})"))),
         }
-        let line = line_of(&record);
+        let line = line_of(&record, &bytes);
         if record.len() != headers.len() {
             return Err(ImportError::new(
                 path,
@@ -243,7 +265,8 @@ fn rows(path: &Path) -> Result<Rows, ImportError> {
 /// An element CSV: rows "kind,n1,n2,…", node numbers from 1.
 fn element_csv(path: &Path, points: usize) -> Result<Vec<Cell>, ImportError> {
     super::check_file(path)?;
-    let mut rdr = reader(path, false)?;
+    let bytes = contents(path)?;
+    let mut rdr = reader(&bytes, false);
     let mut cells = Vec::new();
     let mut record = csv::StringRecord::new();
     let mut first = true;
@@ -253,7 +276,7 @@ fn element_csv(path: &Path, points: usize) -> Result<Vec<Cell>, ImportError> {
             Ok(true) => {}
             Err(e) => return Err(ImportError::new(path, format!("cannot be read ({e})"))),
         }
-        let line = line_of(&record);
+        let line = line_of(&record, &bytes);
         let kind = match record.get(0).unwrap_or("").to_ascii_lowercase().as_str() {
             "tri" | "triangle" => CellKind::Triangle,
             "quad" => CellKind::Quad,
@@ -304,6 +327,12 @@ fn element_csv(path: &Path, points: usize) -> Result<Vec<Cell>, ImportError> {
             }
         }
         cells.push(Cell { kind, nodes: ids });
+    }
+    if cells.is_empty() {
+        return Err(ImportError::new(
+            path,
+            "has no cell rows; give one row per element: kind,n1,n2,… (node numbers from 1)",
+        ));
     }
     Ok(cells)
 }

@@ -163,10 +163,21 @@ fn mesh_of(
                 ),
             ));
         }
-        let nodes = nodes[..corners]
+        if let Some(&v) = nodes[..corners]
             .iter()
-            .map(|&v| u32::try_from(v).unwrap_or(u32::MAX))
-            .collect();
+            .find(|&&v| usize::try_from(v).map_or(true, |i| i >= points_m.len()))
+        {
+            return Err(ImportError::new(
+                path,
+                format!(
+                    "cell {} names point {v} but the file has {} points (numbered from 0); the \
+                     connectivity does not fit the points: export them together",
+                    c + 1,
+                    points_m.len()
+                ),
+            ));
+        }
+        let nodes = nodes[..corners].iter().map(|&v| v as u32).collect();
         cells.push(Cell { kind, nodes });
     }
     if skipped > 0 {
