@@ -623,9 +623,22 @@ impl DocumentState {
             Ok(()) => {
                 self.path = Some(path.to_owned());
                 self.dirty = false;
+                // The imported surfaces are kept beside the project for a fast reopening; a
+                // cache that cannot be written only makes the next opening read the files.
+                let unkept = gw_plan::imported_part::write_caches(&self.project, path);
+                let text = if unkept.is_empty() {
+                    format!("Saved {}", path.display())
+                } else {
+                    format!(
+                        "Saved {} (the imported surface could not be kept beside it: {}; it is \
+                         read from its result files when the project opens)",
+                        path.display(),
+                        unkept.join("; ")
+                    )
+                };
                 self.notice = Some(Notice {
                     is_error: false,
-                    text: format!("Saved {}", path.display()),
+                    text,
                 });
                 true
             }

@@ -3,7 +3,8 @@
 //! coarse under a grid, a surface that is not free of load).
 
 use std::path::{Path, PathBuf};
-use std::sync::Arc;
+use std::sync::atomic::{AtomicBool, Ordering};
+use std::sync::{Arc, Mutex};
 
 use gw_bridge::PlacedGauge;
 use gw_mechanics::imported::{FieldState, ImportedLoad, ImportedSurface, SurfaceField, UnitField};
@@ -12,6 +13,7 @@ use gw_mechanics::{GridFootprint, LoadComponent, Member, QuadratureOrder};
 use crate::document::{Part, Project};
 use crate::import::{ReadRequest, file_checksum, read_field};
 use crate::marked::{Rounding, mark_rounded};
+use crate::surface_cache;
 use crate::units::Quantity;
 
 /// Fewest element faces a grid should span for the mesh's interpolated field to stand for
@@ -45,17 +47,78 @@ pub fn stored_name(path: &Path, folder: Option<&Path>) -> String {
         .into_owned()
 }
 
-/// Reads every result of an imported part and builds its surface, with notes on what was
-/// found on the way (a file changed since it was imported, values averaged to the nodes).
-pub fn read_surface(
+/// How a reading goes, shared with whoever waits for it: the step it is at, and a way to
+/// stop it between steps.
+#[derive(Debug, Clone, Default)]
+pub struct ReadProgress(Arc<ProgressState>);
+
+#[derive(Debug, Default)]
+struct ProgressState {
+    step: Mutex<(usize, usize, String)>,
+    cancelled: AtomicBool,
+}
+
+impl ReadProgress {
+    /// Steps done, steps in all, and what is being done now.
+    pub fn step(&self) -> (usize, usize, String) {
+        self.0.step.lock().map(|s| s.clone()).unwrap_or_default()
+    }
+
+    /// Asks the reading to stop at its next step.
+    pub fn cancel(&self) {
+        self.0.cancelled.store(true, Ordering::Relaxed);
+    }
+
+    /// Whether the reading was asked to stop.
+    pub fn is_cancelled(&self) -> bool {
+        self.0.cancelled.load(Ordering::Relaxed)
+    }
+
+    /// Starts step `done` + 1 of `of`; refused once the reading is cancelled.
+    fn begin(&self, done: usize, of: usize, what: String) -> Result<(), String> {
+        if self.is_cancelled() {
+            return Err(CANCELLED.to_owned());
+        }
+        if let Ok(mut s) = self.0.step.lock() {
+            *s = (done, of, what);
+        }
+        Ok(())
+    }
+}
+
+/// The message of a reading stopped on request.
+pub const CANCELLED: &str = "the reading was cancelled; nothing was imported";
+
+/// An imported part's results, read.
+#[derive(Debug, Clone)]
+pub struct SurfaceRead {
+    /// The surface with its unit-load fields.
+    pub surface: SurfaceField,
+    /// What was found in the files (values averaged to the nodes, cells left out).
+    pub notes: Vec<String>,
+    /// Each result file's checksum, in the order of the loads.
+    pub checksums: Vec<String>,
+}
+
+/// Reads every result of an imported part and builds its surface.
+pub fn read_surface(f: &ImportedSurface, folder: Option<&Path>) -> Result<SurfaceRead, String> {
+    read_surface_with(f, folder, &ReadProgress::default())
+}
+
+/// [`read_surface`], telling `progress` each step and stopping when it is cancelled.
+pub fn read_surface_with(
     f: &ImportedSurface,
     folder: Option<&Path>,
-) -> Result<(SurfaceField, Vec<String>), String> {
+    progress: &ReadProgress,
+) -> Result<SurfaceRead, String> {
     let mut notes = Vec::new();
     let mut mesh = None;
     let mut fields = Vec::new();
+    let mut checksums = Vec::new();
+    let steps = f.loads.len() + 1;
     let mesh_path = f.mesh_file.as_deref().map(|m| resolve(m, folder));
-    for load in &f.loads {
+    for (k, load) in f.loads.iter().enumerate() {
+        progress.begin(k, steps, format!("reading {}", load.file))?;
         let path = resolve(&load.file, folder);
         let read = read_field(&ReadRequest {
             path: &path,
@@ -64,7 +127,8 @@ pub fn read_surface(
             mesh_path: mesh_path.as_deref(),
         })
         .map_err(|e| format!("{} result: {e}", load.component.name()))?;
-        notes.extend(checksum_note(load, &path));
+        let sum = file_checksum(&path).map_err(|e| format!("{} result: {e}", load.component.name()))?;
+        checksums.push(sum);
         notes.extend(
             read.notes
                 .iter()
@@ -82,6 +146,7 @@ pub fn read_surface(
         });
     }
     let mesh = mesh.ok_or("no result file is named; import at least one unit-load result")?;
+    progress.begin(steps - 1, steps, "finding the outer surface".to_owned())?;
     let source = f
         .mesh_file
         .as_deref()
@@ -89,7 +154,12 @@ pub fn read_surface(
         .unwrap_or_default();
     let surface = SurfaceField::new(&mesh, fields, f.reference_axis)
         .map_err(|e| format!("{source}: {e}"))?;
-    Ok((surface, notes))
+    progress.begin(steps, steps, "done".to_owned())?;
+    Ok(SurfaceRead {
+        surface,
+        notes,
+        checksums,
+    })
 }
 
 /// Refuses results on different meshes: they must share every point.
@@ -131,10 +201,10 @@ fn same_mesh(
     Ok(())
 }
 
-fn checksum_note(load: &ImportedLoad, path: &Path) -> Option<String> {
+/// A note when a result file's checksum is not the one the project recorded at import.
+pub(crate) fn changed_note(load: &ImportedLoad, now: &str) -> Option<String> {
     let stored = load.checksum.as_ref()?;
-    let now = file_checksum(path).ok()?;
-    (now != *stored).then(|| {
+    (now != stored).then(|| {
         format!(
             "the {} result file {} has changed since it was imported; check the readings, \
              then import it again to accept the change",
@@ -196,28 +266,122 @@ pub fn readiness(part: &Part) -> Result<(), crate::io::PlanError> {
     }
 }
 
-/// Reads the results of every imported part of a project whose file lies in `folder`. A part
-/// whose files cannot be read keeps the reason, shown where the part is checked.
-pub fn attach_fields(project: &mut Project, folder: Option<&Path>) {
-    for part in &mut project.parts {
+/// Reads the results of every imported part of the project saved at `project_path` (None:
+/// not saved; names are then taken as given). Each part's surface comes from its cache beside
+/// the project while its sources are unchanged, else from its files, and the cache is then
+/// written again. A part whose files cannot be read keeps the reason, shown where the part is
+/// checked.
+pub fn attach_fields(project: &mut Project, project_path: Option<&Path>) {
+    let folder = project_path.and_then(Path::parent);
+    for (index, part) in project.parts.iter_mut().enumerate() {
         if let Member::ImportedField(f) = &mut part.member {
-            attach(f, folder);
+            let cache = project_path.map(|p| surface_cache::cache_path(p, index, &part.name));
+            let from_cache = cache
+                .as_deref()
+                .and_then(|c| surface_cache::read(c, f, folder))
+                .and_then(|c| {
+                    let surface = SurfaceField::from_surface(c.surface, f.reference_axis).ok()?;
+                    Some(SurfaceRead {
+                        surface,
+                        notes: c.notes,
+                        checksums: c.checksums,
+                    })
+                });
+            let read = match from_cache {
+                Some(read) => Ok(read),
+                None => read_surface(f, folder).inspect(|read| {
+                    if let Some(c) = &cache {
+                        // A cache is a convenience: a project in a folder that cannot be
+                        // written to is simply read from its files each time.
+                        let _ = surface_cache::write(
+                            c,
+                            f,
+                            folder,
+                            &read.surface,
+                            &read.notes,
+                            &read.checksums,
+                        );
+                    }
+                }),
+            };
+            match read {
+                Ok(read) => install(f, read),
+                Err(why) => fail(f, why),
+            }
         }
     }
 }
 
-/// Reads one imported part's results into it.
-pub fn attach(f: &mut ImportedSurface, folder: Option<&Path>) {
-    match read_surface(f, folder) {
-        Ok((surface, notes)) => {
-            f.field = FieldState::Loaded(Arc::new(surface));
-            f.read_notes = notes;
-        }
-        Err(why) => {
-            f.field = FieldState::Failed(why);
-            f.read_notes.clear();
+/// Writes the cache of every imported part whose results are read, beside the project saved
+/// at `project_path`. Returns what could not be written, in words.
+pub fn write_caches(project: &Project, project_path: &Path) -> Vec<String> {
+    let folder = project_path.parent();
+    let mut problems = Vec::new();
+    for (index, part) in project.parts.iter().enumerate() {
+        if let Member::ImportedField(f) = &part.member {
+            let cache = surface_cache::cache_path(project_path, index, &part.name);
+            if let Err(e) = write_cache(&cache, f, folder) {
+                problems.push(format!("part \"{}\": {e}", part.name));
+            }
         }
     }
+    problems
+}
+
+/// Writes one part's cache unless a good one is there: the checksums are taken from the
+/// files, and the notes are the reading's own (not those of files changed since import).
+fn write_cache(cache: &Path, f: &ImportedSurface, folder: Option<&Path>) -> Result<(), String> {
+    let Some(surface) = f.surface() else {
+        return Ok(());
+    };
+    if surface_cache::read(cache, f, folder).is_some() {
+        return Ok(());
+    }
+    let checksums = f
+        .loads
+        .iter()
+        .map(|l| file_checksum(&resolve(&l.file, folder)).map_err(|e| e.to_string()))
+        .collect::<Result<Vec<_>, _>>()?;
+    let changed: Vec<String> = f
+        .loads
+        .iter()
+        .zip(&checksums)
+        .filter_map(|(load, sum)| changed_note(load, sum))
+        .collect();
+    let notes: Vec<String> = f
+        .read_notes
+        .iter()
+        .filter(|n| !changed.contains(n))
+        .cloned()
+        .collect();
+    surface_cache::write(cache, f, folder, surface, &notes, &checksums)
+}
+
+/// Reads one imported part's results into it from its files.
+pub fn attach(f: &mut ImportedSurface, folder: Option<&Path>) {
+    match read_surface(f, folder) {
+        Ok(read) => install(f, read),
+        Err(why) => fail(f, why),
+    }
+}
+
+fn fail(f: &mut ImportedSurface, why: String) {
+    f.field = FieldState::Failed(why);
+    f.read_notes.clear();
+}
+
+/// Puts a read surface into its part, with a note for each result file whose checksum is not
+/// the one recorded at import.
+fn install(f: &mut ImportedSurface, read: SurfaceRead) {
+    let mut notes: Vec<String> = f
+        .loads
+        .iter()
+        .zip(&read.checksums)
+        .filter_map(|(load, sum)| changed_note(load, sum))
+        .collect();
+    notes.extend(read.notes);
+    f.field = FieldState::Loaded(Arc::new(read.surface));
+    f.read_notes = notes;
 }
 
 /// The mesh checks of one imported part's gauges: each grid should span at least

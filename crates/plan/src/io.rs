@@ -123,7 +123,7 @@ pub const MAX_PROJECT_BYTES: u64 = 64 << 20;
 pub fn load_project(path: &Path) -> Result<Project, PlanError> {
     let text = read_project_text(path)?;
     let mut project = project_from_str(&text)?;
-    crate::imported_part::attach_fields(&mut project, path.parent());
+    crate::imported_part::attach_fields(&mut project, Some(path));
     Ok(project)
 }
 

@@ -37,6 +37,7 @@ pub mod placement;
 pub mod result_series;
 pub mod result_tables;
 pub mod safe_write;
+pub mod surface_cache;
 pub mod sheet;
 pub mod units;
 pub mod validate;

@@ -196,7 +196,19 @@ fn a_changed_or_missing_result_file_is_said_at_the_part() {
         ev.findings
     );
     std::fs::remove_file(dir.join("bar.csv")).unwrap();
-    // The project still opens (and can be edited); the part says which file is missing.
+    // The surface kept beside the project is used, and the part says the file is gone.
+    let kept = load_project(&file).unwrap();
+    let ev = evaluate(&kept, &EvalOptions::default());
+    assert!(
+        ev.findings.iter().any(|f| f.severity == Severity::Warn
+            && f.target == Target::Part { part: 0 }
+            && f.message.contains("bar.csv is not found")),
+        "{:#?}",
+        ev.findings
+    );
+    // Without it the project still opens (and can be edited); the part says which file is
+    // missing.
+    std::fs::remove_dir_all(dir.join("plan-cache")).unwrap();
     let gone = load_project(&file).unwrap();
     let ev = evaluate(&gone, &EvalOptions::default());
     assert!(
@@ -206,6 +218,67 @@ fn a_changed_or_missing_result_file_is_said_at_the_part() {
         "{:#?}",
         ev.findings
     );
+}
+
+/// Sets a file's modification time.
+fn set_modified(path: &Path, time: std::time::SystemTime) {
+    std::fs::OpenOptions::new()
+        .write(true)
+        .open(path)
+        .unwrap()
+        .set_modified(time)
+        .unwrap();
+}
+
+#[test]
+fn a_reopened_project_takes_its_surface_from_the_cache_while_the_results_are_unchanged() {
+    let dir = folder("cache");
+    write_bar(&dir, 40, false);
+    let p = project(&dir, 0.1);
+    let file = dir.join("plan.ron");
+    save_project(&p, &file).unwrap();
+    let first = load_project(&file).unwrap();
+    let cache = gw_plan::surface_cache::cache_path(&file, 0, "bar");
+    assert!(cache.is_file(), "the first opening keeps the surface beside the project");
+    assert_eq!(cache.parent().unwrap(), dir.join("plan-cache"));
+
+    // The result file made unreadable with its size and time kept: only the cache can give
+    // the surface now, and it gives the same one.
+    let results = dir.join("bar.csv");
+    let time = std::fs::metadata(&results).unwrap().modified().unwrap();
+    let len = std::fs::metadata(&results).unwrap().len() as usize;
+    std::fs::write(&results, "#".repeat(len)).unwrap();
+    set_modified(&results, time);
+    let cached = load_project(&file).unwrap();
+    assert_eq!(reading(&cached), reading(&first));
+    let (Member::ImportedField(a), Member::ImportedField(b)) =
+        (&first.parts[0].member, &cached.parts[0].member)
+    else {
+        unreachable!()
+    };
+    assert_eq!(
+        a.surface().unwrap().digest(),
+        b.surface().unwrap().digest()
+    );
+
+    // A new time and other contents: the file is read again (and refused, as it is broken).
+    set_modified(&results, time + std::time::Duration::from_secs(5));
+    let reread = load_project(&file).unwrap();
+    let Member::ImportedField(c) = &reread.parts[0].member else {
+        unreachable!()
+    };
+    assert!(
+        matches!(&c.field, FieldState::Failed(why) if why.contains("bar.csv")),
+        "{:?}",
+        c.field
+    );
+
+    // A damaged cache is passed over: the results are read from their files.
+    write_bar(&dir, 40, false);
+    std::fs::write(&cache, b"not a surface").unwrap();
+    let repaired = load_project(&file).unwrap();
+    assert_eq!(reading(&repaired), reading(&first));
+    let _ = std::fs::remove_dir_all(&dir);
 }
 
 #[test]

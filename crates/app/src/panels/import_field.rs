@@ -15,7 +15,9 @@ use gw_mechanics::imported::{
 use gw_mechanics::{LoadComponent, MATERIAL_LIBRARY, Member};
 use gw_plan::Part;
 use gw_plan::blank::new_part;
-use gw_plan::imported_part::{read_surface, resolve, stored_name};
+use gw_plan::imported_part::{
+    CANCELLED, ReadProgress, SurfaceRead, read_surface_with, stored_name,
+};
 
 /// The loads an imported result can be the unit response to (a temperature change is added by
 /// the material's expansion, not imported).
@@ -45,15 +47,16 @@ pub struct ResultRow {
 }
 
 /// What came back from a reading.
-type Outcome = Result<(SurfaceField, Vec<String>, Vec<Option<String>>), String>;
+type Outcome = Result<SurfaceRead, String>;
 
 /// A finished reading: the surface, the notes, each file's checksum.
-type Read = (Arc<SurfaceField>, Vec<String>, Vec<Option<String>>);
+type Read = (Arc<SurfaceField>, Vec<String>, Vec<String>);
 
 /// A reading in progress.
 struct Reading {
     started: Instant,
     receiver: Receiver<Outcome>,
+    progress: ReadProgress,
 }
 
 /// View state of the dialog.
@@ -181,23 +184,17 @@ impl ImportFieldDialog {
         };
         self.message = None;
         let (sender, receiver) = channel();
+        let progress = ReadProgress::default();
+        let shared = progress.clone();
         std::thread::spawn(move || {
-            let outcome = read_surface(&surface, folder.as_deref()).map(|(field, notes)| {
-                let sums = surface
-                    .loads
-                    .iter()
-                    .map(|l| {
-                        gw_plan::import::file_checksum(&resolve(&l.file, folder.as_deref())).ok()
-                    })
-                    .collect();
-                (field, notes, sums)
-            });
-            // The window may have been closed or the reading cancelled: nobody listens then.
+            let outcome = read_surface_with(&surface, folder.as_deref(), &shared);
+            // The window may have been closed: nobody listens then.
             let _ = sender.send(outcome);
         });
         self.reading = Some(Reading {
             started: Instant::now(),
             receiver,
+            progress,
         });
     }
 
@@ -207,8 +204,8 @@ impl ImportFieldDialog {
             return false;
         };
         match reading.receiver.try_recv() {
-            Ok(Ok((field, notes, sums))) => {
-                self.read = Some((Arc::new(field), notes, sums));
+            Ok(Ok(read)) => {
+                self.read = Some((Arc::new(read.surface), read.notes, read.checksums));
                 self.reading = None;
                 false
             }
@@ -226,10 +223,12 @@ impl ImportFieldDialog {
         }
     }
 
-    /// Stops waiting for a reading (its thread finishes on its own and is ignored).
+    /// Asks the running reading to stop at its next step (between files, before the surface
+    /// is built) and stops waiting for it.
     pub fn cancel_reading(&mut self) {
-        if self.reading.take().is_some() {
-            self.message = Some("Reading cancelled.".to_owned());
+        if let Some(reading) = self.reading.take() {
+            reading.progress.cancel();
+            self.message = Some(format!("{}{}.", CANCELLED[..1].to_uppercase(), &CANCELLED[1..]));
         }
     }
 
@@ -238,7 +237,7 @@ impl ImportFieldDialog {
         let (field, notes, sums) = self.read.as_ref()?;
         let mut surface = self.describe(folder).ok()?;
         for (load, sum) in surface.loads.iter_mut().zip(sums) {
-            load.checksum = sum.clone();
+            load.checksum = Some(sum.clone());
         }
         surface.field = FieldState::Loaded(field.clone());
         surface.read_notes = notes.clone();
@@ -285,6 +284,11 @@ impl ImportFieldDialog {
         self.reading
             .as_ref()
             .map(|r| r.started.elapsed().as_secs_f64())
+    }
+
+    /// The running reading's steps done, steps in all, and what it is doing.
+    pub fn reading_step(&self) -> Option<(usize, usize, String)> {
+        self.reading.as_ref().map(|r| r.progress.step())
     }
 
     /// True once the files are read and the part can be added.

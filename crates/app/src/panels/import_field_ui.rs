@@ -250,9 +250,15 @@ impl ImportFieldDialog {
         }
         ui.horizontal(|ui| {
             if running {
-                ui.spinner();
+                let (done, of, what) = self.reading_step().unwrap_or_default();
+                ui.add(
+                    egui::ProgressBar::new(done as f32 / of.max(1) as f32)
+                        .desired_width(160.0)
+                        .text(format!("step {} of {}", (done + 1).min(of.max(1)), of.max(1))),
+                );
                 ui.label(format!(
-                    "Reading the files… {:.1} s",
+                    "{} … {:.1} s",
+                    if what.is_empty() { "starting" } else { &what },
                     self.reading_for_s().unwrap_or(0.0)
                 ));
                 if ui.button("Cancel reading").clicked() {

@@ -100,10 +100,28 @@ fn mix(hash: &mut u64, word: u64) {
         .rotate_left(29);
 }
 
-impl SurfaceField {
-    /// The surface of `mesh` with the unit fields at its points; faces take their x axes from
-    /// `reference`. Errors name the load and the point at fault.
-    pub fn new(mesh: &RawMesh, fields: Vec<UnitField>, reference: ReferenceAxis) -> Result<Self> {
+/// The outer surface of a mesh as triangles with the unit fields at their nodes, before it is
+/// split into faces: what the surface is built from, and what a cache of it keeps.
+#[derive(Debug, Clone, PartialEq, serde::Serialize, serde::Deserialize)]
+pub struct SurfaceMesh {
+    /// Surface nodes, metres.
+    pub nodes_m: Vec<[f64; 3]>,
+    /// Triangles by surface node, wound outward.
+    pub triangles: Vec<[u32; 3]>,
+    /// The element face each triangle comes from.
+    pub facet: Vec<u32>,
+    /// Each unit load's tensors at the surface nodes (SI, tensor shear).
+    pub fields: Vec<(LoadComponent, TensorQuantity, Vec<[f64; 6]>)>,
+    /// Whether the surface is the free surface of solid cells (else a shell mesh).
+    pub from_solid: bool,
+    /// Points of the mesh it came from.
+    pub mesh_points: usize,
+}
+
+impl SurfaceMesh {
+    /// The outer surface of `mesh` (faces of solid cells used once, or the shell cells) with
+    /// the unit fields at its nodes. Errors name the load and the point at fault.
+    pub fn of(mesh: &RawMesh, fields: Vec<UnitField>) -> Result<Self> {
         let surface = mesh.free_surface()?;
         check_fields(mesh, &fields)?;
         let mut compact = vec![u32::MAX; mesh.points_m.len()];
@@ -134,6 +152,52 @@ impl SurfaceField {
             .iter()
             .map(|f| (f.component, f.quantity, pick(&f.values)))
             .collect();
+        Ok(Self {
+            nodes_m,
+            triangles,
+            facet: surface.facet,
+            fields,
+            from_solid: surface.from_solid,
+            mesh_points: mesh.points_m.len(),
+        })
+    }
+}
+
+impl SurfaceField {
+    /// The surface of `mesh` with the unit fields at its points; faces take their x axes from
+    /// `reference`. Errors name the load and the point at fault.
+    pub fn new(mesh: &RawMesh, fields: Vec<UnitField>, reference: ReferenceAxis) -> Result<Self> {
+        Self::from_surface(SurfaceMesh::of(mesh, fields)?, reference)
+    }
+
+    /// The surface split into faces whose x axes come from `reference`.
+    pub fn from_surface(surface: SurfaceMesh, reference: ReferenceAxis) -> Result<Self> {
+        if surface.fields.iter().any(|f| f.2.len() != surface.nodes_m.len())
+            || surface.facet.len() != surface.triangles.len()
+            || surface
+                .triangles
+                .iter()
+                .flatten()
+                .any(|&v| v as usize >= surface.nodes_m.len())
+            || surface.nodes_m.iter().flatten().any(|v| !v.is_finite())
+            || surface
+                .fields
+                .iter()
+                .flat_map(|f| f.2.iter().flatten())
+                .any(|v| !v.is_finite())
+        {
+            return Err(bad_mesh(
+                "the surface's triangles, faces and values do not fit together",
+            ));
+        }
+        let SurfaceMesh {
+            nodes_m,
+            triangles,
+            facet,
+            fields,
+            from_solid,
+            mesh_points,
+        } = surface;
         let (normals, areas): (Vec<_>, Vec<_>) = triangles
             .iter()
             .map(|t| {
@@ -154,14 +218,31 @@ impl SurfaceField {
         Ok(Self {
             nodes_m,
             triangles,
-            facet: surface.facet,
+            facet,
             patches,
             fields,
             node_home,
-            from_solid: surface.from_solid,
-            mesh_points: mesh.points_m.len(),
+            from_solid,
+            mesh_points,
             digest,
         })
+    }
+
+    /// The surface before it was split into faces (what a cache keeps).
+    pub fn surface_mesh(&self) -> SurfaceMesh {
+        SurfaceMesh {
+            nodes_m: self.nodes_m.clone(),
+            triangles: self.triangles.clone(),
+            facet: self.facet.clone(),
+            fields: self.fields.clone(),
+            from_solid: self.from_solid,
+            mesh_points: self.mesh_points,
+        }
+    }
+
+    /// The same surface with its faces' x axes from another reference axis.
+    pub fn with_reference(&self, reference: ReferenceAxis) -> Result<Self> {
+        Self::from_surface(self.surface_mesh(), reference)
     }
 
     /// A number that changes with any node, triangle or value (not a security hash).
