@@ -44,6 +44,17 @@ fn bench(c: &mut Criterion) {
             h.step();
         })
     });
+    // The part view of an imported surface of about 200 000 nodes (the large example plate,
+    // about 390 000 surface triangles), still and while it turns.
+    let plate = gw_plan::large_example::plate_project().expect("the plate's plan");
+    let mut h = harness_on(plate, Tab::Part);
+    c.bench_function("frame/part_imported_200k_nodes", |b| b.iter(|| h.step()));
+    c.bench_function("frame/part_imported_200k_nodes_turning", |b| {
+        b.iter(|| {
+            h.state_mut().turn_part_view(egui::vec2(3.0, 0.0));
+            h.step();
+        })
+    });
     // The inspector on a bridge: its field table (arm choices, computed bridge factor) is
     // built every frame.
     let mut h = harness(Tab::Bridges);

@@ -45,6 +45,10 @@ pub struct SurfaceField {
     patches: Vec<Patch>,
     fields: Vec<(LoadComponent, TensorQuantity, Vec<[f64; 6]>)>,
     node_home: Vec<(u32, [f64; 2])>,
+    /// Per unit field, the norm of each node's deviatoric tensor (the peak search's bound).
+    deviator_norms: Vec<Vec<f64>>,
+    /// Per unit field, the nodes in falling order of that norm.
+    deviator_order: Vec<Vec<u32>>,
     from_solid: bool,
     mesh_points: usize,
     digest: u64,
@@ -92,12 +96,32 @@ pub fn von_mises_tensor(s: &[f64; 6]) -> f64 {
     .sqrt()
 }
 
+/// The Frobenius norm of the deviatoric part of a symmetric tensor (xx, yy, zz, xy, yz, zx
+/// with tensor shear): √(Σ dᵢᵢ² + 2(t_xy² + t_yz² + t_zx²)), dᵢᵢ = tᵢᵢ − tr/3.
+fn deviator_norm(t: &[f64; 6]) -> f64 {
+    let mean = (t[0] + t[1] + t[2]) / 3.0;
+    let d = [t[0] - mean, t[1] - mean, t[2] - mean];
+    (d[0] * d[0] + d[1] * d[1] + d[2] * d[2] + 2.0 * (t[3] * t[3] + t[4] * t[4] + t[5] * t[5]))
+        .sqrt()
+}
+
 /// Folds one 64-bit word into a running hash (FNV-1a's step on words, then a rotation so that
 /// every bit reaches the low bits).
 fn mix(hash: &mut u64, word: u64) {
     *hash = (*hash ^ word)
         .wrapping_mul(0x0000_0100_0000_01b3)
         .rotate_left(29);
+}
+
+/// One edge of a face's outline, in the face's flat coordinates (x, s), metres.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct OutlineEdge {
+    /// Where the edge starts.
+    pub from: [f64; 2],
+    /// Where it ends.
+    pub to: [f64; 2],
+    /// The face beyond it (None: the surface ends there).
+    pub beyond: Option<usize>,
 }
 
 /// The outer surface of a mesh as triangles with the unit fields at their nodes, before it is
@@ -172,7 +196,10 @@ impl SurfaceField {
 
     /// The surface split into faces whose x axes come from `reference`.
     pub fn from_surface(surface: SurfaceMesh, reference: ReferenceAxis) -> Result<Self> {
-        if surface.fields.iter().any(|f| f.2.len() != surface.nodes_m.len())
+        if surface
+            .fields
+            .iter()
+            .any(|f| f.2.len() != surface.nodes_m.len())
             || surface.facet.len() != surface.triangles.len()
             || surface
                 .triangles
@@ -214,6 +241,18 @@ impl SurfaceField {
             ));
         }
         let node_home = home_of_nodes(nodes_m.len(), &triangles, &patches);
+        let deviator_norms: Vec<Vec<f64>> = fields
+            .iter()
+            .map(|(_, _, values)| values.iter().map(deviator_norm).collect())
+            .collect();
+        let deviator_order = deviator_norms
+            .iter()
+            .map(|norms| {
+                let mut order: Vec<u32> = (0..norms.len() as u32).collect();
+                order.sort_unstable_by(|&a, &b| norms[b as usize].total_cmp(&norms[a as usize]));
+                order
+            })
+            .collect();
         let digest = digest_of(&nodes_m, &triangles, &fields, reference);
         Ok(Self {
             nodes_m,
@@ -222,6 +261,8 @@ impl SurfaceField {
             patches,
             fields,
             node_home,
+            deviator_norms,
+            deviator_order,
             from_solid,
             mesh_points,
             digest,
@@ -429,29 +470,81 @@ impl SurfaceField {
     }
 
     /// The largest von Mises stress over the surface nodes (the full tensor, the stress normal
-    /// to the surface included) and the node's place on its face.
+    /// to the surface included) and the node's place on its face (the first such node where
+    /// several share the largest value).
+    ///
+    /// Von Mises stress is √(3/2) times the norm of the deviatoric stress, a seminorm, so at a
+    /// node it is at most Σ |Lᵢ| vmᵢ over the unit loads (the triangle inequality); with
+    /// isotropic Hooke the deviatoric stress of a strain field is 2μ times its deviatoric
+    /// strain. Nodes whose bound is below the largest value found are never evaluated.
     pub fn peak_von_mises(
         &self,
         loads: &LoadVector,
         material: &Material,
     ) -> Option<(f64, SurfacePoint)> {
-        let mut best: Option<(f64, usize)> = None;
-        for node in 0..self.nodes_m.len() {
-            let mut total = [0.0; 6];
-            for (c, quantity, values) in &self.fields {
-                let l = loads[*c];
-                if l == 0.0 {
-                    continue;
-                }
-                let strain = match quantity {
-                    TensorQuantity::Strain => values[node],
-                    TensorQuantity::Stress => strain_from_stress(&values[node], material),
+        let mu = material.youngs_modulus_pa / (2.0 * (1.0 + material.poisson_ratio));
+        // Per loaded unit field: its index, the bound's weight √(3/2)·|L|·k and the signed
+        // factor L·k that turns its deviatoric tensor into deviatoric stress (k = 2μ for a
+        // strain, 1 for a stress).
+        let weights: Vec<(usize, f64, f64)> = self
+            .fields
+            .iter()
+            .enumerate()
+            .filter(|(_, (c, _, _))| loads[*c] != 0.0)
+            .map(|(i, (c, quantity, _))| {
+                let per_unit = match quantity {
+                    TensorQuantity::Strain => 2.0 * mu,
+                    TensorQuantity::Stress => 1.0,
                 };
-                (0..6).for_each(|k| total[k] += l * strain[k]);
+                let l = loads[*c];
+                (i, (1.5f64).sqrt() * l.abs() * per_unit, l * per_unit)
+            })
+            .collect();
+        // Von Mises at a node from the summed deviatoric stress: √(3/2 · s:s).
+        let von_mises = |node: usize| -> f64 {
+            let mut d = [0.0; 6];
+            for &(i, _, factor) in &weights {
+                let t = &self.fields[i].2[node];
+                let mean = (t[0] + t[1] + t[2]) / 3.0;
+                for k in 0..3 {
+                    d[k] += factor * (t[k] - mean);
+                    d[k + 3] += factor * t[k + 3];
+                }
             }
-            let vm = von_mises_tensor(&stress_from_strain(&total, material));
-            if vm.is_finite() && best.is_none_or(|(b, _)| vm > b) {
-                best = Some((vm, node));
+            let ss = d[0] * d[0]
+                + d[1] * d[1]
+                + d[2] * d[2]
+                + 2.0 * (d[3] * d[3] + d[4] * d[4] + d[5] * d[5]);
+            (1.5 * ss).sqrt()
+        };
+        let mut best: Option<(f64, usize)> = None;
+        let consider = |node: usize, best: &mut Option<(f64, usize)>| {
+            let vm = von_mises(node);
+            let better = match *best {
+                None => true,
+                Some((b, at)) => vm > b || (vm == b && node < at),
+            };
+            if vm.is_finite() && better {
+                *best = Some((vm, node));
+            }
+        };
+        if weights.is_empty() {
+            // No load: every node reads zero, the first is taken.
+            consider(0, &mut best);
+        }
+        // Down each unit field's nodes in falling order of their bound at once (a threshold
+        // search): a node not reached yet is bounded by the sum of the bounds at the current
+        // rank, and the search ends once that sum is below the largest value found (with a
+        // margin for rounding, so that ties are all seen).
+        for rank in 0..self.nodes_m.len() {
+            let mut threshold = 0.0;
+            for &(i, w, _) in &weights {
+                let node = self.deviator_order[i][rank] as usize;
+                consider(node, &mut best);
+                threshold += w * self.deviator_norms[i][node];
+            }
+            if best.is_some_and(|(b, _)| threshold < b * (1.0 - 1e-9)) {
+                break;
             }
         }
         let (vm, node) = best?;
@@ -554,6 +647,62 @@ impl SurfaceField {
         seen.sort_unstable();
         seen.dedup();
         seen.len()
+    }
+
+    /// The outline of a face in its flat coordinates: the triangle edges it does not share
+    /// with itself, each with the face beyond it (None where the surface ends, as at a shell's
+    /// free edge). Empty for a face that does not exist.
+    pub fn outline(&self, face: usize) -> Vec<OutlineEdge> {
+        let Some(p) = self.patches.get(face) else {
+            return Vec::new();
+        };
+        let key = |a: u32, b: u32| (a.min(b), a.max(b));
+        // (edge, triangle of the face, corner the edge starts at)
+        let mut edges: Vec<((u32, u32), usize, usize)> = Vec::with_capacity(3 * p.triangles.len());
+        for (i, &t) in p.triangles.iter().enumerate() {
+            let tri = self.triangles[t as usize];
+            for k in 0..3 {
+                edges.push((key(tri[k], tri[(k + 1) % 3]), i, k));
+            }
+        }
+        edges.sort_unstable_by_key(|e| e.0);
+        let mut once = Vec::new();
+        for run in edges.chunk_by(|a, b| a.0 == b.0) {
+            if let [only] = run {
+                once.push(*only);
+            }
+        }
+        let mut owner = vec![u32::MAX; self.triangles.len()];
+        for (k, q) in self.patches.iter().enumerate() {
+            for &t in &q.triangles {
+                owner[t as usize] = k as u32;
+            }
+        }
+        let mut beyond = vec![None; once.len()];
+        for (t, tri) in self.triangles.iter().enumerate() {
+            if owner[t] as usize == face {
+                continue;
+            }
+            for k in 0..3 {
+                if let Ok(j) = once.binary_search_by_key(&key(tri[k], tri[(k + 1) % 3]), |e| e.0) {
+                    beyond[j] = Some(owner[t] as usize);
+                }
+            }
+        }
+        once.iter()
+            .zip(beyond)
+            .map(|(&(_, i, k), beyond)| OutlineEdge {
+                from: p.corners[i][k],
+                to: p.corners[i][(k + 1) % 3],
+                beyond,
+            })
+            .collect()
+    }
+
+    /// The element face (facet) triangle `triangle` of face `face` comes from.
+    pub fn facet_of(&self, face: usize, triangle: usize) -> Option<u32> {
+        let t = *self.patches.get(face)?.triangles.get(triangle)?;
+        self.facet.get(t as usize).copied()
     }
 
     /// Typical edge length of the surface triangles of a face, metres (the mesh size there).
@@ -720,6 +869,38 @@ mod tests {
     }
 
     #[test]
+    fn a_face_outline_is_its_rectangle_with_the_four_side_faces_beyond() {
+        let mesh = block(3, [0.3, 0.2, 0.1]);
+        let f = SurfaceField::new(&mesh, vec![uniaxial(&mesh)], ReferenceAxis::X).unwrap();
+        let top = &f.patches()[0];
+        let outline = f.outline(0);
+        // Three element edges along each side of the 0.3 × 0.2 face.
+        assert_eq!(outline.len(), 12);
+        let length: f64 = outline
+            .iter()
+            .map(|e| (e.to[0] - e.from[0]).hypot(e.to[1] - e.from[1]))
+            .sum();
+        assert!((length - 1.0).abs() < 1e-12, "perimeter {length}");
+        // Every edge lies on the face's bounding rectangle.
+        let on_edge = |p: [f64; 2]| {
+            let near = |v: f64, (a, b): (f64, f64)| (v - a).abs() < 1e-12 || (v - b).abs() < 1e-12;
+            near(p[0], top.x_range_m) || near(p[1], top.s_range_m)
+        };
+        assert!(outline.iter().all(|e| on_edge(e.from) && on_edge(e.to)));
+        // Beyond them: the four faces whose normals are square to this one's.
+        let mut beyond: Vec<usize> = outline.iter().map(|e| e.beyond.unwrap()).collect();
+        beyond.sort_unstable();
+        beyond.dedup();
+        assert_eq!(beyond.len(), 4);
+        assert!(
+            beyond
+                .iter()
+                .all(|&k| dot(f.patches()[k].normal, top.normal).abs() < 1e-9)
+        );
+        assert!(f.outline(99).is_empty());
+    }
+
+    #[test]
     fn a_point_found_in_space_comes_back_to_the_same_place() {
         let mesh = block(4, [0.4, 0.2, 0.1]);
         let f = SurfaceField::new(&mesh, vec![uniaxial(&mesh)], ReferenceAxis::X).unwrap();
@@ -782,6 +963,81 @@ mod tests {
         nan.values[4][2] = f64::NAN;
         let e = SurfaceField::new(&mesh, vec![nan], ReferenceAxis::X).unwrap_err();
         assert!(e.to_string().contains("not a number at point 5"), "{e}");
+    }
+
+    /// The von Mises stress at a surface node under the loads, the long way: the unit
+    /// fields turned into strain, summed, turned into stress by Hooke's law and taken through
+    /// the full von Mises formula.
+    fn von_mises_at(f: &SurfaceField, node: usize, loads: &LoadVector, material: &Material) -> f64 {
+        let mut total = [0.0; 6];
+        for (c, quantity, values) in &f.fields {
+            let l = loads[*c];
+            if l == 0.0 {
+                continue;
+            }
+            let strain = match quantity {
+                TensorQuantity::Strain => values[node],
+                TensorQuantity::Stress => strain_from_stress(&values[node], material),
+            };
+            (0..6).for_each(|k| total[k] += l * strain[k]);
+        }
+        von_mises_tensor(&stress_from_strain(&total, material))
+    }
+
+    #[test]
+    fn the_peak_search_finds_the_node_a_search_of_every_node_finds() {
+        let m = steel();
+        let mesh = block(4, [0.2, 0.1, 0.1]);
+        // Values from a fixed linear congruential sequence, one strain and one stress field.
+        let mut seed = 12345u64;
+        let mut next = || {
+            seed = seed
+                .wrapping_mul(6364136223846793005)
+                .wrapping_add(1442695040888963407);
+            (seed >> 11) as f64 / (1u64 << 53) as f64 - 0.5
+        };
+        let n = mesh.points_m.len();
+        let strain: Vec<[f64; 6]> = (0..n)
+            .map(|_| std::array::from_fn(|_| 1e-6 * next()))
+            .collect();
+        let stress: Vec<[f64; 6]> = (0..n).map(|_| std::array::from_fn(|_| next())).collect();
+        let fields = vec![
+            UnitField {
+                component: LoadComponent::VerticalForce,
+                quantity: TensorQuantity::Strain,
+                values: strain,
+            },
+            UnitField {
+                component: LoadComponent::Torque,
+                quantity: TensorQuantity::Stress,
+                values: stress,
+            },
+        ];
+        let f = SurfaceField::new(&mesh, fields, ReferenceAxis::X).unwrap();
+        for (force, torque) in [(1e3, 0.0), (0.0, -5e5), (-2e3, 4e5), (700.0, 1e5)] {
+            let loads = LoadVector::from_pairs(&[
+                (LoadComponent::VerticalForce, force),
+                (LoadComponent::Torque, torque),
+            ]);
+            let every = (0..f.node_count())
+                .map(|node| (von_mises_at(&f, node, &loads, &m), node))
+                .fold(None, |best: Option<(f64, usize)>, (vm, node)| match best {
+                    Some((b, _)) if vm <= b => best,
+                    _ => Some((vm, node)),
+                })
+                .unwrap();
+            let (vm, p) = f.peak_von_mises(&loads, &m).unwrap();
+            assert!(
+                (vm - every.0).abs() <= 1e-12 * every.0,
+                "loads {force}, {torque}: {vm} against {}",
+                every.0
+            );
+            let home = f.node_home[every.1];
+            assert_eq!(
+                p,
+                SurfacePoint::new(Face::Patch(home.0 as u16), home.1[0], home.1[1])
+            );
+        }
     }
 
     #[test]

@@ -112,33 +112,45 @@ impl PartMesh {
         b
     }
 
-    /// An imported surface as it was meshed: every face with its own vertices (so that the
-    /// shading breaks at its edges) and its outline (the edges used by one of its triangles).
+    /// An imported surface as it was meshed: every face with its own vertices (shared by its
+    /// triangles; a node on an edge between faces is a vertex of each, so that the shading
+    /// breaks there) and its outline (the edges used by one of its triangles).
     fn imported_surface(&mut self, field: &SurfaceField) {
         let nodes = field.nodes_m();
+        let mut vertex_of = vec![u32::MAX; nodes.len()];
         for (k, patch) in field.patches().iter().enumerate() {
             let face = Face::Patch(k as u16);
+            let mut touched = Vec::new();
             let mut outline: HashMap<(u32, u32), (u32, u32, u32)> = HashMap::new();
             for (local, &t) in patch.triangles.iter().enumerate() {
                 let tri = field.triangles()[t as usize];
-                let first = self.positions.len() as u32;
+                let corner = |c: usize| tri[c] as usize;
+                let mut ids = [0u32; 3];
                 for c in 0..3 {
-                    self.positions.push(nodes[tri[c] as usize]);
-                    self.normals.push(patch.corner_normals[local][c]);
-                    let [x, s] = patch.corners[local][c];
-                    self.points.push(Some(SurfacePoint::new(face, x, s)));
+                    if vertex_of[corner(c)] == u32::MAX {
+                        vertex_of[corner(c)] = self.positions.len() as u32;
+                        touched.push(corner(c));
+                        self.positions.push(nodes[corner(c)]);
+                        self.normals.push(patch.corner_normals[local][c]);
+                        let [x, s] = patch.corners[local][c];
+                        self.points.push(Some(SurfacePoint::new(face, x, s)));
+                    }
+                    ids[c] = vertex_of[corner(c)];
                 }
-                self.triangles.push([first, first + 1, first + 2]);
+                self.triangles.push(ids);
                 self.regions.push(Region::Face(face));
                 for c in 0..3 {
                     let (a, b) = (tri[c], tri[(c + 1) % 3]);
                     let entry = outline.entry((a.min(b), a.max(b))).or_insert((
                         0,
-                        first + c as u32,
-                        first + (c as u32 + 1) % 3,
+                        ids[c],
+                        ids[(c + 1) % 3],
                     ));
                     entry.0 += 1;
                 }
+            }
+            for n in touched {
+                vertex_of[n] = u32::MAX;
             }
             let mut lines: Vec<_> = outline
                 .into_values()

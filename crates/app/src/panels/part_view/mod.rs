@@ -239,7 +239,7 @@ impl PartView {
             overlays::contours(&painter, scene, &camera, centre, eye);
         }
         overlays::edges(&painter, scene, proj, eye, hovered_face);
-        let (lo, hi) = scene.mesh.bounds();
+        let (lo, hi) = scene.bounds;
         let middle = camera
             .project(std::array::from_fn(|i| 0.5 * (lo[i] + hi[i])), centre)
             .0;

@@ -329,7 +329,7 @@ pub fn load_arrows(
     labels: &mut Labels,
 ) -> Vec<PendingLabel> {
     let stroke = Stroke::new(2.2, colours::LOAD);
-    let (lo, hi) = scene.mesh.bounds();
+    let (lo, hi) = scene.bounds;
     let tolerance = 1e-3 * (0..3).map(|i| hi[i] - lo[i]).fold(0.0, f64::max) as f32;
     let mut pending = Vec::new();
     for g in &scene.glyphs {

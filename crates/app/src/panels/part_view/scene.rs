@@ -51,6 +51,8 @@ pub struct Scene {
     pub glyphs: Vec<LoadGlyph>,
     /// Counts rebuilds, so that projections know when to follow.
     pub generation: u64,
+    /// The mesh's bounding box (smallest and largest x, y, z), metres.
+    pub bounds: ([f64; 3], [f64; 3]),
 }
 
 /// Our body and fixture greys.
@@ -108,6 +110,7 @@ impl Scene {
         Self {
             key,
             glyphs: load_glyphs(member, loads),
+            bounds: mesh.bounds(),
             mesh,
             values,
             found,
@@ -158,6 +161,106 @@ pub struct Projection {
     pub order: Vec<u32>,
     /// The shaded, sorted mesh.
     pub mesh: Arc<epaint::Mesh>,
+    /// Which visible triangles lie over each part of the rectangle.
+    cells: ScreenCells,
+}
+
+/// Cells across the longer side of the view's rectangle.
+const CELLS: f32 = 64.0;
+
+/// The visible triangles by the cells of a grid over the view's rectangle that their screen
+/// boxes touch, so that finding what lies under a point looks at a few triangles, not all:
+/// for each cell, the triangles' ranks in the far-to-near order, rising.
+#[derive(Debug, Clone, Default)]
+struct ScreenCells {
+    origin: Pos2,
+    size: f32,
+    nx: usize,
+    ny: usize,
+    /// Where each cell's ranks start in `ranks` (one more entry than cells).
+    start: Vec<u32>,
+    ranks: Vec<u32>,
+}
+
+impl ScreenCells {
+    fn build(rect: Rect, screen: &[Pos2], triangles: &[[u32; 3]], order: &[u32]) -> Self {
+        let size = (rect.width().max(rect.height()) / CELLS).max(1.0);
+        let nx = (rect.width() / size).ceil().max(1.0) as usize;
+        let ny = (rect.height() / size).ceil().max(1.0) as usize;
+        let mut cells = Self {
+            origin: rect.min,
+            size,
+            nx,
+            ny,
+            start: vec![0; nx * ny + 1],
+            ranks: Vec::new(),
+        };
+        let span = |rank: usize| {
+            let t = triangles[order[rank] as usize].map(|k| screen[k as usize]);
+            let (lo, hi) = (t[0].min(t[1]).min(t[2]), t[0].max(t[1]).max(t[2]));
+            cells.range(lo, hi)
+        };
+        let mut count = vec![0u32; nx * ny];
+        for rank in 0..order.len() {
+            if let Some((x0, x1, y0, y1)) = span(rank) {
+                for y in y0..=y1 {
+                    for x in x0..=x1 {
+                        count[y * nx + x] += 1;
+                    }
+                }
+            }
+        }
+        let mut start = vec![0u32; nx * ny + 1];
+        for c in 0..nx * ny {
+            start[c + 1] = start[c] + count[c];
+        }
+        let mut next = start.clone();
+        let mut ranks = vec![0u32; start[nx * ny] as usize];
+        for rank in 0..order.len() {
+            if let Some((x0, x1, y0, y1)) = span(rank) {
+                for y in y0..=y1 {
+                    for x in x0..=x1 {
+                        let c = y * nx + x;
+                        ranks[next[c] as usize] = rank as u32;
+                        next[c] += 1;
+                    }
+                }
+            }
+        }
+        cells.start = start;
+        cells.ranks = ranks;
+        cells
+    }
+
+    /// The cells a screen box touches (x from, x to, y from, y to); None when it lies off the
+    /// rectangle or is not a number.
+    fn range(&self, lo: Pos2, hi: Pos2) -> Option<(usize, usize, usize, usize)> {
+        let fx = |v: f32| (v - self.origin.x) / self.size;
+        let fy = |v: f32| (v - self.origin.y) / self.size;
+        let (x0, x1, y0, y1) = (fx(lo.x), fx(hi.x), fy(lo.y), fy(hi.y));
+        let (w, h) = (self.nx as f32, self.ny as f32);
+        if !(x1 >= 0.0 && y1 >= 0.0 && x0 < w && y0 < h) {
+            return None;
+        }
+        let clamp = |v: f32, n: usize| (v.max(0.0) as usize).min(n - 1);
+        Some((
+            clamp(x0, self.nx),
+            clamp(x1, self.nx),
+            clamp(y0, self.ny),
+            clamp(y1, self.ny),
+        ))
+    }
+
+    /// The ranks of the triangles whose boxes touch the cell under `p`, far to near.
+    fn under(&self, p: Pos2) -> &[u32] {
+        match self.range(p, p) {
+            Some((x, _, y, _)) => {
+                let c = y * self.nx + x;
+                &self.ranks[self.start[c] as usize..self.start[c + 1] as usize]
+            }
+            None => &[],
+        }
+    }
 }
 
 fn dot(a: [f64; 3], b: [f64; 3]) -> f64 {
@@ -207,18 +310,21 @@ impl Projection {
             let [a, b, c] = m.triangles[i as usize];
             mesh.add_triangle(a, b, c);
         }
+        let cells = ScreenCells::build(rect, &screen, &m.triangles, &order);
         Self {
             key: (*camera, rect, scene.generation),
             screen,
             depth,
             order,
             mesh: Arc::new(mesh),
+            cells,
         }
     }
 
     /// The nearest visible triangle under `p`, with the barycentric weights of `p` in it.
     pub fn pick(&self, scene: &Scene, p: Pos2) -> Option<(usize, [f32; 3])> {
-        self.order.iter().rev().find_map(|&i| {
+        self.cells.under(p).iter().rev().find_map(|&rank| {
+            let i = self.order[rank as usize];
             let t = scene.mesh.triangles[i as usize];
             barycentric(p, t.map(|k| self.screen[k as usize])).map(|w| (i as usize, w))
         })
@@ -226,7 +332,8 @@ impl Projection {
 
     /// True when a visible triangle nearer than `depth` covers `p`.
     pub fn occluded(&self, scene: &Scene, p: Pos2, depth: f32, tolerance: f32) -> bool {
-        self.order.iter().any(|&i| {
+        self.cells.under(p).iter().any(|&rank| {
+            let i = self.order[rank as usize];
             let t = scene.mesh.triangles[i as usize];
             barycentric(p, t.map(|k| self.screen[k as usize])).is_some_and(|w| {
                 let d: f32 = (0..3).map(|j| w[j] * self.depth[t[j] as usize]).sum();
