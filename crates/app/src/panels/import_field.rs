@@ -228,7 +228,11 @@ impl ImportFieldDialog {
     pub fn cancel_reading(&mut self) {
         if let Some(reading) = self.reading.take() {
             reading.progress.cancel();
-            self.message = Some(format!("{}{}.", CANCELLED[..1].to_uppercase(), &CANCELLED[1..]));
+            self.message = Some(format!(
+                "{}{}.",
+                CANCELLED[..1].to_uppercase(),
+                &CANCELLED[1..]
+            ));
         }
     }
 

@@ -254,7 +254,11 @@ impl ImportFieldDialog {
                 ui.add(
                     egui::ProgressBar::new(done as f32 / of.max(1) as f32)
                         .desired_width(160.0)
-                        .text(format!("step {} of {}", (done + 1).min(of.max(1)), of.max(1))),
+                        .text(format!(
+                            "step {} of {}",
+                            (done + 1).min(of.max(1)),
+                            of.max(1)
+                        )),
                 );
                 ui.label(format!(
                     "{} … {:.1} s",

@@ -187,7 +187,10 @@ fn line_of(record: &csv::StringRecord, bytes: &[u8]) -> u64 {
     let (mut line, mut at) = (pos.line(), pos.byte() as usize);
     while at < bytes.len() && matches!(bytes[at], b'#' | b'\n' | b'\r') {
         let skip = if bytes[at] == b'#' {
-            bytes[at..].iter().position(|&b| b == b'\n').map_or(bytes.len() - at, |n| n + 1)
+            bytes[at..]
+                .iter()
+                .position(|&b| b == b'\n')
+                .map_or(bytes.len() - at, |n| n + 1)
         } else {
             1
         };
