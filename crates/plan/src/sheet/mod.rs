@@ -2,6 +2,7 @@
 //! and white. Every number comes from the same [`Evaluation`] the app shows.
 
 mod bridge_section;
+mod close_ups;
 mod face_drawings;
 mod front;
 mod layout;

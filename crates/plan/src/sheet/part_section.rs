@@ -246,7 +246,9 @@ pub(crate) fn draw(w: &mut Writer, project: &Project, part: &Part, pe: &PartEval
         }
     }
     part_views::draw(w, part);
-    face_drawings::draw(w, part, &project.placed_gauges(part));
+    let placed = project.placed_gauges(part);
+    face_drawings::draw(w, part, &placed);
+    super::close_ups::draw(w, part, &placed);
     w.heading("Gauges");
     w.table(
         &[0.6, 1.3, 0.7, 0.9, 0.7, 1.1, 0.9, 0.9, 1.2, 1.3],
