@@ -7,7 +7,9 @@ use std::sync::atomic::{AtomicBool, Ordering};
 use std::sync::{Arc, Mutex};
 
 use gw_bridge::PlacedGauge;
-use gw_mechanics::imported::{FieldState, ImportedLoad, ImportedSurface, SurfaceField, UnitField};
+use gw_mechanics::imported::{
+    FieldState, ImportedLoad, ImportedSurface, ReferenceAxis, SurfaceField, UnitField,
+};
 use gw_mechanics::{GridFootprint, LoadComponent, Member, QuadratureOrder};
 
 use crate::document::{Part, Project};
@@ -127,7 +129,8 @@ pub fn read_surface_with(
             mesh_path: mesh_path.as_deref(),
         })
         .map_err(|e| format!("{} result: {e}", load.component.name()))?;
-        let sum = file_checksum(&path).map_err(|e| format!("{} result: {e}", load.component.name()))?;
+        let sum =
+            file_checksum(&path).map_err(|e| format!("{} result: {e}", load.component.name()))?;
         checksums.push(sum);
         notes.extend(
             read.notes
@@ -152,8 +155,8 @@ pub fn read_surface_with(
         .as_deref()
         .or(f.loads.first().map(|l| l.file.as_str()))
         .unwrap_or_default();
-    let surface = SurfaceField::new(&mesh, fields, f.reference_axis)
-        .map_err(|e| format!("{source}: {e}"))?;
+    let surface =
+        SurfaceField::new(&mesh, fields, f.reference_axis).map_err(|e| format!("{source}: {e}"))?;
     progress.begin(steps, steps, "done".to_owned())?;
     Ok(SurfaceRead {
         surface,
@@ -382,6 +385,42 @@ fn install(f: &mut ImportedSurface, read: SurfaceRead) {
     notes.extend(read.notes);
     f.field = FieldState::Loaded(Arc::new(read.surface));
     f.read_notes = notes;
+}
+
+/// Makes the faces of an imported part take their x axes from `axis`, keeping every gauge
+/// where it is on the part and pointing the way it points: each gauge's place and direction
+/// in space are found under the old axes and measured again in the new ones. Refused, with
+/// the part unchanged, when the results are not read or a gauge cannot be found again.
+pub fn set_reference_axis(part: &mut Part, axis: ReferenceAxis) -> Result<(), String> {
+    let Member::ImportedField(f) = &mut part.member else {
+        return Err("only a part from imported results has a reference axis".to_owned());
+    };
+    if f.reference_axis == axis {
+        return Ok(());
+    }
+    let old = f
+        .surface()
+        .ok_or("the results are not read; read them before changing the axis")?;
+    let new = old.with_reference(axis).map_err(|e| e.to_string())?;
+    let mut moved = Vec::with_capacity(part.gauges.len());
+    for g in &part.gauges {
+        let lost = || format!("gauge {} cannot be found again on the surface", g.id);
+        let frame = old.frame(&g.position).ok_or_else(lost)?;
+        let (sin, cos) = g.angle_rad.sin_cos();
+        let dir: [f64; 3] = std::array::from_fn(|i| cos * frame.axis_x[i] + sin * frame.axis_y[i]);
+        let position = new.point_at(frame.position, 1e-6).ok_or_else(lost)?;
+        let there = new.frame(&position).ok_or_else(lost)?;
+        let dot = |a: [f64; 3], b: [f64; 3]| a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
+        let angle = dot(dir, there.axis_y).atan2(dot(dir, there.axis_x));
+        moved.push((position, angle));
+    }
+    for (g, (position, angle)) in part.gauges.iter_mut().zip(moved) {
+        g.position = position;
+        g.angle_rad = angle;
+    }
+    f.reference_axis = axis;
+    f.field = FieldState::Loaded(Arc::new(new));
+    Ok(())
 }
 
 /// The mesh checks of one imported part's gauges: each grid should span at least

@@ -12,7 +12,7 @@ use gw_mechanics::{Face, LoadComponent, Member, SurfacePoint};
 use gw_plan::blank::{blank_project, default_material, new_part};
 use gw_plan::document::{PlanGauge, default_gauge_spec, stock_name_for};
 use gw_plan::evaluate::{EvalOptions, Severity, Target, evaluate};
-use gw_plan::imported_part::{attach, rebase};
+use gw_plan::imported_part::{attach, rebase, set_reference_axis};
 use gw_plan::{Project, load_project, save_project};
 
 /// A fresh folder for one test.
@@ -239,7 +239,10 @@ fn a_reopened_project_takes_its_surface_from_the_cache_while_the_results_are_unc
     save_project(&p, &file).unwrap();
     let first = load_project(&file).unwrap();
     let cache = gw_plan::surface_cache::cache_path(&file, 0, "bar");
-    assert!(cache.is_file(), "the first opening keeps the surface beside the project");
+    assert!(
+        cache.is_file(),
+        "the first opening keeps the surface beside the project"
+    );
     assert_eq!(cache.parent().unwrap(), dir.join("plan-cache"));
 
     // The result file made unreadable with its size and time kept: only the cache can give
@@ -256,10 +259,7 @@ fn a_reopened_project_takes_its_surface_from_the_cache_while_the_results_are_unc
     else {
         unreachable!()
     };
-    assert_eq!(
-        a.surface().unwrap().digest(),
-        b.surface().unwrap().digest()
-    );
+    assert_eq!(a.surface().unwrap().digest(), b.surface().unwrap().digest());
 
     // A new time and other contents: the file is read again (and refused, as it is broken).
     set_modified(&results, time + std::time::Duration::from_secs(5));
@@ -279,6 +279,51 @@ fn a_reopened_project_takes_its_surface_from_the_cache_while_the_results_are_unc
     let repaired = load_project(&file).unwrap();
     assert_eq!(reading(&repaired), reading(&first));
     let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn changing_the_reference_axis_keeps_each_gauge_where_it_is_on_the_part() {
+    let dir = folder("axis");
+    write_bar(&dir, 40, false);
+    let mut p = project(&dir, 0.1);
+    p.parts[0].gauges[0].angle_rad = 30f64.to_radians();
+    let frame = |p: &Project| {
+        let Member::ImportedField(f) = &p.parts[0].member else {
+            unreachable!()
+        };
+        let g = &p.parts[0].gauges[0];
+        let fr = f.surface().unwrap().frame(&g.position).unwrap();
+        let (sin, cos) = g.angle_rad.sin_cos();
+        let dir: Vec<f64> = (0..3)
+            .map(|i| cos * fr.axis_x[i] + sin * fr.axis_y[i])
+            .collect();
+        (fr.position, dir)
+    };
+    let (at, dir) = frame(&p);
+    let before = reading(&p);
+    set_reference_axis(&mut p.parts[0], ReferenceAxis::Y).unwrap();
+    let (at_after, dir_after) = frame(&p);
+    for i in 0..3 {
+        assert!((at[i] - at_after[i]).abs() < 1e-9, "{at:?} → {at_after:?}");
+        assert!(
+            (dir[i] - dir_after[i]).abs() < 1e-9,
+            "{dir:?} → {dir_after:?}"
+        );
+    }
+    // On the top face (normal +z) x now runs along global Y: the grid that was 30° from the
+    // bar's axis is now at 30° − 90° from the face's x.
+    let g = &p.parts[0].gauges[0];
+    assert!(
+        (g.angle_rad.to_degrees() - (30.0 - 90.0)).abs() < 1e-6,
+        "{}",
+        g.angle_rad.to_degrees()
+    );
+    // εxx = 250 µm/m, εyy = −75 µm/m along the bar and across (no shear): at 30° the grid
+    // reads εxx cos²30° + εyy sin²30° (strain transformation, Hibbeler, Mechanics of
+    // Materials, §10.2), whatever the axes it is measured in.
+    let expected = 250e-6 * 0.75 + (-75e-6) * 0.25;
+    assert!((before - expected).abs() < 1e-9, "{before}");
+    assert!((reading(&p) - expected).abs() < 1e-9, "{}", reading(&p));
 }
 
 #[test]

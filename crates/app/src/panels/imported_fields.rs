@@ -2,8 +2,9 @@
 //! the name of each unit load, and where its file is.
 
 use gw_mechanics::Member;
-use gw_mechanics::imported::{FieldState, ImportedSurface};
+use gw_mechanics::imported::{FieldState, ImportedSurface, ReferenceAxis};
 use gw_plan::Part;
+use gw_plan::imported_part::set_reference_axis;
 
 use super::fields::{Editor, Field};
 
@@ -49,23 +50,55 @@ fn info(path: &'static str, label: &str, help: &'static str, text: String) -> Fi
     }
 }
 
+/// The global axis the faces' x axes follow: a choice once the results are read (the gauges
+/// keep their places and directions on the part when it changes), else shown only.
+fn reference_axis_field(f: &ImportedSurface) -> Field<Part> {
+    const PATH: &str = "member.ImportedField.reference_axis";
+    const HELP: &str = "Each face's x axis is this global axis projected onto the face (the \
+                        next axis where it stands square to the face); gauge positions and \
+                        angles are measured in these axes. Changing it keeps every gauge where \
+                        it is on the part.";
+    if f.surface().is_none() {
+        return info(
+            PATH,
+            "Face x axes follow",
+            HELP,
+            f.reference_axis.name().to_owned(),
+        );
+    }
+    Field {
+        path: PATH,
+        label: "Face x axes follow".to_owned(),
+        help: HELP,
+        editor: Editor::Choice {
+            options: ReferenceAxis::ALL
+                .iter()
+                .map(|a| a.name().to_owned())
+                .collect(),
+            get: Box::new(|p: &Part| {
+                imported(&p.member).and_then(|f| {
+                    ReferenceAxis::ALL
+                        .iter()
+                        .position(|&a| a == f.reference_axis)
+                })
+            }),
+            set: Box::new(|p, k| {
+                // Refused only when the results are not read, where this choice is not shown.
+                let _ = set_reference_axis(p, ReferenceAxis::ALL[k]);
+            }),
+        },
+    }
+}
+
 /// The fields of an imported part.
 pub fn imported_fields(f: &ImportedSurface) -> Vec<Field<Part>> {
-    let mut out = vec![
-        info(
-            "member.ImportedField.field",
-            "Surface",
-            "What was read from the result files",
-            surface_summary(f),
-        ),
-        info(
-            "member.ImportedField.reference_axis",
-            "Face x axes follow",
-            "Each face's x axis is this global axis projected onto the face (set when importing; \
-             gauge positions are measured in these axes)",
-            f.reference_axis.name().to_owned(),
-        ),
-    ];
+    let mut out = vec![info(
+        "member.ImportedField.field",
+        "Surface",
+        "What was read from the result files",
+        surface_summary(f),
+    )];
+    out.push(reference_axis_field(f));
     if let Some(mesh) = &f.mesh_file {
         out.push(info(
             "member.ImportedField.mesh_file",
