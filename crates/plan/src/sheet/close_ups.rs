@@ -239,6 +239,9 @@ fn draw_to_edge(w: &mut Writer, centre: [f32; 2], foot: [f32; 2], d: f64, area: 
     arrow_head(w, tip, u, 5.0);
 }
 
+/// An edge by the bits of its two ends, the lower first.
+type EdgeKey = ([u64; 2], [u64; 2]);
+
 /// The element edges of the face within the close-up, in light grey (the diagonals that cut
 /// an element face into triangles left out). False, with nothing drawn, above
 /// [`MAX_TRIANGLES`].
@@ -269,7 +272,7 @@ fn mesh_lines(
         let (a, b) = (a.map(f64::to_bits), b.map(f64::to_bits));
         if a <= b { (a, b) } else { (b, a) }
     };
-    let mut edges: Vec<(([u64; 2], [u64; 2]), u32, [f64; 2], [f64; 2])> = Vec::new();
+    let mut edges: Vec<(EdgeKey, u32, [f64; 2], [f64; 2])> = Vec::new();
     for &t in &near {
         let facet = field.facet_of(face, t).unwrap_or(u32::MAX);
         let c = p.corners[t];

@@ -195,19 +195,26 @@ impl ScreenCells {
             start: vec![0; nx * ny + 1],
             ranks: Vec::new(),
         };
-        let span = |rank: usize| {
-            let t = triangles[order[rank] as usize].map(|k| screen[k as usize]);
-            let (lo, hi) = (t[0].min(t[1]).min(t[2]), t[0].max(t[1]).max(t[2]));
-            cells.range(lo, hi)
+        // Each triangle's cells, found once: (x from, x to, y from, y to), None off the view.
+        let spans: Vec<Option<(u16, u16, u16, u16)>> = order
+            .iter()
+            .map(|&i| {
+                let t = triangles[i as usize].map(|k| screen[k as usize]);
+                let (lo, hi) = (t[0].min(t[1]).min(t[2]), t[0].max(t[1]).max(t[2]));
+                cells
+                    .range(lo, hi)
+                    .map(|(x0, x1, y0, y1)| (x0 as u16, x1 as u16, y0 as u16, y1 as u16))
+            })
+            .collect();
+        let cells_of = |span: (u16, u16, u16, u16)| {
+            let (x0, x1, y0, y1) = span;
+            (y0..=y1)
+                .flat_map(move |y| (x0..=x1).map(move |x| usize::from(y) * nx + usize::from(x)))
         };
         let mut count = vec![0u32; nx * ny];
-        for rank in 0..order.len() {
-            if let Some((x0, x1, y0, y1)) = span(rank) {
-                for y in y0..=y1 {
-                    for x in x0..=x1 {
-                        count[y * nx + x] += 1;
-                    }
-                }
+        for span in spans.iter().flatten() {
+            for c in cells_of(*span) {
+                count[c] += 1;
             }
         }
         let mut start = vec![0u32; nx * ny + 1];
@@ -216,14 +223,11 @@ impl ScreenCells {
         }
         let mut next = start.clone();
         let mut ranks = vec![0u32; start[nx * ny] as usize];
-        for rank in 0..order.len() {
-            if let Some((x0, x1, y0, y1)) = span(rank) {
-                for y in y0..=y1 {
-                    for x in x0..=x1 {
-                        let c = y * nx + x;
-                        ranks[next[c] as usize] = rank as u32;
-                        next[c] += 1;
-                    }
+        for (rank, span) in spans.iter().enumerate() {
+            if let Some(span) = span {
+                for c in cells_of(*span) {
+                    ranks[next[c] as usize] = rank as u32;
+                    next[c] += 1;
                 }
             }
         }
@@ -284,7 +288,17 @@ impl Projection {
             let n = dot(l, l).sqrt();
             l.map(|c| c / n)
         };
-        let mut order: Vec<(f32, u32)> = m
+        // Far to near: the depth sum's bits made to sort as unsigned integers (the sign bit
+        // flipped for positives, every bit for negatives), the triangle's number below them.
+        let sortable = |d: f32| {
+            let bits = d.to_bits();
+            if bits >> 31 == 1 {
+                !bits
+            } else {
+                bits | 1 << 31
+            }
+        };
+        let mut order: Vec<u64> = m
             .triangles
             .iter()
             .enumerate()
@@ -293,10 +307,13 @@ impl Projection {
                     std::array::from_fn(|i| t.iter().map(|&k| m.normals[k as usize][i]).sum());
                 dot(n, eye) > 1e-9
             })
-            .map(|(i, t)| (t.iter().map(|&k| depth[k as usize]).sum::<f32>(), i as u32))
+            .map(|(i, t)| {
+                let d = t.iter().map(|&k| depth[k as usize]).sum::<f32>();
+                (u64::from(sortable(d)) << 32) | i as u64
+            })
             .collect();
-        order.sort_unstable_by(|a, b| a.0.total_cmp(&b.0));
-        let order: Vec<u32> = order.into_iter().map(|(_, i)| i).collect();
+        order.sort_unstable();
+        let order: Vec<u32> = order.into_iter().map(|k| k as u32).collect();
         let mut mesh = epaint::Mesh::default();
         mesh.reserve_vertices(screen.len());
         for (k, p) in screen.iter().enumerate() {
