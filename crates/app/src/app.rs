@@ -658,8 +658,9 @@ impl GaugewrightApp {
                 }]);
                 self.doc.notice = Some(Notice {
                     is_error: false,
-                    text: "Imported part added: open a face from the part view (click it) to \
-                           place gauges, then wire them in the bridges view."
+                    text: "Imported part added: choose \"Click on the part: places a …\" in the \
+                           part view and click where a gauge goes (or click a face to open it), \
+                           then wire the gauges in the bridges view."
                         .into(),
                 });
                 self.import_field = ImportFieldDialog::default();
