@@ -625,6 +625,15 @@ pub enum Neighbour {
         /// The line the edge lies on.
         at: EdgeLine,
     },
+    /// A side of a face of an imported surface, with the face most of that side borders
+    /// (None where the surface ends there, as at a shell's free edge).
+    MeshEdge {
+        /// The line the side lies on (the face's extent; the face's own outline may stay
+        /// inside it).
+        at: EdgeLine,
+        /// The face beyond.
+        beyond: Option<Face>,
+    },
 }
 
 /// The line an edge of a flat face lies on, in face coordinates.
@@ -689,6 +698,13 @@ impl Neighbour {
             }
             Neighbour::PlateEdge { at } => format!("plate edge at {}", at.label(length)),
             Neighbour::RegionEdge { at } => format!("edge at {}", at.label(length)),
+            Neighbour::MeshEdge {
+                at,
+                beyond: Some(f),
+            } => format!("{} at {}", f.name(), at.label(length)),
+            Neighbour::MeshEdge { at, beyond: None } => {
+                format!("free edge at {}", at.label(length))
+            }
         }
     }
 
@@ -711,6 +727,10 @@ impl Neighbour {
             Neighbour::Pole { top: false, .. } => "bottom pole",
             Neighbour::PlateEdge { .. } => "plate edge",
             Neighbour::RegionEdge { .. } => "edge",
+            Neighbour::MeshEdge {
+                beyond: Some(_), ..
+            } => "face",
+            Neighbour::MeshEdge { beyond: None, .. } => "free edge",
         }
     }
 
@@ -741,6 +761,12 @@ impl Neighbour {
             Neighbour::PlateEdge { .. } => "The remote stress acts on the plate beyond this edge.",
             Neighbour::RegionEdge { .. } => {
                 "The given surface state was entered for this region only."
+            }
+            Neighbour::MeshEdge {
+                beyond: Some(_), ..
+            } => "The imported surface continues on this face past the edge.",
+            Neighbour::MeshEdge { beyond: None, .. } => {
+                "The imported surface ends here (a free edge of the mesh)."
             }
         }
     }
@@ -806,7 +832,13 @@ pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
     let (x_range, s_range) =
         extent.map_or(((0.0, 0.0), (0.0, 0.0)), |e| (e.x_range_m, e.s_range_m));
     let s_line = |s_m: f64| EdgeLine::S { s_m };
-    let (x_min, x_max) = ends(member, x_range);
+    let (x_min, x_max) = match (member, face) {
+        (Member::ImportedField(_), Face::Patch(_)) => (
+            mesh_edge(member, face, EdgeLine::X { x_m: x_range.0 }),
+            mesh_edge(member, face, EdgeLine::X { x_m: x_range.1 }),
+        ),
+        _ => ends(member, x_range),
+    };
     let tip = |toward: Face| Neighbour::FlangeTip { toward };
     let (s_max, s_min) = match (member, face) {
         (_, Face::Round) => {
@@ -838,6 +870,10 @@ pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
                 at: s_line(s_range.0),
             },
         ),
+        (Member::ImportedField(_), Face::Patch(_)) => (
+            mesh_edge(member, face, s_line(s_range.1)),
+            mesh_edge(member, face, s_line(s_range.0)),
+        ),
         (Member::GivenState(_) | Member::ImportedField(_), _)
         | (_, Face::Plate | Face::Patch(_)) => (
             Neighbour::RegionEdge {
@@ -857,6 +893,45 @@ pub fn face_edges(member: &Member, face: Face, seam_deg: f64) -> FaceEdges {
         s_min,
         x_min,
         x_max,
+    }
+}
+
+/// The side of an imported face on `line`: the face beyond the longest share of the outline
+/// edges that lie on that line (within a thousandth of the face's size), or a region edge
+/// when none does (the outline stays inside the extent there).
+fn mesh_edge(member: &Member, face: Face, line: EdgeLine) -> Neighbour {
+    let region = Neighbour::RegionEdge { at: line };
+    let (Member::ImportedField(m), Face::Patch(k)) = (member, face) else {
+        return region;
+    };
+    let Some(field) = m.surface() else {
+        return region;
+    };
+    let Some(patch) = field.patches().get(usize::from(k)) else {
+        return region;
+    };
+    let size = (patch.x_range_m.1 - patch.x_range_m.0).max(patch.s_range_m.1 - patch.s_range_m.0);
+    let on = |p: [f64; 2]| match line {
+        EdgeLine::X { x_m } => (p[0] - x_m).abs() <= 1e-3 * size,
+        EdgeLine::S { s_m } => (p[1] - s_m).abs() <= 1e-3 * size,
+    };
+    // Length along the line per face beyond (None: a free edge).
+    let mut shares: Vec<(Option<usize>, f64)> = Vec::new();
+    for e in field.outline(usize::from(k)) {
+        if on(e.from) && on(e.to) {
+            let len = (e.to[0] - e.from[0]).hypot(e.to[1] - e.from[1]);
+            match shares.iter_mut().find(|(b, _)| *b == e.beyond) {
+                Some(share) => share.1 += len,
+                None => shares.push((e.beyond, len)),
+            }
+        }
+    }
+    match shares.iter().max_by(|a, b| a.1.total_cmp(&b.1)) {
+        Some(&(beyond, _)) => Neighbour::MeshEdge {
+            at: line,
+            beyond: beyond.map(|b| Face::Patch(b as u16)),
+        },
+        None => region,
     }
 }
 
@@ -944,6 +1019,88 @@ mod tests {
             support,
             load_points: vec![LoadPoint::whole(0.45)],
         })
+    }
+
+    /// One hexahedron 40 × 20 × 10 mm from the origin, read as an imported part.
+    fn imported_brick() -> Member {
+        use gw_mechanics::imported::{
+            Cell, CellKind, FieldState, ImportedSurface, RawMesh, ReferenceAxis, SurfaceField,
+            TensorQuantity, UnitField,
+        };
+        let points_m: Vec<[f64; 3]> = (0..8)
+            .map(|k| {
+                let (i, j, l) = (k & 1, (k >> 1) & 1, k >> 2);
+                [
+                    0.04 * f64::from(i),
+                    0.02 * f64::from(j),
+                    0.01 * f64::from(l),
+                ]
+            })
+            .collect();
+        // Corner order of a hexahedron: the bottom ring, then the top ring.
+        let nodes = vec![0, 1, 3, 2, 4, 5, 7, 6];
+        let mesh = RawMesh {
+            points_m,
+            cells: vec![Cell {
+                kind: CellKind::Hexa,
+                nodes,
+            }],
+        };
+        let field = UnitField {
+            component: gw_mechanics::LoadComponent::AxialForce,
+            quantity: TensorQuantity::Stress,
+            values: vec![[1.0, 0.0, 0.0, 0.0, 0.0, 0.0]; 8],
+        };
+        let surface = SurfaceField::new(&mesh, vec![field], ReferenceAxis::X).unwrap();
+        Member::ImportedField(ImportedSurface {
+            material: steel(),
+            reference_axis: ReferenceAxis::X,
+            loads: Vec::new(),
+            mesh_file: None,
+            field: FieldState::Loaded(std::sync::Arc::new(surface)),
+            read_notes: Vec::new(),
+        })
+    }
+
+    #[test]
+    fn the_sides_of_an_imported_face_name_the_faces_beyond() {
+        let brick = imported_brick();
+        let Member::ImportedField(m) = &brick else {
+            unreachable!()
+        };
+        let field = m.surface().unwrap();
+        // The top face: normal +z; x runs along global X, s along Y.
+        let top = field
+            .patches()
+            .iter()
+            .position(|p| p.normal[2] > 0.999)
+            .unwrap();
+        let edges = face_edges(&brick, Face::Patch(top as u16), 0.0);
+        let beyond = |n: Neighbour| match n {
+            Neighbour::MeshEdge {
+                beyond: Some(Face::Patch(k)),
+                ..
+            } => field.patches()[usize::from(k)].normal,
+            other => panic!("{other:?}"),
+        };
+        // Past x_min lies the face looking −X, past x_max the one looking +X, past s_min the
+        // one looking −Y, past s_max the one looking +Y.
+        let close = |n: [f64; 3], want: [f64; 3]| (0..3).all(|i| (n[i] - want[i]).abs() < 1e-9);
+        assert!(close(beyond(edges.x_min), [-1.0, 0.0, 0.0]));
+        assert!(close(beyond(edges.x_max), [1.0, 0.0, 0.0]));
+        assert!(close(beyond(edges.s_min), [0.0, -1.0, 0.0]));
+        assert!(close(beyond(edges.s_max), [0.0, 1.0, 0.0]));
+        let mm = |v: f64| format!("{:.0} mm", v * 1e3);
+        let Neighbour::MeshEdge {
+            beyond: Some(f), ..
+        } = edges.x_min
+        else {
+            unreachable!()
+        };
+        assert_eq!(
+            edges.x_min.label(&mm),
+            format!("{} at x = -20 mm", f.name())
+        );
     }
 
     /// A 450 mm × 30 mm face on a 600 × 400 px canvas would be 40 px tall drawn whole; the fit

@@ -469,7 +469,15 @@ pub(super) fn key_height(w: &Writer) -> f32 {
 /// "left edge:" where the edge itself is what is named (an end, a pole, a seam, a flange's or
 /// a plate's edge), "past the break, towards the left edge:" where the drawing stops short.
 pub(super) fn edge_words(reached: bool, which: &str, n: &Neighbour) -> String {
-    let borders_a_face = matches!(n, Neighbour::Face(_) | Neighbour::FlangeInside { .. });
+    let borders_a_face = matches!(
+        n,
+        Neighbour::Face(_)
+            | Neighbour::FlangeInside { .. }
+            | Neighbour::MeshEdge {
+                beyond: Some(_),
+                ..
+            }
+    );
     match (reached, borders_a_face) {
         (false, _) => format!("past the break, towards the {which} edge:"),
         (true, true) => format!("beyond the {which} edge:"),
