@@ -18,7 +18,7 @@ use crate::evaluate::{
 };
 use crate::io::{PlanError, load_project, save_project};
 use crate::sheet::finding_text;
-use crate::units::{Quantity, Units};
+use crate::units::{Quantity, Units, fixed_text, microstrain};
 
 /// What a subcommand prints and returns.
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -46,7 +46,7 @@ fn broken(path: &Path, e: &PlanError) -> CliOutput {
 
 /// Microstrain text.
 fn ue(strain: f64) -> String {
-    format!("{:.1} µε", strain * 1e6)
+    microstrain(strain)
 }
 
 /// `gaugewright check FILE`: validates and prints margins and warnings in SI; status 1 when
@@ -154,9 +154,9 @@ fn write_bridges(
         for c in &b.cases {
             let _ = writeln!(
                 out,
-                "    {}: {:.4} mV/V, displays {}, target {}",
+                "    {}: {} mV/V, displays {}, target {}",
                 c.case,
-                c.reading.mv_per_v,
+                fixed_text(c.reading.mv_per_v, 4),
                 ue(c.reading.displayed_strain),
                 ue(c.reading.target_strain)
             );
@@ -244,17 +244,15 @@ fn write_rejection_and_noise(out: &mut String, b: &BridgeEvaluation, units: Unit
         ue_small(b.channel.resolution_strain),
     );
     let z = &b.zero_band;
-    // A zero that rounds to nothing is shown without a minus sign.
-    let centre = if z.centre_mv_per_v.abs() < 0.5e-4 {
-        0.0
-    } else {
-        z.centre_mv_per_v
-    };
     let _ = writeln!(
         out,
-        "    zero at no load {:.4} mV/V: ± {:.4} mV/V from resistance tolerances (k = {}), \
-         {:.4} to {:.4} mV/V at worst",
-        centre, z.statistical_mv_per_v, z.coverage_k, z.worst_low_mv_per_v, z.worst_high_mv_per_v
+        "    zero at no load {} mV/V: ± {} mV/V from resistance tolerances (k = {}), \
+         {} to {} mV/V at worst",
+        fixed_text(z.centre_mv_per_v, 4),
+        fixed_text(z.statistical_mv_per_v, 4),
+        z.coverage_k,
+        fixed_text(z.worst_low_mv_per_v, 4),
+        fixed_text(z.worst_high_mv_per_v, 4)
     );
     if let Some(note) = z.note() {
         let _ = writeln!(out, "    {note}");

@@ -307,11 +307,17 @@ fn step_decimals(step: f64) -> usize {
 
 /// A number at `decimals` places: exact zero "0", never "-0.00", "—" when not finite.
 pub fn number_text(shown: f64, decimals: usize) -> String {
-    if !shown.is_finite() {
-        return "—".to_owned();
-    }
     if shown == 0.0 {
         return "0".to_owned();
+    }
+    fixed_text(shown, decimals)
+}
+
+/// A number at exactly `decimals` places ("0.0000" for zero), never "-0.0000" for a value that
+/// rounds to zero, "—" when not finite.
+pub fn fixed_text(shown: f64, decimals: usize) -> String {
+    if !shown.is_finite() {
+        return "—".to_owned();
     }
     let text = format!("{shown:.decimals$}");
     match text.strip_prefix('-') {
@@ -380,6 +386,16 @@ mod tests {
         assert!((u.to_display(Quantity::ExpansionCoefficient, 11.7e-6) - 6.5).abs() < 1e-9);
         // 1 W/in² = 1 / 0.0254² W/m² = 1550.0031 W/m².
         assert!((u.from_display(Quantity::PowerDensity, 1.0) - 1550.0031).abs() < 1e-3);
+    }
+
+    #[test]
+    fn fixed_places_never_show_a_negative_zero() {
+        assert_eq!(fixed_text(-0.0, 4), "0.0000");
+        assert_eq!(fixed_text(-0.000_04, 4), "0.0000");
+        assert_eq!(fixed_text(-0.000_06, 4), "-0.0001");
+        assert_eq!(fixed_text(-1.5, 1), "-1.5");
+        assert_eq!(fixed_text(0.25, 3), "0.250");
+        assert_eq!(fixed_text(f64::NAN, 2), "—");
     }
 
     #[test]

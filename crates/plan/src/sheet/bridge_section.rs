@@ -9,7 +9,7 @@ use super::{load, load_per, um, wiring_diagram};
 use crate::connector::{Pinout, pin_number, shunt_place_words};
 use crate::document::{BridgePlan, LeadColours, Part, Project};
 use crate::evaluate::BridgeEvaluation;
-use crate::units::{Quantity, Units};
+use crate::units::{Quantity, Units, fixed_text};
 
 /// The zero reading expected with the part unloaded, in words for a table cell: the
 /// statistical band (root-sum-square of the arms' tolerances) and the worst case, mV/V.
@@ -30,17 +30,17 @@ pub(crate) fn zero_expected(be: &BridgeEvaluation) -> String {
 fn zero_words(be: &BridgeEvaluation) -> String {
     let z = &be.zero_band;
     let mut s = format!(
-        "Zero with the part unloaded: {:.3} mV/V expected with every element at its nominal \
+        "Zero with the part unloaded: {} mV/V expected with every element at its nominal \
          value and the leads in place. Statistical band ±\u{a0}{:.3}\u{a0}mV/V: each arm's resistance \
          tolerance taken as a rectangular distribution and combined root-sum-square, coverage \
          factor k = {:.0} (about 95 % for a near-normal sum; GUM, JCGM 100:2008, 4.3.7 and \
-         G). Worst case, every arm at the tolerance limit that pushes zero furthest: {:.3} to \
-         {:.3} mV/V.",
-        z.centre_mv_per_v,
+         G). Worst case, every arm at the tolerance limit that pushes zero furthest: {} to \
+         {} mV/V.",
+        fixed_text(z.centre_mv_per_v, 3),
         z.statistical_mv_per_v,
         z.coverage_k,
-        z.worst_low_mv_per_v,
-        z.worst_high_mv_per_v
+        fixed_text(z.worst_low_mv_per_v, 3),
+        fixed_text(z.worst_high_mv_per_v, 3)
     );
     if let Some(note) = z.note() {
         s.push(' ');
@@ -182,7 +182,7 @@ fn case_rows(part: &Part, be: &BridgeEvaluation, units: Units) -> Vec<Vec<String
         rows.push(vec![
             c.case.clone(),
             load,
-            format!("{:.4} mV/V", c.reading.mv_per_v),
+            format!("{} mV/V", fixed_text(c.reading.mv_per_v, 4)),
             um(c.reading.displayed_strain),
             um(c.from_temperature_strain),
             um(c.reading.target_strain),

@@ -10,7 +10,7 @@ use gw_plan::result_series::{self, CaseRamp, ErrorCurve};
 use crate::panels::capitalise;
 use crate::panels::plots::export::{PlotTable, export_menu};
 use crate::state::DocumentState;
-use crate::units::{Quantity, Units, microstrain, number_text};
+use crate::units::{Quantity, Units, fixed_text, microstrain, number_text};
 
 /// Case colours and markers, taken in turn, so two cases differ in both.
 const CASE_STYLES: [(Color32, MarkerShape); 6] = [
@@ -32,9 +32,9 @@ const BAND: Color32 = Color32::from_rgba_premultiplied(45, 90, 55, 90);
 pub(super) fn output_ui(ui: &mut egui::Ui, doc: &DocumentState, be: &BridgeEvaluation) {
     for c in &be.cases {
         ui.label(format!(
-            "{}: {:.4} mV/V, displays {} (target {})",
+            "{}: {} mV/V, displays {} (target {})",
             c.case,
-            c.reading.mv_per_v,
+            fixed_text(c.reading.mv_per_v, 4),
             microstrain(c.reading.displayed_strain),
             microstrain(c.reading.target_strain),
         ));
