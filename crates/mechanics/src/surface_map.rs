@@ -193,10 +193,15 @@ pub fn sample_face(
             }
         }
         _ => {
+            // An imported face need not fill its bounds (a hole, a notch, a round end): only
+            // points on it have a value.
+            let off_face = |p: &SurfacePoint| {
+                matches!(member, Member::ImportedField(_)) && member.locate(p).is_err()
+            };
             for &s in &s_m {
                 for &x in &x_m {
                     let inside_hole = extent.hole_radius_m.is_some_and(|a| x * x + s * s < a * a);
-                    if inside_hole {
+                    if inside_hole || off_face(&SurfacePoint::new(face, x, s)) {
                         values.push(None);
                     } else {
                         let p = SurfacePoint::new(face, x, s);

@@ -122,6 +122,57 @@ pub struct OutlineEdge {
     pub to: [f64; 2],
     /// The face beyond it (None: the surface ends there).
     pub beyond: Option<usize>,
+    /// The surface nodes it runs between (`from`, `to`).
+    pub nodes: [u32; 2],
+}
+
+/// The outline's edges joined into closed rings of points (the last point joins the first),
+/// each ring one boundary of the face: its outer edge, or the edge of a hole in it. A region
+/// filled by the even–odd rule over every ring is the face. Edges are joined end to end by the
+/// nodes they share, whichever way each runs.
+pub fn outline_rings(edges: &[OutlineEdge]) -> Vec<Vec<[f64; 2]>> {
+    // (node, edge) for both ends of every edge, sorted by node.
+    let mut ends: Vec<(u32, usize)> = edges
+        .iter()
+        .enumerate()
+        .flat_map(|(i, e)| [(e.nodes[0], i), (e.nodes[1], i)])
+        .collect();
+    ends.sort_unstable();
+    let mut used = vec![false; edges.len()];
+    let mut rings = Vec::new();
+    for first in 0..edges.len() {
+        if used[first] {
+            continue;
+        }
+        let start = edges[first].nodes[0];
+        let mut ring = vec![edges[first].from];
+        let (mut edge, mut at) = (first, start);
+        loop {
+            used[edge] = true;
+            let e = &edges[edge];
+            let (next_node, point) = if e.nodes[0] == at {
+                (e.nodes[1], e.to)
+            } else {
+                (e.nodes[0], e.from)
+            };
+            at = next_node;
+            if at == start {
+                break;
+            }
+            ring.push(point);
+            let lo = ends.partition_point(|&(n, _)| n < at);
+            match ends[lo..]
+                .iter()
+                .take_while(|&&(n, _)| n == at)
+                .find(|&&(_, j)| !used[j])
+            {
+                Some(&(_, j)) => edge = j,
+                None => break,
+            }
+        }
+        rings.push(ring);
+    }
+    rings
 }
 
 /// The outer surface of a mesh as triangles with the unit fields at their nodes, before it is
@@ -691,10 +742,14 @@ impl SurfaceField {
         }
         once.iter()
             .zip(beyond)
-            .map(|(&(_, i, k), beyond)| OutlineEdge {
-                from: p.corners[i][k],
-                to: p.corners[i][(k + 1) % 3],
-                beyond,
+            .map(|(&(_, i, k), beyond)| {
+                let tri = self.triangles[p.triangles[i] as usize];
+                OutlineEdge {
+                    from: p.corners[i][k],
+                    to: p.corners[i][(k + 1) % 3],
+                    beyond,
+                    nodes: [tri[k], tri[(k + 1) % 3]],
+                }
             })
             .collect()
     }
@@ -898,6 +953,108 @@ mod tests {
                 .all(|&k| dot(f.patches()[k].normal, top.normal).abs() < 1e-9)
         );
         assert!(f.outline(99).is_empty());
+    }
+
+    /// Twice the signed area of a ring (shoelace).
+    fn ring_area(ring: &[[f64; 2]]) -> f64 {
+        (0..ring.len())
+            .map(|i| {
+                let (a, b) = (ring[i], ring[(i + 1) % ring.len()]);
+                a[0] * b[1] - b[0] * a[1]
+            })
+            .sum::<f64>()
+            / 2.0
+    }
+
+    /// A 0.5 m square plate 0.05 m thick (5 × 5 × 5 hexahedra; the cells' thickness does not
+    /// matter) with the middle column of cells taken out: a 0.1 m square hole through it.
+    fn holed_plate() -> RawMesh {
+        let mut mesh = block(5, [0.5, 0.5, 0.05]);
+        let n = 5;
+        let cells: Vec<Cell> = mesh
+            .cells
+            .iter()
+            .enumerate()
+            .filter(|(c, _)| {
+                let (i, j) = (c % n, (c / n) % n);
+                !(i == 2 && j == 2)
+            })
+            .map(|(_, c)| c.clone())
+            .collect();
+        mesh.cells = cells;
+        mesh
+    }
+
+    #[test]
+    fn a_map_of_a_face_with_a_hole_has_no_value_in_the_hole() {
+        use crate::imported::{FieldState, ImportedSurface};
+        use crate::surface_map::{StrainBasis, SurfaceQuantity, surface_map};
+        let mesh = holed_plate();
+        let f = SurfaceField::new(&mesh, vec![uniaxial(&mesh)], ReferenceAxis::X).unwrap();
+        let top = f.patches()[0].clone();
+        let member = crate::Member::ImportedField(ImportedSurface {
+            material: steel(),
+            reference_axis: ReferenceAxis::X,
+            loads: Vec::new(),
+            mesh_file: None,
+            field: FieldState::Loaded(std::sync::Arc::new(f)),
+            read_notes: Vec::new(),
+        });
+        let mut loads = LoadVector::default();
+        loads[LoadComponent::AxialForce] = 1.0;
+        let (nx, ns) = (50, 50);
+        let map = surface_map(
+            &member,
+            crate::Face::Patch(0),
+            &loads,
+            SurfaceQuantity::StrainAlong(0.0),
+            StrainBasis::Mechanical,
+            nx,
+            ns,
+        )
+        .unwrap();
+        // Cell centres in the hole (the middle fifth each way) have none; the rest read the
+        // uniform stress: σxx = 1 Pa, so the strain along x is 1/E (Hooke's law).
+        let (x0, s0) = (top.x_range_m.0, top.s_range_m.0);
+        for j in 0..ns {
+            for i in 0..nx {
+                let v = map.values[j * nx + i];
+                let (x, s) = (map.x_m[i] - x0, map.s_m[j] - s0);
+                let in_hole = (0.2..0.3).contains(&x) && (0.2..0.3).contains(&s);
+                match v {
+                    None => assert!(in_hole, "no value at ({x}, {s})"),
+                    Some(e) => {
+                        assert!(!in_hole, "a value in the hole at ({x}, {s})");
+                        assert!((e * 200e9 - 1.0).abs() < 1e-9, "{e}");
+                    }
+                }
+            }
+        }
+    }
+
+    #[test]
+    fn the_outline_of_a_plate_with_a_square_hole_is_two_rings() {
+        let mesh = holed_plate();
+        let f = SurfaceField::new(&mesh, vec![uniaxial(&mesh)], ReferenceAxis::X).unwrap();
+        let top = &f.patches()[0];
+        assert!(top.normal[2].abs() > 0.999);
+        // Plane geometry: 0.5² − 0.1² = 0.24 m².
+        assert!((top.area_m2 - 0.24).abs() < 1e-12, "{}", top.area_m2);
+        let mut rings = outline_rings(&f.outline(0));
+        rings.sort_by(|a, b| ring_area(a).abs().total_cmp(&ring_area(b).abs()));
+        assert_eq!(rings.len(), 2);
+        // The hole: one element edge a side; the outer edge: five a side.
+        assert_eq!(rings[0].len(), 4);
+        assert_eq!(rings[1].len(), 20);
+        assert!((ring_area(&rings[0]).abs() - 0.01).abs() < 1e-12);
+        assert!((ring_area(&rings[1]).abs() - 0.25).abs() < 1e-12);
+        // Each ring is closed by its own edges: consecutive points are one element apart.
+        for ring in &rings {
+            for i in 0..ring.len() {
+                let (a, b) = (ring[i], ring[(i + 1) % ring.len()]);
+                assert!(((a[0] - b[0]).hypot(a[1] - b[1]) - 0.1).abs() < 1e-12);
+            }
+        }
     }
 
     #[test]

@@ -16,7 +16,7 @@ pub use units::{FieldUnits, LengthUnit, ShearConvention, TensorQuantity, TensorU
 pub mod field;
 pub mod patches;
 
-pub use field::{Located, OutlineEdge, SurfaceField, SurfaceMesh, UnitField};
+pub use field::{Located, OutlineEdge, SurfaceField, SurfaceMesh, UnitField, outline_rings};
 pub use patches::{Patch, ReferenceAxis};
 
 use std::borrow::Cow;
