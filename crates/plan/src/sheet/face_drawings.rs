@@ -259,7 +259,9 @@ impl Drawing<'_> {
                 };
                 for (a, b) in marks::outside_boxes(p, q, &avoid) {
                     for (a, b) in self.outside_hole(a, b) {
-                        marks::dashed(w, a, b, 3.0, 130);
+                        for (a, b) in self.on_imported_face(i, a, b) {
+                            marks::dashed(w, a, b, 3.0, 130);
+                        }
                     }
                 }
             }
@@ -272,6 +274,45 @@ impl Drawing<'_> {
             Some((c, r)) => marks::outside_circle(a, b, c, r),
             None => vec![(a, b)],
         }
+    }
+
+    /// The pieces of segment `a`–`b` (in the window of gauge `i`) that lie on an imported face:
+    /// a face need not fill its bounds, and nothing is prepared in a hole. All of it on the
+    /// closed-form faces.
+    fn on_imported_face(&self, i: usize, a: [f32; 2], b: [f32; 2]) -> Vec<([f32; 2], [f32; 2])> {
+        let Some(surface) = &self.setup.surface else {
+            return vec![(a, b)];
+        };
+        let g = &self.setup.gauges[i].position;
+        let (c, k) = (self.centre(i), self.k());
+        let on = |p: [f32; 2]| {
+            let x = g.x_m + f64::from((p[0] - c[0]) / k);
+            let s = g.s_m - f64::from((p[1] - c[1]) / k);
+            surface
+                .locate(&gw_mechanics::SurfacePoint::new(g.face, x, s))
+                .is_ok()
+        };
+        // Steps of about half a point: a dash is 3 points long.
+        let len = (b[0] - a[0]).hypot(b[1] - a[1]);
+        let n = (len / 0.5).ceil().max(1.0) as usize;
+        let at = |t: f32| [a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])];
+        let mut out = Vec::new();
+        let mut start: Option<f32> = None;
+        for j in 0..n {
+            let (t0, t1) = (j as f32 / n as f32, (j + 1) as f32 / n as f32);
+            match (on(at((t0 + t1) / 2.0)), start) {
+                (true, None) => start = Some(t0),
+                (false, Some(t)) => {
+                    out.push((at(t), at(t0)));
+                    start = None;
+                }
+                _ => {}
+            }
+        }
+        if let Some(t) = start {
+            out.push((at(t), b));
+        }
+        out
     }
 
     /// The page box of the part of the face (window and face bounds) holding gauge `i`.

@@ -46,6 +46,9 @@ pub(crate) enum Op {
         grey: u8,
         fill: Option<u8>,
     },
+    /// An area bounded by closed rings, filled by the even–odd rule (a ring inside another is
+    /// a hole), not outlined.
+    Region { rings: Vec<Vec<[f32; 2]>>, fill: u8 },
 }
 
 /// An axis-aligned box, points (y down).
@@ -267,6 +270,7 @@ pub(crate) fn segments(op: &Op) -> Vec<([f32; 2], [f32; 2])> {
             let c = [[*x, *y], [x + w, *y], [x + w, y + h], [*x, y + h]];
             (0..4).map(|k| (c[k], c[(k + 1) % 4])).collect()
         }
+        Op::Region { .. } => Vec::new(),
         Op::Path {
             points,
             closed,
@@ -297,21 +301,25 @@ pub(crate) fn op_area(op: &Op) -> Area {
         } => text_area(*x, *y, *size, *bold, text),
         Op::Line { x1, y1, x2, y2, .. } => Area::new(*x1, *y1, *x2, *y2),
         Op::Rect { x, y, w, h, .. } => Area::new(*x, *y, x + w, y + h),
-        Op::Path { points, .. } => {
-            let empty = Area {
-                x0: f32::MAX,
-                y0: f32::MAX,
-                x1: f32::MIN,
-                y1: f32::MIN,
-            };
-            points.iter().fold(empty, |a, p| Area {
-                x0: a.x0.min(p[0]),
-                y0: a.y0.min(p[1]),
-                x1: a.x1.max(p[0]),
-                y1: a.y1.max(p[1]),
-            })
-        }
+        Op::Path { points, .. } => points_area(points.iter()),
+        Op::Region { rings, .. } => points_area(rings.iter().flatten()),
     }
+}
+
+/// The box round some points.
+fn points_area<'a>(points: impl Iterator<Item = &'a [f32; 2]>) -> Area {
+    let empty = Area {
+        x0: f32::MAX,
+        y0: f32::MAX,
+        x1: f32::MIN,
+        y1: f32::MIN,
+    };
+    points.fold(empty, |a, p| Area {
+        x0: a.x0.min(p[0]),
+        y0: a.y0.min(p[1]),
+        x1: a.x1.max(p[0]),
+        y1: a.y1.max(p[1]),
+    })
 }
 
 /// A text box shrunk a little for the checks: glyphs do not fill their boxes to the edge, and
@@ -346,6 +354,7 @@ pub(crate) fn problems(ops: &[Op], width: f32, height: f32) -> Vec<String> {
     for (i, op) in ops.iter().enumerate() {
         let filled = match op {
             Op::Rect { fill, .. } | Op::Path { fill, .. } => fill.is_some(),
+            Op::Region { .. } => true,
             _ => false,
         };
         if filled {

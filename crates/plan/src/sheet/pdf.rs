@@ -5,7 +5,7 @@ use krilla::color::luma;
 use krilla::geom::{Path, PathBuilder, Point};
 use krilla::num::NormalizedF32;
 use krilla::page::PageSettings;
-use krilla::paint::{Fill, Stroke};
+use krilla::paint::{Fill, FillRule, Stroke};
 use krilla::surface::Surface;
 use krilla::text::{Font, TextDirection};
 
@@ -123,6 +123,24 @@ fn draw_op(surface: &mut Surface, fonts: &[Font; 2], op: &Op, with_text: bool) {
                 pb.close();
             }
             draw(surface, pb.finish(), *fill, Some((*width, *grey)));
+        }
+        Op::Region { rings, fill } => {
+            let mut pb = PathBuilder::new();
+            for ring in rings.iter().filter(|r| r.len() > 2) {
+                pb.move_to(ring[0][0], ring[0][1]);
+                for p in &ring[1..] {
+                    pb.line_to(p[0], p[1]);
+                }
+                pb.close();
+            }
+            if let Some(path) = pb.finish() {
+                surface.set_fill(Some(Fill {
+                    rule: FillRule::EvenOdd,
+                    ..grey_fill(*fill)
+                }));
+                surface.set_stroke(None);
+                surface.draw_path(&path);
+            }
         }
     }
 }

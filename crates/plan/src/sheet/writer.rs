@@ -239,6 +239,11 @@ impl Writer {
         });
     }
 
+    /// An area bounded by closed rings, filled in `fill` by the even–odd rule.
+    pub fn region(&mut self, rings: Vec<Vec<[f32; 2]>>, fill: u8) {
+        self.ops().push(Op::Region { rings, fill });
+    }
+
     /// A table across the column. `widths` are the columns' shares of the column width; the
     /// first row is the heading, in bold, with a rule under it. Cells wrap within their
     /// column; a row moves to the next page whole, and the heading is repeated there.

@@ -46,7 +46,11 @@ pub(super) fn edges_ui(
     let face = view.face_rect(&scene.bounds);
     let edges = face_edges(&scene.part.member, scene.face, scene.seam_deg);
     let text = ui.visuals().text_color();
-    painter.rect_stroke(face, 0.0, Stroke::new(1.0, text), egui::StrokeKind::Outside);
+    if scene.outline.is_empty() {
+        painter.rect_stroke(face, 0.0, Stroke::new(1.0, text), egui::StrokeKind::Outside);
+    } else {
+        outline_ui(ui, painter, scene, view);
+    }
     if let Member::PlateWithHole(p) = &scene.part.member {
         hole_ui(ui, painter, view, p.hole_diameter_m / 2.0);
     }
@@ -59,6 +63,22 @@ pub(super) fn edges_ui(
         (Side::Right, edges.x_max),
     ] {
         band_ui(ui, painter, scene, view, placer, side, neighbour);
+    }
+}
+
+/// An imported face's own outline (its holes and notches included) over a faint frame of its
+/// bounds, where the bands beyond its sides stand.
+fn outline_ui(ui: &egui::Ui, painter: &Painter, scene: &Scene, view: View) {
+    let face = view.face_rect(&scene.bounds);
+    let weak = ui.visuals().weak_text_color().gamma_multiply(0.5);
+    painter.rect_stroke(face, 0.0, Stroke::new(0.5, weak), egui::StrokeKind::Outside);
+    let stroke = Stroke::new(1.5, ui.visuals().text_color());
+    let shown = view.area.expand(2.0);
+    for e in scene.outline.iter() {
+        let (a, b) = (view.pos(e.from[0], e.from[1]), view.pos(e.to[0], e.to[1]));
+        if shown.intersects(Rect::from_two_pos(a, b)) {
+            painter.line_segment([a, b], stroke);
+        }
     }
 }
 

@@ -15,10 +15,12 @@ mod rulers;
 mod toolbar;
 
 use std::f64::consts::TAU;
+use std::sync::Arc;
 
 use egui::{Pos2, Rect, pos2, vec2};
 use gw_bridge::{GaugePattern, PlacedGauge};
-use gw_mechanics::{Face, FaceExtent, LoadVector, SurfacePoint};
+use gw_mechanics::imported::OutlineEdge;
+use gw_mechanics::{Face, FaceExtent, LoadVector, Member, SurfacePoint};
 use gw_plan::Part;
 use gw_plan::drawing::face_layout::{
     FaceBounds, FaceWindow, FitKind, LabelPlacer, ScreenRect, seam_angle, wrap_into,
@@ -44,6 +46,9 @@ const BELOW_CANVAS: f32 = 172.0;
 /// panned.
 type Fitted = Option<(FitKind, egui::Vec2)>;
 
+/// What an imported face's outline was found for: part, face and the surface's digest.
+type OutlineKey = (usize, Face, u64);
+
 /// View state of the face view.
 pub struct FaceView {
     face: Option<Face>,
@@ -65,6 +70,8 @@ pub struct FaceView {
     seam: Option<((usize, Face, usize), f64)>,
     /// A change of window asked for by a button, done once the canvas is laid out.
     request: Option<ViewRequest>,
+    /// The outline of the imported face shown, for (part, face, the surface's digest).
+    outline: Option<(OutlineKey, Arc<Vec<OutlineEdge>>)>,
 }
 
 /// A change of window asked for by a button.
@@ -89,6 +96,7 @@ impl Default for FaceView {
             window: None,
             seam: None,
             request: None,
+            outline: None,
         }
     }
 }
@@ -110,6 +118,9 @@ struct Scene<'a> {
     units: Units,
     /// Every gauge of the part that resolves, with its index in the part's list.
     gauges: Vec<(usize, PlacedGauge)>,
+    /// The true outline of a face of an imported part (empty for closed-form faces, which fill
+    /// their bounds).
+    outline: Arc<Vec<OutlineEdge>>,
 }
 
 impl Scene<'_> {
@@ -319,10 +330,12 @@ impl FaceView {
             // Forget the window if the selected gauge is not in it, so the view comes to it.
             self.forget_window_unless_showing(sel.gauge, &gauges);
         }
+        let outline = self.outline_of(sel.part, part, extent.face);
         Some(Scene {
             doc,
             sel,
             part,
+            outline,
             face: extent.face,
             extent,
             bounds,
@@ -332,6 +345,26 @@ impl FaceView {
             units: doc.units,
             gauges,
         })
+    }
+
+    /// The outline of face `face` of an imported part, kept while the part, face and surface
+    /// stay the same (finding it walks the whole surface); empty for closed-form faces.
+    fn outline_of(&mut self, index: usize, part: &Part, face: Face) -> Arc<Vec<OutlineEdge>> {
+        let (Member::ImportedField(m), Face::Patch(k)) = (&part.member, face) else {
+            return Arc::default();
+        };
+        let Some(field) = m.surface() else {
+            return Arc::default();
+        };
+        let key = (index, face, field.digest());
+        match &self.outline {
+            Some((kept, edges)) if *kept == key => edges.clone(),
+            _ => {
+                let edges = Arc::new(field.outline(usize::from(k)));
+                self.outline = Some((key, edges.clone()));
+                edges
+            }
+        }
     }
 
     /// The seam of a round face: kept while the gauges on the face stay clear of it, chosen

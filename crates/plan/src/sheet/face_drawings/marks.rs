@@ -198,6 +198,50 @@ pub(crate) fn gauge(w: &mut Writer, g: &PlacedGauge, centre: [f32; 2], k: f32) -
     GaugeMarks { area, tab_ends }
 }
 
+/// The part of a polygon (closed; any shape) inside `clip`, by clipping against each side in
+/// turn (Sutherland–Hodgman). Where the polygon leaves the box and comes back, the result runs
+/// along the box's side; filled, it covers exactly the polygon's area inside the box.
+pub(crate) fn clip_polygon(points: &[[f32; 2]], clip: &Area) -> Vec<[f32; 2]> {
+    let mut out = points.to_vec();
+    // (axis, limit, keep the side above the limit)
+    for (axis, limit, above) in [
+        (0, clip.x0, true),
+        (0, clip.x1, false),
+        (1, clip.y0, true),
+        (1, clip.y1, false),
+    ] {
+        let input = std::mem::take(&mut out);
+        let Some(&last) = input.last() else {
+            break;
+        };
+        let inside = |p: [f32; 2]| {
+            if above {
+                p[axis] >= limit
+            } else {
+                p[axis] <= limit
+            }
+        };
+        let cross = |a: [f32; 2], b: [f32; 2]| {
+            let t = (limit - a[axis]) / (b[axis] - a[axis]);
+            [a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])]
+        };
+        let mut prev = last;
+        for &p in &input {
+            match (inside(prev), inside(p)) {
+                (true, true) => out.push(p),
+                (true, false) => out.push(cross(prev, p)),
+                (false, true) => {
+                    out.push(cross(prev, p));
+                    out.push(p);
+                }
+                (false, false) => {}
+            }
+            prev = p;
+        }
+    }
+    out
+}
+
 /// The part of segment `a`–`b` inside `clip`, if any (Liang–Barsky).
 pub(crate) fn clip_segment(a: [f32; 2], b: [f32; 2], clip: &Area) -> Option<([f32; 2], [f32; 2])> {
     let d = [b[0] - a[0], b[1] - a[1]];

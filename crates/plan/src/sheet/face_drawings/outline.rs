@@ -1,6 +1,8 @@
 //! The face itself (its windows, edges, breaks and any hole), the dimension and extension
 //! lines, and the scale bar with the axis arrows.
 
+use gw_mechanics::imported::outline_rings;
+
 use super::{Drawing, EDGE_ROWS, ROW, TIER, label_h, marks};
 use crate::sheet::layout::Area;
 use crate::sheet::writer::Writer;
@@ -13,10 +15,13 @@ const SAME_M: f64 = 1e-9;
 
 impl Drawing<'_> {
     /// The face in each pair of windows, shaded, with its true edges drawn solid and a break
-    /// line where a window stops short of the edge.
+    /// line where a window stops short of the edge. A face of an imported part is shaded and
+    /// edged along its own outline (holes left open), not its bounding rectangle.
     pub(super) fn draw_face_outline(&self, w: &mut Writer) {
         let b = self.setup.bounds;
         let f = &self.frame;
+        let outline = &self.setup.outline;
+        let rings = outline_rings(outline);
         for &(xa, xb) in &f.x.windows {
             let (x0, x1) = (xa.max(b.x_m.0), xb.min(b.x_m.1));
             for &(sa, sb) in &f.s.windows {
@@ -29,7 +34,12 @@ impl Drawing<'_> {
                 else {
                     continue;
                 };
-                w.rect(Area::new(px0, py0, px1, py1), Some(238), 0.0);
+                let area = Area::new(px0, py0, px1, py1);
+                if outline.is_empty() {
+                    w.rect(area, Some(238), 0.0);
+                } else {
+                    self.draw_true_face(w, &rings, (x0, s0), area);
+                }
                 let edge = |at: f64, end: f64| (at - end).abs() < SAME_M;
                 let sides = [
                     (edge(x0, b.x_m.0), [px0, py0], [px0, py1]),
@@ -38,15 +48,53 @@ impl Drawing<'_> {
                     (edge(s0, b.s_m.0), [px0, py1], [px1, py1]),
                 ];
                 for (is_edge, p, q) in sides {
-                    if is_edge {
-                        w.line(p, q, 0.9, 0);
-                    } else {
+                    if !is_edge {
                         marks::break_line(w, p, q);
+                    } else if outline.is_empty() {
+                        w.line(p, q, 0.9, 0);
                     }
                 }
             }
         }
         self.draw_hole(w);
+    }
+
+    /// An imported face inside one window (`area` on the page, its lower left corner at face
+    /// point `origin`): the face's rings shaded by the even–odd rule, its outline drawn solid.
+    fn draw_true_face(
+        &self,
+        w: &mut Writer,
+        rings: &[Vec<[f64; 2]>],
+        origin: (f64, f64),
+        area: Area,
+    ) {
+        let k = f64::from(self.k());
+        let page = |p: [f64; 2]| {
+            [
+                area.x0 + ((p[0] - origin.0) * k) as f32,
+                area.y1 - ((p[1] - origin.1) * k) as f32,
+            ]
+        };
+        let shaded: Vec<Vec<[f32; 2]>> = rings
+            .iter()
+            .map(|r| {
+                let on_page: Vec<[f32; 2]> = r.iter().map(|p| page(*p)).collect();
+                marks::clip_polygon(&on_page, &area)
+            })
+            .filter(|r| r.len() > 2)
+            .collect();
+        if !shaded.is_empty() {
+            w.region(shaded, 238);
+        }
+        // Edges along the window's own sides land a rounding error outside it: kept.
+        let keep = area.grown(0.05);
+        for e in &self.setup.outline {
+            if let Some((p, q)) = marks::clip_segment(page(e.from), page(e.to), &keep)
+                && (q[0] - p[0]).hypot(q[1] - p[1]) > 0.05
+            {
+                w.line(p, q, 0.9, 0);
+            }
+        }
     }
 
     /// A plate's hole, where it lies in the windows: white (no metal there) with its outline.

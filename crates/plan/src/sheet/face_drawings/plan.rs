@@ -5,6 +5,9 @@
 use std::f64::consts::TAU;
 
 use gw_bridge::PlacedGauge;
+use std::sync::Arc;
+
+use gw_mechanics::imported::{FieldState, ImportedSurface, OutlineEdge, SurfaceField};
 use gw_mechanics::{Face, FaceExtent, Member};
 
 use crate::drawing::face_layout::{FaceBounds, FaceEdges, face_edges, seam_angle, wrap_into};
@@ -218,6 +221,11 @@ pub(crate) struct FaceSetup {
     pub datum_stated: (f64, f64),
     /// True on the outer face of a sphere (x is the meridian arc).
     pub sphere: bool,
+    /// The true outline of a face of an imported part (empty for the closed-form faces, which
+    /// fill their bounds).
+    pub outline: Vec<OutlineEdge>,
+    /// The surface of an imported part, to tell what lies on the face.
+    pub surface: Option<Arc<SurfaceField>>,
 }
 
 impl FaceSetup {
@@ -271,6 +279,19 @@ impl FaceSetup {
             datum,
             datum_stated,
             sphere: matches!(member, Member::ThinSphere(_)),
+            outline: match (member, extent.face) {
+                (Member::ImportedField(m), Face::Patch(k)) => m
+                    .surface()
+                    .map_or_else(Vec::new, |f| f.outline(usize::from(k))),
+                _ => Vec::new(),
+            },
+            surface: match member {
+                Member::ImportedField(ImportedSurface {
+                    field: FieldState::Loaded(f),
+                    ..
+                }) => Some(f.clone()),
+                _ => None,
+            },
         })
     }
 

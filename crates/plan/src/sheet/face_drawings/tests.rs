@@ -550,3 +550,219 @@ fn a_plates_hole_is_drawn_open_and_the_datum_is_found_from_its_edge() {
     assert!(all.contains("The datum is the hole's centre"), "{all}");
     assert!(all.contains(&want), "{want} not in {all}");
 }
+
+/// Twice-halved shoelace area of a ring, square points.
+fn ring_area(ring: &[[f32; 2]]) -> f64 {
+    let n = ring.len();
+    (0..n)
+        .map(|i| {
+            let (a, b) = (ring[i], ring[(i + 1) % n]);
+            f64::from(a[0]) * f64::from(b[1]) - f64::from(b[0]) * f64::from(a[1])
+        })
+        .sum::<f64>()
+        .abs()
+        / 2.0
+}
+
+#[test]
+fn a_polygon_clipped_to_a_box_keeps_the_area_inside_it() {
+    // Plane geometry: the square 0..10 overlaps the box 5..15 in a 5 × 5 square; an L shape
+    // (the square 0..10 less its quarter 5..10 × 5..10) overlaps the box 0..20 × 0..5 in 10 × 5.
+    let square = [[0.0, 0.0], [10.0, 0.0], [10.0, 10.0], [0.0, 10.0]];
+    let clipped = marks::clip_polygon(&square, &Area::new(5.0, 5.0, 15.0, 15.0));
+    assert!((ring_area(&clipped) - 25.0).abs() < 1e-9, "{clipped:?}");
+    let l_shape = [
+        [0.0, 0.0],
+        [10.0, 0.0],
+        [10.0, 5.0],
+        [5.0, 5.0],
+        [5.0, 10.0],
+        [0.0, 10.0],
+    ];
+    let clipped = marks::clip_polygon(&l_shape, &Area::new(0.0, 0.0, 20.0, 5.0));
+    assert!((ring_area(&clipped) - 50.0).abs() < 1e-9, "{clipped:?}");
+    assert!(marks::clip_polygon(&square, &Area::new(20.0, 20.0, 30.0, 30.0)).is_empty());
+}
+
+/// A 60 × 40 mm steel strap, 3 mm thick, with a 10 × 6 mm slot through it, as an imported part
+/// (2 mm hexahedra, 30 × 20 less 5 × 3 of them), under a uniform unit stress.
+fn holed_plate() -> gw_mechanics::Member {
+    use gw_mechanics::imported::{
+        Cell, CellKind, FieldState, ImportedSurface, RawMesh, ReferenceAxis, SurfaceField,
+        TensorQuantity, UnitField,
+    };
+    let (nx, ny) = (30u32, 20u32);
+    let id = |i: u32, j: u32, k: u32| (k * (ny + 1) + j) * (nx + 1) + i;
+    let mut points_m = Vec::new();
+    for k in 0..2 {
+        for j in 0..=ny {
+            for i in 0..=nx {
+                points_m.push([
+                    0.002 * f64::from(i),
+                    0.002 * f64::from(j),
+                    0.003 * f64::from(k),
+                ]);
+            }
+        }
+    }
+    let mut cells = Vec::new();
+    for j in 0..ny {
+        for i in 0..nx {
+            if (12..17).contains(&i) && (8..11).contains(&j) {
+                continue;
+            }
+            cells.push(Cell {
+                kind: CellKind::Hexa,
+                nodes: vec![
+                    id(i, j, 0),
+                    id(i + 1, j, 0),
+                    id(i + 1, j + 1, 0),
+                    id(i, j + 1, 0),
+                    id(i, j, 1),
+                    id(i + 1, j, 1),
+                    id(i + 1, j + 1, 1),
+                    id(i, j + 1, 1),
+                ],
+            });
+        }
+    }
+    let field = UnitField {
+        component: gw_mechanics::LoadComponent::AxialForce,
+        quantity: TensorQuantity::Stress,
+        values: vec![[1.0, 0.0, 0.0, 0.0, 0.0, 0.0]; points_m.len()],
+    };
+    let mesh = RawMesh { points_m, cells };
+    let surface = SurfaceField::new(&mesh, vec![field], ReferenceAxis::X).unwrap();
+    gw_mechanics::Member::ImportedField(ImportedSurface {
+        material: gw_mechanics::library_material("carbon_steel")
+            .unwrap()
+            .material(),
+        reference_axis: ReferenceAxis::X,
+        loads: Vec::new(),
+        mesh_file: None,
+        field: FieldState::Loaded(std::sync::Arc::new(surface)),
+        read_notes: Vec::new(),
+    })
+}
+
+#[test]
+fn an_imported_face_is_drawn_by_its_own_outline_with_its_hole_open() {
+    let mut project = crate::demo::demo_project();
+    let mut part = project.parts[0].clone();
+    part.member = holed_plate();
+    let gw_mechanics::Member::ImportedField(m) = &part.member else {
+        unreachable!()
+    };
+    // One gauge on the top face, 3 mm right of the slot.
+    let at = m
+        .surface()
+        .unwrap()
+        .point_at([0.037, 0.019, 0.003], 1e-6)
+        .unwrap();
+    part.gauges.truncate(1);
+    part.gauges[0].position = at;
+    part.gauges[0].angle_rad = 0.0;
+    project.parts = vec![part.clone()];
+    let placed = project.placed_gauges(&part);
+    let mut w = writer();
+    draw(&mut w, &part, &placed);
+    let ops = &w.pages[0];
+    // No shaded bounding rectangle: the face is a region of rings.
+    assert!(
+        !ops.iter().any(|op| matches!(
+            op,
+            Op::Rect {
+                fill: Some(238),
+                ..
+            }
+        )),
+        "the bounding rectangle is shaded"
+    );
+    let rings = ops
+        .iter()
+        .find_map(|op| match op {
+            Op::Region { rings, fill: 238 } => Some(rings.clone()),
+            _ => None,
+        })
+        .expect("the face is shaded by its outline");
+    // At the stated scale, the slot is 10 × 6 mm and the whole face (drawn in one window)
+    // 60 × 40 mm: the shaded area is their difference.
+    let pt_per_m = stated_ratio(&w) * 72.0 / 0.0254;
+    let mut areas_mm2: Vec<f64> = rings
+        .iter()
+        .map(|r| ring_area(r) / (pt_per_m * pt_per_m) * 1e6)
+        .collect();
+    areas_mm2.sort_by(f64::total_cmp);
+    assert_eq!(areas_mm2.len(), 2, "{areas_mm2:?}");
+    assert!((areas_mm2[0] - 60.0).abs() < 0.5, "{areas_mm2:?}");
+    assert!((areas_mm2[1] - 2400.0).abs() < 10.0, "{areas_mm2:?}");
+    // Every side of both rings is drawn as an edge line: 2 × (60 + 40) mm round the strap
+    // and 2 × (10 + 6) mm round the slot.
+    let near_ring = |p: [f32; 2]| {
+        rings.iter().any(|r| {
+            (0..r.len()).any(|i| {
+                let (a, b) = (r[i], r[(i + 1) % r.len()]);
+                let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
+                let t = (((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / (dx * dx + dy * dy))
+                    .clamp(0.0, 1.0);
+                (a[0] + t * dx - p[0]).hypot(a[1] + t * dy - p[1]) < 0.1
+            })
+        })
+    };
+    let edge_mm: f64 = ops
+        .iter()
+        .filter_map(|op| match op {
+            Op::Line {
+                x1,
+                y1,
+                x2,
+                y2,
+                width,
+                grey: 0,
+            } if *width == 0.9 && near_ring([*x1, *y1]) && near_ring([*x2, *y2]) => {
+                Some(f64::from((x2 - x1).hypot(y2 - y1)) / pt_per_m * 1e3)
+            }
+            _ => None,
+        })
+        .sum();
+    assert!((edge_mm - 232.0).abs() < 0.5, "edges drawn: {edge_mm} mm");
+    // The area to prepare round the gauge (10 mm all round) reaches over the slot, but none of
+    // its dashes lie in it.
+    let by_area = |r: &Vec<[f32; 2]>| ring_area(r);
+    let slot = rings
+        .iter()
+        .min_by(|a, b| by_area(a).total_cmp(&by_area(b)))
+        .unwrap();
+    let (lo, hi) = slot
+        .iter()
+        .fold(([f32::MAX; 2], [f32::MIN; 2]), |(lo, hi), p| {
+            (
+                [lo[0].min(p[0]), lo[1].min(p[1])],
+                [hi[0].max(p[0]), hi[1].max(p[1])],
+            )
+        });
+    let in_slot = |p: [f32; 2]| {
+        (lo[0] + 0.5..hi[0] - 0.5).contains(&p[0]) && (lo[1] + 0.5..hi[1] - 0.5).contains(&p[1])
+    };
+    let dashes: Vec<[f32; 2]> = ops
+        .iter()
+        .filter_map(|op| match op {
+            Op::Line {
+                x1,
+                y1,
+                x2,
+                y2,
+                grey: 130,
+                ..
+            } => Some([(x1 + x2) / 2.0, (y1 + y2) / 2.0]),
+            _ => None,
+        })
+        .collect();
+    assert!(dashes.len() > 20, "the area to prepare is drawn");
+    assert!(
+        !dashes.iter().any(|&p| in_slot(p)),
+        "a dash of the area to prepare lies in the slot"
+    );
+    let page_problems = problems(ops, w.width, w.height);
+    assert!(page_problems.is_empty(), "{page_problems:#?}");
+}
