@@ -449,6 +449,46 @@ pub fn mesh_notes(
     out
 }
 
+/// The datum on each face of an imported part that carries gauges: a face need not cover its
+/// flat coordinates' rectangle (a hole, a notch), and a datum off the metal cannot be marked or
+/// measured from. Said at the first gauge of each such face.
+pub fn datum_notes(part: &Part, gauges: &[PlacedGauge]) -> Vec<(usize, String)> {
+    let Member::ImportedField(f) = &part.member else {
+        return Vec::new();
+    };
+    let Some(surface) = f.surface() else {
+        return Vec::new();
+    };
+    let (dx, ds) = part.datum_m;
+    let mut out = Vec::new();
+    let mut seen = Vec::new();
+    for (gi, g) in gauges.iter().enumerate() {
+        let face = g.position.face;
+        if seen.contains(&face) {
+            continue;
+        }
+        seen.push(face);
+        if surface
+            .locate(&gw_mechanics::SurfacePoint::new(face, dx, ds))
+            .is_ok()
+        {
+            continue;
+        }
+        out.push((
+            gi,
+            format!(
+                "the datum (x = {}, s = {}) lies off {} (in a hole or past its edge), where it \
+                 cannot be marked or measured from; set it on the metal of this face: Datum \
+                 here in the face view, or Datum x and s of the part",
+                mark_rounded(Quantity::Length, dx, Rounding::Nearest),
+                mark_rounded(Quantity::Length, ds, Rounding::Nearest),
+                face.name()
+            ),
+        ));
+    }
+    out
+}
+
 fn quadrature_points(grid: &GridFootprint, q: QuadratureOrder) -> Vec<gw_mechanics::SurfacePoint> {
     let (ua, _) = gw_mechanics::grid_average::gauss_legendre(q.along.max(2));
     let (va, _) = gw_mechanics::grid_average::gauss_legendre(q.across.max(2));

@@ -54,6 +54,7 @@ pub fn placement_findings(
     notes.extend(unwired_notes(part, gauges));
     notes.extend(gradient_notes(part, gauges, quadrature));
     notes.extend(crate::imported_part::mesh_notes(part, gauges, quadrature));
+    notes.extend(crate::imported_part::datum_notes(part, gauges));
     // One gauge's warnings together, in gauge order.
     notes.sort_by_key(|(gi, _)| *gi);
     for (gi, note) in notes {

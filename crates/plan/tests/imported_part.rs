@@ -2,7 +2,7 @@
 //! project opens (named relative to the project's folder), a file changed since it was
 //! imported and a file that is gone are said at the part, a project saved elsewhere keeps
 //! finding them, and the mesh checks warn at the gauge (a grid over too few elements, a surface
-//! that is not free).
+//! that is not free), and a datum off the metal of a gauge's face is warned.
 
 use std::path::{Path, PathBuf};
 
@@ -379,4 +379,29 @@ fn a_surface_carrying_a_normal_stress_is_warned() {
         "{:#?}",
         ev.findings
     );
+}
+
+#[test]
+fn a_datum_off_the_face_is_warned_at_its_first_gauge() {
+    let dir = folder("datum");
+    write_bar(&dir, 40, false);
+    let mut p = project(&dir, 0.1);
+    let warned = |p: &Project| {
+        evaluate(p, &EvalOptions::default())
+            .findings
+            .iter()
+            .any(|f| {
+                f.target == Target::Gauge { part: 0, gauge: 0 }
+                    && f.message.contains("datum")
+                    && f.message.contains("lies off")
+            })
+    };
+    // The top face's x and s run from its centroid: 200 × 20 mm, so x = ±100 mm at its ends.
+    assert!(!warned(&p), "the datum at the centroid is on the face");
+    p.parts[0].datum_m = (0.095, 0.005);
+    assert!(!warned(&p), "a datum 5 mm inside the end is on the face");
+    p.parts[0].datum_m = (0.105, 0.0);
+    assert!(warned(&p), "a datum 5 mm past the end is off the face");
+    p.parts[0].datum_m = (0.0, 0.012);
+    assert!(warned(&p), "a datum 2 mm past the side is off the face");
 }
