@@ -6,7 +6,7 @@ use crate::error::{MechanicsError, Result};
 use crate::load::LoadVector;
 use crate::member::Member;
 use crate::section_resultants::unit_strains;
-use crate::surface::{Face, SurfacePoint};
+use crate::surface::{Face, FaceExtent, SurfacePoint};
 use crate::surface_state::SurfaceState;
 
 /// The quantity a map shows.
@@ -192,24 +192,7 @@ pub fn sample_face(
                 values.extend(std::iter::repeat_n(value, x_m.len()));
             }
         }
-        _ => {
-            // An imported face need not fill its bounds (a hole, a notch, a round end): only
-            // points on it have a value.
-            let off_face = |p: &SurfacePoint| {
-                matches!(member, Member::ImportedField(_)) && member.locate(p).is_err()
-            };
-            for &s in &s_m {
-                for &x in &x_m {
-                    let inside_hole = extent.hole_radius_m.is_some_and(|a| x * x + s * s < a * a);
-                    if inside_hole || off_face(&SurfacePoint::new(face, x, s)) {
-                        values.push(None);
-                    } else {
-                        let p = SurfacePoint::new(face, x, s);
-                        values.push(value_of(&member.state_unchecked(&p, loads)));
-                    }
-                }
-            }
-        }
+        _ => values = point_by_point(member, extent, loads, (&x_m, &s_m), &value_of),
     }
     Ok(SurfaceMap {
         face,
@@ -217,6 +200,31 @@ pub fn sample_face(
         s_m,
         values,
     })
+}
+
+/// The map of any other member, one point at a time (rows of `s`, each along `x`): nothing in a
+/// plate's hole, nor where an imported face does not reach (a hole, a notch, a round end).
+fn point_by_point(
+    member: &Member,
+    extent: &FaceExtent,
+    loads: &LoadVector,
+    (x_m, s_m): (&[f64], &[f64]),
+    value_of: &dyn Fn(&SurfaceState) -> Option<f64>,
+) -> Vec<Option<f64>> {
+    let imported = matches!(member, Member::ImportedField(_));
+    let mut values = Vec::with_capacity(x_m.len() * s_m.len());
+    for &s in s_m {
+        for &x in x_m {
+            let p = SurfacePoint::new(extent.face, x, s);
+            let inside_hole = extent.hole_radius_m.is_some_and(|a| x * x + s * s < a * a);
+            if inside_hole || (imported && member.locate(&p).is_err()) {
+                values.push(None);
+            } else {
+                values.push(value_of(&member.state_unchecked(&p, loads)));
+            }
+        }
+    }
+    values
 }
 
 #[cfg(test)]

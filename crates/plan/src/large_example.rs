@@ -9,7 +9,7 @@ use std::sync::Arc;
 
 use gw_bridge::{GaugePattern, LeadWiring};
 use gw_mechanics::imported::{
-    Cell, CellKind, FieldState, FieldUnits, ImportedLoad, ImportedSurface, LengthUnit, RawMesh,
+    Cell, FieldState, FieldUnits, ImportedLoad, ImportedSurface, LengthUnit, RawMesh,
     ReferenceAxis, ShearConvention, SurfaceField, TensorQuantity, TensorUnit, UnitField,
 };
 use gw_mechanics::{LoadComponent, Member};
@@ -46,20 +46,7 @@ pub fn plate_mesh() -> RawMesh {
     let mut cells = Vec::new();
     for j in 0..ny {
         for i in 0..nx {
-            let nodes = vec![
-                id(i, j, 0),
-                id(i + 1, j, 0),
-                id(i + 1, j + 1, 0),
-                id(i, j + 1, 0),
-                id(i, j, 1),
-                id(i + 1, j, 1),
-                id(i + 1, j + 1, 1),
-                id(i, j + 1, 1),
-            ];
-            cells.push(Cell {
-                kind: CellKind::Hexa,
-                nodes,
-            });
+            cells.push(Cell::grid_hexahedron(id, i, j, 0));
         }
     }
     RawMesh { points_m, cells }

@@ -83,6 +83,27 @@ pub struct Cell {
     pub nodes: Vec<u32>,
 }
 
+impl Cell {
+    /// The hexahedron of a structured grid whose node at grid position (i, j, k) is
+    /// `node(i, j, k)`: the cell from (i, j, k) to (i + 1, j + 1, k + 1), its corners in the
+    /// order of a hexahedron (the lower ring, then the upper one).
+    pub fn grid_hexahedron(node: impl Fn(u32, u32, u32) -> u32, i: u32, j: u32, k: u32) -> Self {
+        Self {
+            kind: CellKind::Hexa,
+            nodes: vec![
+                node(i, j, k),
+                node(i + 1, j, k),
+                node(i + 1, j + 1, k),
+                node(i, j + 1, k),
+                node(i, j, k + 1),
+                node(i + 1, j, k + 1),
+                node(i + 1, j + 1, k + 1),
+                node(i, j + 1, k + 1),
+            ],
+        }
+    }
+}
+
 /// A mesh as read: points in metres and cells.
 #[derive(Debug, Clone, Default, PartialEq)]
 pub struct RawMesh {

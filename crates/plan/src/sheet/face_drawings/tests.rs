@@ -588,8 +588,8 @@ fn a_polygon_clipped_to_a_box_keeps_the_area_inside_it() {
 /// (2 mm hexahedra, 30 × 20 less 5 × 3 of them), under a uniform unit stress.
 fn holed_plate() -> gw_mechanics::Member {
     use gw_mechanics::imported::{
-        Cell, CellKind, FieldState, ImportedSurface, RawMesh, ReferenceAxis, SurfaceField,
-        TensorQuantity, UnitField,
+        Cell, FieldState, ImportedSurface, RawMesh, ReferenceAxis, SurfaceField, TensorQuantity,
+        UnitField,
     };
     let (nx, ny) = (30u32, 20u32);
     let id = |i: u32, j: u32, k: u32| (k * (ny + 1) + j) * (nx + 1) + i;
@@ -611,19 +611,7 @@ fn holed_plate() -> gw_mechanics::Member {
             if (12..17).contains(&i) && (8..11).contains(&j) {
                 continue;
             }
-            cells.push(Cell {
-                kind: CellKind::Hexa,
-                nodes: vec![
-                    id(i, j, 0),
-                    id(i + 1, j, 0),
-                    id(i + 1, j + 1, 0),
-                    id(i, j + 1, 0),
-                    id(i, j, 1),
-                    id(i + 1, j, 1),
-                    id(i + 1, j + 1, 1),
-                    id(i, j + 1, 1),
-                ],
-            });
+            cells.push(Cell::grid_hexahedron(id, i, j, 0));
         }
     }
     let field = UnitField {
@@ -643,6 +631,69 @@ fn holed_plate() -> gw_mechanics::Member {
         field: FieldState::Loaded(std::sync::Arc::new(surface)),
         read_notes: Vec::new(),
     })
+}
+
+/// The total length of the solid edge lines (0.9 pt, black) that run along the rings, points.
+fn ring_lines_pt(ops: &[Op], rings: &[Vec<[f32; 2]>]) -> f64 {
+    let near_ring = |p: [f32; 2]| {
+        rings.iter().any(|r| {
+            (0..r.len()).any(|i| {
+                let (a, b) = (r[i], r[(i + 1) % r.len()]);
+                let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
+                let t = (((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / (dx * dx + dy * dy))
+                    .clamp(0.0, 1.0);
+                (a[0] + t * dx - p[0]).hypot(a[1] + t * dy - p[1]) < 0.1
+            })
+        })
+    };
+    ops.iter()
+        .filter_map(|op| match op {
+            Op::Line {
+                x1,
+                y1,
+                x2,
+                y2,
+                width,
+                grey: 0,
+            } if *width == 0.9 && near_ring([*x1, *y1]) && near_ring([*x2, *y2]) => {
+                Some(f64::from((x2 - x1).hypot(y2 - y1)))
+            }
+            _ => None,
+        })
+        .sum()
+}
+
+/// Whether a point lies inside the box round `ring`, `inset` points in from its sides.
+fn inside_box_of(ring: &[[f32; 2]], inset: f32) -> impl Fn([f32; 2]) -> bool {
+    let (lo, hi) = ring
+        .iter()
+        .fold(([f32::MAX; 2], [f32::MIN; 2]), |(lo, hi), p| {
+            (
+                [lo[0].min(p[0]), lo[1].min(p[1])],
+                [hi[0].max(p[0]), hi[1].max(p[1])],
+            )
+        });
+    move |p| {
+        (lo[0] + inset..hi[0] - inset).contains(&p[0])
+            && (lo[1] + inset..hi[1] - inset).contains(&p[1])
+    }
+}
+
+/// The middle of every dash of an area to prepare (grey 130 lines).
+fn dash_middles(ops: &[Op]) -> Vec<[f32; 2]> {
+    ops.iter()
+        .filter_map(|op| match op {
+            Op::Line {
+                x1,
+                y1,
+                x2,
+                y2,
+                grey: 130,
+                ..
+            } => Some([(x1 + x2) / 2.0, (y1 + y2) / 2.0]),
+            _ => None,
+        })
+        .collect()
 }
 
 #[test]
@@ -698,66 +749,16 @@ fn an_imported_face_is_drawn_by_its_own_outline_with_its_hole_open() {
     assert!((areas_mm2[1] - 2400.0).abs() < 10.0, "{areas_mm2:?}");
     // Every side of both rings is drawn as an edge line: 2 × (60 + 40) mm round the strap
     // and 2 × (10 + 6) mm round the slot.
-    let near_ring = |p: [f32; 2]| {
-        rings.iter().any(|r| {
-            (0..r.len()).any(|i| {
-                let (a, b) = (r[i], r[(i + 1) % r.len()]);
-                let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
-                let t = (((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / (dx * dx + dy * dy))
-                    .clamp(0.0, 1.0);
-                (a[0] + t * dx - p[0]).hypot(a[1] + t * dy - p[1]) < 0.1
-            })
-        })
-    };
-    let edge_mm: f64 = ops
-        .iter()
-        .filter_map(|op| match op {
-            Op::Line {
-                x1,
-                y1,
-                x2,
-                y2,
-                width,
-                grey: 0,
-            } if *width == 0.9 && near_ring([*x1, *y1]) && near_ring([*x2, *y2]) => {
-                Some(f64::from((x2 - x1).hypot(y2 - y1)) / pt_per_m * 1e3)
-            }
-            _ => None,
-        })
-        .sum();
+    let edge_mm = ring_lines_pt(ops, &rings) / pt_per_m * 1e3;
     assert!((edge_mm - 232.0).abs() < 0.5, "edges drawn: {edge_mm} mm");
     // The area to prepare round the gauge (10 mm all round) reaches over the slot, but none of
     // its dashes lie in it.
-    let by_area = |r: &Vec<[f32; 2]>| ring_area(r);
     let slot = rings
         .iter()
-        .min_by(|a, b| by_area(a).total_cmp(&by_area(b)))
+        .min_by(|a, b| ring_area(a).total_cmp(&ring_area(b)))
         .unwrap();
-    let (lo, hi) = slot
-        .iter()
-        .fold(([f32::MAX; 2], [f32::MIN; 2]), |(lo, hi), p| {
-            (
-                [lo[0].min(p[0]), lo[1].min(p[1])],
-                [hi[0].max(p[0]), hi[1].max(p[1])],
-            )
-        });
-    let in_slot = |p: [f32; 2]| {
-        (lo[0] + 0.5..hi[0] - 0.5).contains(&p[0]) && (lo[1] + 0.5..hi[1] - 0.5).contains(&p[1])
-    };
-    let dashes: Vec<[f32; 2]> = ops
-        .iter()
-        .filter_map(|op| match op {
-            Op::Line {
-                x1,
-                y1,
-                x2,
-                y2,
-                grey: 130,
-                ..
-            } => Some([(x1 + x2) / 2.0, (y1 + y2) / 2.0]),
-            _ => None,
-        })
-        .collect();
+    let in_slot = inside_box_of(slot, 0.5);
+    let dashes = dash_middles(ops);
     assert!(dashes.len() > 20, "the area to prepare is drawn");
     assert!(
         !dashes.iter().any(|&p| in_slot(p)),
